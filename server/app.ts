@@ -1,0 +1,96 @@
+import express from "express";
+import helmet from "helmet";
+import { existsSync } from "node:fs";
+import path from "node:path";
+import type { Db } from "./db/client";
+import type { AppDeps } from "./deps";
+import { createLucia } from "./auth/lucia";
+import { sessionMiddleware } from "./auth/session";
+import { originCheck } from "./http/origin-check";
+import { errorHandler, notFoundHandler } from "./http/error-handler";
+import type { Mailer } from "./mail/mailer";
+import { authRouter } from "./modules/auth/auth.router";
+import { healthRouter } from "./modules/health/health.router";
+import { paintersRouter, usersRouter } from "./modules/users/users.router";
+import { customersRouter } from "./modules/customers/customers.router";
+import { jobsRouter } from "./modules/jobs/jobs.router";
+import { outboxRouter } from "./modules/outbox/outbox.router";
+
+export type CreateAppOptions = {
+  db: Db;
+  mailer: Mailer;
+  publicUrl?: string;
+  demoMode?: boolean;
+  outboxDir?: string | null;
+  dataDir?: string;
+  now?: () => number;
+  rateLimits?: Partial<AppDeps["rateLimits"]>;
+  clientDir?: string | null;
+  trustProxy?: boolean;
+};
+
+export function createApp(options: CreateAppOptions) {
+  const deps: AppDeps = {
+    db: options.db,
+    lucia: createLucia(options.db),
+    mailer: options.mailer,
+    publicUrl: (options.publicUrl ?? "http://localhost:3000").replace(/\/$/, ""),
+    demoMode: options.demoMode ?? false,
+    outboxDir: options.outboxDir ?? null,
+    dataDir: options.dataDir ?? "./data",
+    now: options.now ?? Date.now,
+    rateLimits: {
+      signIn: { perAddress: 30, perAccount: 8, windowMs: 15 * 60_000 },
+      passwordReset: 10,
+      ...options.rateLimits,
+    },
+    clientDir: options.clientDir ?? null,
+  };
+
+  const app = express();
+  app.disable("x-powered-by");
+  if (options.trustProxy) app.set("trust proxy", 1);
+  app.use(
+    helmet({
+      contentSecurityPolicy: {
+        directives: {
+          "default-src": ["'self'"],
+          "img-src": ["'self'", "data:", "blob:"],
+          "style-src": ["'self'", "'unsafe-inline'"],
+          "script-src": ["'self'"],
+          "connect-src": ["'self'"],
+          "font-src": ["'self'", "data:"],
+          "object-src": ["'none'"],
+          "frame-ancestors": ["'none'"],
+          "form-action": ["'self'"],
+          "upgrade-insecure-requests": null,
+        },
+      },
+    }),
+  );
+
+  const api = express.Router();
+  api.use(express.json({ limit: "200kb" }));
+  api.use(originCheck());
+  api.use(sessionMiddleware(deps.lucia));
+  api.use("/health", healthRouter(deps));
+  api.use("/auth", authRouter(deps));
+  api.use("/users", usersRouter(deps));
+  api.use("/painters", paintersRouter(deps));
+  api.use("/customers", customersRouter(deps));
+  api.use("/jobs", jobsRouter(deps));
+  api.use("/outbox", outboxRouter(deps));
+  api.use(notFoundHandler);
+  api.use(errorHandler);
+  app.use("/api", api);
+
+  if (deps.clientDir && existsSync(path.join(deps.clientDir, "index.html"))) {
+    const clientDir = deps.clientDir;
+    app.use(express.static(clientDir, { index: false, maxAge: "1h" }));
+    app.get("/*splat", (_req, res) => {
+      res.sendFile(path.join(clientDir, "index.html"));
+    });
+  }
+  app.use(errorHandler);
+  return Object.assign(app, { deps });
+}

@@ -1,0 +1,40 @@
+import path from "node:path";
+import { z } from "zod";
+
+const envSchema = z.object({
+  PORT: z.coerce.number().int().min(0).max(65535).default(3000),
+  DATA_DIR: z.string().default("./data"),
+  /** Public base URL used in e-mailed links. Defaults to http://localhost:PORT. */
+  PUBLIC_URL: z.url().optional(),
+  /** Real SMTP relay; when SMTP_HOST is unset, the local outbox stand-in is started instead. */
+  SMTP_HOST: z.string().optional(),
+  SMTP_PORT: z.coerce.number().int().positive().optional(),
+  SMTP_USER: z.string().optional(),
+  SMTP_PASS: z.string().optional(),
+  SMTP_SECURE: z.enum(["0", "1"]).optional(),
+  MAIL_FROM: z.string().default("Coatwright <no-reply@coatwright.test>"),
+  /** Demo mode shows the outbox to the owner. On by default with the local stand-ins. */
+  DEMO_MODE: z.enum(["0", "1"]).optional(),
+  TRUST_PROXY: z.enum(["0", "1"]).default("0"),
+});
+
+export type Env = z.infer<typeof envSchema>;
+
+export function readEnv(source: NodeJS.ProcessEnv = process.env) {
+  const result = envSchema.safeParse(source);
+  if (!result.success) {
+    const lines = result.error.issues.map((i) => `  ${i.path.join(".")}: ${i.message}`).join("\n");
+    throw new Error(`Invalid environment:\n${lines}`);
+  }
+  const env = result.data;
+  const dataDir = path.resolve(env.DATA_DIR);
+  return {
+    ...env,
+    dataDir,
+    dbFile: path.join(dataDir, "coatwright.db"),
+    uploadsDir: path.join(dataDir, "uploads"),
+    outboxDir: path.join(dataDir, "outbox"),
+    demoMode: env.DEMO_MODE ? env.DEMO_MODE === "1" : !env.SMTP_HOST,
+  };
+}
+export type AppEnv = ReturnType<typeof readEnv>;

@@ -1,0 +1,19 @@
+import type { Db } from "./db/client";
+import type { AppLucia } from "./auth/lucia";
+import type { Mailer } from "./mail/mailer";
+
+/** Everything a router or service needs from the outside world; tests build their own. */
+export type AppDeps = {
+  db: Db;
+  lucia: AppLucia;
+  mailer: Mailer;
+  /** Base URL for links in e-mails, without a trailing slash. */
+  publicUrl: string;
+  demoMode: boolean;
+  outboxDir: string | null;
+  dataDir: string;
+  now: () => number;
+  rateLimits: { signIn: { perAddress: number; perAccount: number; windowMs: number }; passwordReset: number };
+  /** Path of the built SPA (dist/) to serve, or null for API only. */
+  clientDir: string | null;
+};

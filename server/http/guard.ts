@@ -1,0 +1,29 @@
+import type { RequestHandler, Response } from "express";
+import { ACCESS, type Access } from "../../shared/domain/roles";
+import { forbidden, unauthenticated } from "./http-error";
+import type { Actor } from "../auth/session";
+
+/** A guard middleware remembers what it allows, so tests can read every route's rule from the router. */
+export type Guard = RequestHandler & { access: Access | "public" };
+
+/**
+ * The one permission guard. Every API route is declared with exactly one of these:
+ * `allow("office")`, `allow("staff")`, … or `allow("public")`. 401 when signed out, 403 for a role outside the group.
+ */
+export function allow(access: Access | "public"): Guard {
+  const handler: RequestHandler = (_req, res, next) => {
+    if (access === "public") return next();
+    const actor = res.locals.actor;
+    if (!actor) return next(unauthenticated());
+    if (!(ACCESS[access] as readonly string[]).includes(actor.role)) return next(forbidden());
+    next();
+  };
+  return Object.assign(handler, { access });
+}
+
+/** The signed-in actor; only call behind a non-public guard. */
+export function actorOf(res: Response): Actor {
+  const actor = res.locals.actor;
+  if (!actor) throw unauthenticated();
+  return actor;
+}

@@ -1,0 +1,21 @@
+import type { ErrorCode } from "../../shared/api/error";
+
+/** An error a service throws on purpose; the error handler turns it into `{ error: { code, message, fields? } }`. */
+export class HttpError extends Error {
+  constructor(
+    readonly status: number,
+    readonly code: ErrorCode,
+    message: string,
+    readonly fields?: Record<string, string>,
+  ) {
+    super(message);
+    this.name = "HttpError";
+  }
+}
+
+export const badRequest = (message: string, fields?: Record<string, string>) =>
+  new HttpError(400, fields ? "validation_failed" : "bad_request", message, fields);
+export const unauthenticated = (message = "Sign in to continue") => new HttpError(401, "unauthenticated", message);
+export const forbidden = (message = "Your role does not allow this") => new HttpError(403, "forbidden", message);
+export const notFound = (what = "Record") => new HttpError(404, "not_found", `${what} not found`);
+export const conflict = (message: string, fields?: Record<string, string>) => new HttpError(409, "conflict", message, fields);

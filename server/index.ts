@@ -1,0 +1,62 @@
+import { mkdirSync } from "node:fs";
+import type { AddressInfo } from "node:net";
+import { fileURLToPath } from "node:url";
+import { readEnv } from "./config";
+import { migrateDb, openDb } from "./db/client";
+import { isEmpty, seedDemo } from "./db/seed";
+import { createApp } from "./app";
+import { createSmtpMailer } from "./mail/mailer";
+import { startSmtpOutbox } from "./stand-ins/smtp-outbox";
+
+/**
+ * Starts the whole product on one port: migrations, demo seed on an empty database,
+ * the local SMTP stand-in (unless a real SMTP_HOST is set), the API and the built SPA.
+ */
+export async function main() {
+  const env = readEnv();
+  mkdirSync(env.dataDir, { recursive: true });
+  const db = openDb(env.dbFile);
+  migrateDb(db);
+  if (isEmpty(db)) {
+    await seedDemo(db);
+    console.log("Seeded the demo shop (sign in with the demo accounts in the README).");
+  }
+
+  const outbox = env.SMTP_HOST ? null : await startSmtpOutbox(env.outboxDir);
+  const mailer = createSmtpMailer(
+    env.SMTP_HOST
+      ? { host: env.SMTP_HOST, port: env.SMTP_PORT ?? 587, secure: env.SMTP_SECURE === "1", user: env.SMTP_USER, pass: env.SMTP_PASS, from: env.MAIL_FROM }
+      : { host: "127.0.0.1", port: outbox!.port, from: env.MAIL_FROM },
+  );
+
+  const app = createApp({
+    db,
+    mailer,
+    publicUrl: env.PUBLIC_URL ?? `http://localhost:${env.PORT}`,
+    demoMode: env.demoMode,
+    outboxDir: outbox ? outbox.dir : null,
+    dataDir: env.dataDir,
+    clientDir: fileURLToPath(new URL("../dist", import.meta.url)),
+    trustProxy: env.TRUST_PROXY === "1",
+  });
+
+  const server = app.listen(env.PORT, () => {
+    const port = (server.address() as AddressInfo).port;
+    console.log(`Coatwright is running on http://localhost:${port}`);
+    if (outbox) console.log(`Local SMTP stand-in on 127.0.0.1:${outbox.port}; messages kept in ${outbox.dir}`);
+  });
+
+  const shutdown = () => {
+    server.close();
+    void outbox?.close();
+    db.$client.close();
+    process.exit(0);
+  };
+  process.once("SIGINT", shutdown);
+  process.once("SIGTERM", shutdown);
+  return server;
+}
+
+if (import.meta.url === `file://${process.argv[1]}`) {
+  await main();
+}

@@ -1,0 +1,76 @@
+import { and, asc, eq } from "drizzle-orm";
+import type { z } from "zod";
+import type { AppDeps } from "../../deps";
+import type { Actor } from "../../auth/session";
+import { jobItems, jobs } from "../../db/schema";
+import { notFound } from "../../http/http-error";
+import { iso } from "../../http/dates";
+import type { JobItemDto } from "../../../shared/schemas/job.schema";
+import type { createJobItemInputSchema, updateJobItemInputSchema } from "../../../shared/schemas/job-item.schema";
+import { findJobFor } from "./jobs.access";
+
+function toDto(row: typeof jobItems.$inferSelect, actor: Actor): JobItemDto {
+  return {
+    ...row,
+    notes: actor.role === "customer" ? null : row.notes,
+    createdAt: iso(row.createdAt),
+    updatedAt: iso(row.updatedAt),
+  };
+}
+
+export function listItems(deps: AppDeps, actor: Actor, jobId: number): JobItemDto[] {
+  findJobFor(deps, actor, jobId);
+  return deps.db
+    .select()
+    .from(jobItems)
+    .where(eq(jobItems.jobId, jobId))
+    .orderBy(asc(jobItems.id))
+    .all()
+    .map((r) => toDto(r, actor));
+}
+
+function findItem(deps: AppDeps, actor: Actor, jobId: number, itemId: number) {
+  findJobFor(deps, actor, jobId);
+  const item = deps.db
+    .select()
+    .from(jobItems)
+    .where(and(eq(jobItems.id, itemId), eq(jobItems.jobId, jobId)))
+    .get();
+  if (!item) throw notFound("Item");
+  return item;
+}
+
+export function getItem(deps: AppDeps, actor: Actor, jobId: number, itemId: number) {
+  return toDto(findItem(deps, actor, jobId, itemId), actor);
+}
+
+const touchJob = (deps: AppDeps, jobId: number) => deps.db.update(jobs).set({ updatedAt: deps.now() }).where(eq(jobs.id, jobId)).run();
+
+export function createItem(deps: AppDeps, actor: Actor, jobId: number, input: z.output<typeof createJobItemInputSchema>) {
+  findJobFor(deps, actor, jobId);
+  const row = deps.db
+    .insert(jobItems)
+    .values({ jobId, ...input, notes: input.notes ?? null })
+    .returning()
+    .get();
+  touchJob(deps, jobId);
+  return toDto(row, actor);
+}
+
+export function updateItem(deps: AppDeps, actor: Actor, jobId: number, itemId: number, input: z.output<typeof updateJobItemInputSchema>) {
+  findItem(deps, actor, jobId, itemId);
+  const row = deps.db
+    .update(jobItems)
+    .set({ ...input, updatedAt: deps.now() })
+    .where(eq(jobItems.id, itemId))
+    .returning()
+    .get();
+  touchJob(deps, jobId);
+  return toDto(row, actor);
+}
+
+export function deleteItem(deps: AppDeps, actor: Actor, jobId: number, itemId: number) {
+  findItem(deps, actor, jobId, itemId);
+  deps.db.delete(jobItems).where(eq(jobItems.id, itemId)).run();
+  touchJob(deps, jobId);
+}

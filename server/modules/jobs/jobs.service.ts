@@ -1,0 +1,261 @@
+import { aliasedTable, and, asc, count, desc, eq, gte, inArray, like, lt, lte, notInArray, or, sql, type SQL } from "drizzle-orm";
+import type { z } from "zod";
+import type { AppDeps } from "../../deps";
+import type { Actor } from "../../auth/session";
+import { customers, jobItems, jobStageEvents, jobs, users } from "../../db/schema";
+import { badRequest, conflict } from "../../http/http-error";
+import { iso } from "../../http/dates";
+import { parseSort, type Page } from "../../../shared/api/pagination";
+import { nextStagesFor, STAGES, type Stage, STAGE_LABELS } from "../../../shared/domain/stages";
+import type {
+  BoardDto,
+  JobDetailDto,
+  JobDto,
+  ListJobsQuery,
+  StageEventDto,
+  changeStageInputSchema,
+  createJobInputSchema,
+  updateJobInputSchema,
+} from "../../../shared/schemas/job.schema";
+import { findJobFor, jobScope } from "./jobs.access";
+import { listItems } from "./job-items.service";
+
+const painters = aliasedTable(users, "painter");
+const itemCount = sql<number>`(select count(*) from ${jobItems} where ${jobItems.jobId} = ${jobs.id})`.mapWith(Number);
+
+const jobColumns = {
+  id: jobs.id,
+  title: jobs.title,
+  stage: jobs.stage,
+  dueDate: jobs.dueDate,
+  customerId: jobs.customerId,
+  customerName: customers.name,
+  assignedPainterId: jobs.assignedPainterId,
+  assignedPainterName: painters.name,
+  notes: jobs.notes,
+  itemCount,
+  createdAt: jobs.createdAt,
+  updatedAt: jobs.updatedAt,
+  stageChangedAt: jobs.stageChangedAt,
+};
+
+type JobRow = {
+  id: number;
+  title: string;
+  stage: Stage;
+  dueDate: string | null;
+  customerId: number;
+  customerName: string;
+  assignedPainterId: string | null;
+  assignedPainterName: string | null;
+  notes: string | null;
+  itemCount: number;
+  createdAt: number;
+  updatedAt: number;
+  stageChangedAt: number;
+};
+
+/** Customers never see the shop's internal notes. */
+function toDto(row: JobRow, actor: Actor): JobDto {
+  const dto: JobDto = {
+    ...row,
+    createdAt: iso(row.createdAt),
+    updatedAt: iso(row.updatedAt),
+    stageChangedAt: iso(row.stageChangedAt),
+  };
+  if (actor.role === "customer") delete dto.notes;
+  return dto;
+}
+
+function selectJobs(deps: AppDeps) {
+  return deps.db
+    .select(jobColumns)
+    .from(jobs)
+    .innerJoin(customers, eq(jobs.customerId, customers.id))
+    .leftJoin(painters, eq(jobs.assignedPainterId, painters.id));
+}
+
+const SORT = {
+  id: jobs.id,
+  title: jobs.title,
+  customer: customers.name,
+  stage: sql`(case ${jobs.stage} ${sql.raw(STAGES.map((s, i) => `when '${s}' then ${i}`).join(" "))} end)`,
+  dueDate: jobs.dueDate,
+  updatedAt: jobs.updatedAt,
+  createdAt: jobs.createdAt,
+} as const;
+
+/** Local calendar date as YYYY-MM-DD. */
+function dateOnly(ms: number, addDays = 0) {
+  const d = new Date(ms);
+  d.setDate(d.getDate() + addDays);
+  const pad = (n: number) => String(n).padStart(2, "0");
+  return `${d.getFullYear()}-${pad(d.getMonth() + 1)}-${pad(d.getDate())}`;
+}
+
+function listFilters(deps: AppDeps, actor: Actor, q: ListJobsQuery): SQL | undefined {
+  const filters: (SQL | undefined)[] = [jobScope(actor)];
+  if (q.stage?.length) filters.push(inArray(jobs.stage, q.stage));
+  if (q.customerId) filters.push(eq(jobs.customerId, q.customerId));
+  if (q.painterId) filters.push(eq(jobs.assignedPainterId, q.painterId));
+  if (q.due) {
+    const today = dateOnly(deps.now());
+    filters.push(notInArray(jobs.stage, ["ready", "delivered", "cancelled"]));
+    filters.push(q.due === "overdue" ? lt(jobs.dueDate, today) : and(gte(jobs.dueDate, today), lte(jobs.dueDate, dateOnly(deps.now(), 7))));
+  }
+  if (q.q) {
+    const text = `%${q.q}%`;
+    const byNumber = /^#?\d+$/.test(q.q) ? eq(jobs.id, Number(q.q.replace("#", ""))) : undefined;
+    filters.push(or(like(jobs.title, text), like(customers.name, text), byNumber));
+  }
+  return and(...filters);
+}
+
+export function listJobs(deps: AppDeps, actor: Actor, q: ListJobsQuery): Page<JobDto> {
+  const where = listFilters(deps, actor, q);
+  const { field, desc: isDesc } = parseSort(q.sort);
+  const col = SORT[field as keyof typeof SORT] ?? jobs.dueDate;
+  // Jobs with no due date sort last either way.
+  const nullsLast = field === "dueDate" ? [sql`${jobs.dueDate} is null`] : [];
+  const rows = selectJobs(deps)
+    .where(where)
+    .orderBy(...nullsLast, isDesc ? desc(col) : asc(col), desc(jobs.id))
+    .limit(q.pageSize)
+    .offset((q.page - 1) * q.pageSize)
+    .all() as JobRow[];
+  const total =
+    deps.db.select({ n: count() }).from(jobs).innerJoin(customers, eq(jobs.customerId, customers.id)).where(where).get()?.n ?? 0;
+  return { items: rows.map((r) => toDto(r, actor)), total, page: q.page, pageSize: q.pageSize };
+}
+
+export const BOARD_CARDS_PER_STAGE = 40;
+
+/** Every stage with its count and its most urgent jobs (soonest due first). */
+export function jobBoard(deps: AppDeps, actor: Actor): BoardDto {
+  const scope = jobScope(actor);
+  const counts = new Map(
+    deps.db
+      .select({ stage: jobs.stage, n: count() })
+      .from(jobs)
+      .where(scope)
+      .groupBy(jobs.stage)
+      .all()
+      .map((r) => [r.stage, r.n]),
+  );
+  const columns = STAGES.map((stage) => {
+    const recentFirst = stage === "delivered" || stage === "cancelled";
+    const rows = selectJobs(deps)
+      .where(and(eq(jobs.stage, stage), scope))
+      .orderBy(...(recentFirst ? [desc(jobs.stageChangedAt)] : [sql`${jobs.dueDate} is null`, asc(jobs.dueDate)]), desc(jobs.id))
+      .limit(BOARD_CARDS_PER_STAGE)
+      .all() as JobRow[];
+    return { stage, total: counts.get(stage) ?? 0, jobs: rows.map((r) => toDto(r, actor)) };
+  });
+  return { columns };
+}
+
+function stageEvents(deps: AppDeps, jobId: number): StageEventDto[] {
+  return deps.db
+    .select({
+      id: jobStageEvents.id,
+      fromStage: jobStageEvents.fromStage,
+      toStage: jobStageEvents.toStage,
+      note: jobStageEvents.note,
+      byName: sql<string>`coalesce(${users.name}, 'Former user')`,
+      at: jobStageEvents.at,
+    })
+    .from(jobStageEvents)
+    .leftJoin(users, eq(jobStageEvents.userId, users.id))
+    .where(eq(jobStageEvents.jobId, jobId))
+    .orderBy(desc(jobStageEvents.at), desc(jobStageEvents.id))
+    .all()
+    .map((e) => ({ ...e, at: iso(e.at) }));
+}
+
+export function getJob(deps: AppDeps, actor: Actor, id: number): JobDetailDto {
+  findJobFor(deps, actor, id);
+  const row = selectJobs(deps).where(eq(jobs.id, id)).get() as JobRow;
+  const job = toDto(row, actor);
+  const canMove = actor.role !== "painter" || row.assignedPainterId === actor.id;
+  return {
+    ...job,
+    items: listItems(deps, actor, id),
+    events: actor.role === "customer" ? [] : stageEvents(deps, id),
+    nextStages: canMove ? nextStagesFor(actor.role, row.stage) : [],
+  };
+}
+
+function checkRefs(deps: AppDeps, input: { customerId?: number; assignedPainterId?: string | null }) {
+  if (input.customerId !== undefined) {
+    const c = deps.db.select({ id: customers.id }).from(customers).where(eq(customers.id, input.customerId)).get();
+    if (!c) throw badRequest("That customer does not exist", { customerId: "No such customer" });
+  }
+  if (input.assignedPainterId) {
+    const p = deps.db.select({ role: users.role, active: users.active }).from(users).where(eq(users.id, input.assignedPainterId)).get();
+    if (!p || p.role !== "painter" || !p.active)
+      throw badRequest("Assign the job to an active painter", { assignedPainterId: "Not an active painter" });
+  }
+}
+
+export function createJob(deps: AppDeps, actor: Actor, input: z.output<typeof createJobInputSchema>): JobDetailDto {
+  checkRefs(deps, input);
+  const now = deps.now();
+  const id = deps.db.transaction((tx) => {
+    const job = tx
+      .insert(jobs)
+      .values({
+        customerId: input.customerId,
+        title: input.title,
+        dueDate: input.dueDate ?? null,
+        assignedPainterId: input.assignedPainterId ?? null,
+        notes: input.notes ?? null,
+        stage: "inquiry",
+        stageChangedAt: now,
+        createdAt: now,
+        updatedAt: now,
+      })
+      .returning({ id: jobs.id })
+      .get();
+    tx.insert(jobStageEvents).values({ jobId: job.id, fromStage: null, toStage: "inquiry", userId: actor.id, at: now, note: "Job created" }).run();
+    return job.id;
+  });
+  return getJob(deps, actor, id);
+}
+
+export function updateJob(deps: AppDeps, actor: Actor, id: number, input: z.output<typeof updateJobInputSchema>): JobDetailDto {
+  findJobFor(deps, actor, id);
+  checkRefs(deps, input);
+  deps.db
+    .update(jobs)
+    .set({ ...input, updatedAt: deps.now() })
+    .where(eq(jobs.id, id))
+    .run();
+  return getJob(deps, actor, id);
+}
+
+export function changeStage(deps: AppDeps, actor: Actor, id: number, input: z.output<typeof changeStageInputSchema>): JobDetailDto {
+  const job = findJobFor(deps, actor, id);
+  if (job.stage === input.stage) throw conflict(`The job is already ${STAGE_LABELS[job.stage].toLowerCase()}`, { stage: "Same stage" });
+  const allowed = nextStagesFor(actor.role, job.stage);
+  if (!allowed.includes(input.stage)) {
+    const options = allowed.map((s) => STAGE_LABELS[s]).join(", ") || "none for your role";
+    throw conflict(`A job cannot move from ${STAGE_LABELS[job.stage]} to ${STAGE_LABELS[input.stage]}. Allowed: ${options}`, {
+      stage: "Not allowed from the current stage",
+    });
+  }
+  const now = deps.now();
+  deps.db.transaction((tx) => {
+    tx.update(jobs).set({ stage: input.stage, stageChangedAt: now, updatedAt: now }).where(eq(jobs.id, id)).run();
+    tx.insert(jobStageEvents)
+      .values({ jobId: id, fromStage: job.stage, toStage: input.stage, note: input.note ?? null, userId: actor.id, at: now })
+      .run();
+  });
+  return getJob(deps, actor, id);
+}
+
+/** Only an inquiry can be deleted outright; anything further along is cancelled so its history stays. */
+export function deleteJob(deps: AppDeps, actor: Actor, id: number) {
+  const job = findJobFor(deps, actor, id);
+  if (job.stage !== "inquiry") throw conflict("Only an inquiry can be deleted; move the job to Cancelled instead", { stage: job.stage });
+  deps.db.delete(jobs).where(eq(jobs.id, id)).run();
+}

@@ -1,0 +1,30 @@
+import { Router } from "express";
+import { z } from "zod";
+import type { AppDeps } from "../../deps";
+import { allow } from "../../http/guard";
+import { notFound } from "../../http/http-error";
+import { params } from "../../http/validate";
+import { readOutbox, readOutboxAttachment } from "../../stand-ins/smtp-outbox";
+
+/** The local SMTP stand-in's outbox, readable by the owner in demo mode only. */
+export function outboxRouter(deps: AppDeps) {
+  const r = Router();
+  const requireDemo = () => {
+    if (!deps.demoMode || !deps.outboxDir) throw notFound("Outbox (only in demo mode)");
+    return deps.outboxDir;
+  };
+  r.get("/", allow("owner"), (_req, res) => {
+    res.json({ items: readOutbox(requireDemo()) });
+  });
+  r.get("/:id/attachments/:index", allow("owner"), (req, res) => {
+    const p = params(req, z.object({ id: z.string().regex(/^[a-z0-9-]+$/), index: z.coerce.number().int().min(0) }));
+    const dir = requireDemo();
+    const message = readOutbox(dir).find((m) => m.id === p.id);
+    const meta = message?.attachments[p.index];
+    const content = readOutboxAttachment(dir, p.id, p.index);
+    if (!meta || !content) throw notFound("Attachment");
+    res.type(meta.contentType).setHeader("Content-Disposition", `attachment; filename="${meta.filename.replace(/"/g, "")}"`);
+    res.send(content);
+  });
+  return r;
+}

@@ -1,0 +1,26 @@
+import { z } from "zod";
+
+/** Every failed API response has this body. `fields` maps a field path ("email", "items.0.name") to a message. */
+export const apiErrorBodySchema = z.object({
+  error: z.object({
+    code: z.string(),
+    message: z.string(),
+    fields: z.record(z.string(), z.string()).optional(),
+  }),
+});
+export type ApiErrorBody = z.infer<typeof apiErrorBodySchema>;
+
+export const ERROR_CODES = [
+  "bad_request",
+  "validation_failed",
+  "unauthenticated",
+  "forbidden",
+  "not_found",
+  "conflict",
+  "payload_too_large",
+  "unsupported_media_type",
+  "rate_limited",
+  "upstream_failed",
+  "internal",
+] as const;
+export type ErrorCode = (typeof ERROR_CODES)[number];
