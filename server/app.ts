@@ -8,6 +8,7 @@ import { createLucia } from "./auth/lucia";
 import { sessionMiddleware } from "./auth/session";
 import { originCheck } from "./http/origin-check";
 import { errorHandler, notFoundHandler } from "./http/error-handler";
+import { listRoutes } from "./http/route-list";
 import type { Mailer } from "./mail/mailer";
 import { authRouter } from "./modules/auth/auth.router";
 import { healthRouter } from "./modules/health/health.router";
@@ -73,13 +74,16 @@ export function createApp(options: CreateAppOptions) {
   api.use(express.json({ limit: "200kb" }));
   api.use(originCheck());
   api.use(sessionMiddleware(deps.lucia));
-  api.use("/health", healthRouter(deps));
-  api.use("/auth", authRouter(deps));
-  api.use("/users", usersRouter(deps));
-  api.use("/painters", paintersRouter(deps));
-  api.use("/customers", customersRouter(deps));
-  api.use("/jobs", jobsRouter(deps));
-  api.use("/outbox", outboxRouter(deps));
+  const mounts: [string, express.Router][] = [
+    ["/health", healthRouter(deps)],
+    ["/auth", authRouter(deps)],
+    ["/users", usersRouter(deps)],
+    ["/painters", paintersRouter(deps)],
+    ["/customers", customersRouter(deps)],
+    ["/jobs", jobsRouter(deps)],
+    ["/outbox", outboxRouter(deps)],
+  ];
+  for (const [prefix, router] of mounts) api.use(prefix, router);
   api.use(notFoundHandler);
   api.use(errorHandler);
   app.use("/api", api);
@@ -92,5 +96,5 @@ export function createApp(options: CreateAppOptions) {
     });
   }
   app.use(errorHandler);
-  return Object.assign(app, { deps });
+  return Object.assign(app, { deps, routes: listRoutes("/api", mounts) });
 }

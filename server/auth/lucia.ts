@@ -17,7 +17,7 @@ export function createLucia(db: Db) {
       email: a.email,
       name: a.name,
       role: a.role,
-      customerId: a.customer_id,
+      customerId: a.customerId,
       active: Boolean(a.active),
     }),
   });
@@ -32,7 +32,7 @@ declare module "lucia" {
       email: string;
       name: string;
       role: Role;
-      customer_id: number | null;
+      customerId: number | null;
       active: number | boolean;
     };
   }

@@ -1,4 +1,5 @@
 import nodemailer from "nodemailer";
+import { HttpError } from "../http/http-error";
 
 export type MailMessage = {
   to: string;
@@ -25,8 +26,13 @@ export function createSmtpMailer(settings: SmtpSettings): Mailer {
   });
   return {
     async send(message) {
-      const info = await transport.sendMail({ from: settings.from, ...message });
-      return { messageId: String(info.messageId) };
+      try {
+        const info = await transport.sendMail({ from: settings.from, ...message });
+        return { messageId: String(info.messageId) };
+      } catch (err) {
+        console.error("[mail] sending failed:", (err as Error).message);
+        throw new HttpError(502, "upstream_failed", "The mail server could not be reached, so nothing was sent. Try again in a moment.");
+      }
     },
   };
 }

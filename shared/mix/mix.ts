@@ -45,8 +45,13 @@ export interface MixLine {
   grams?: number;
 }
 
+/** A key set to undefined (as forms and parsers often leave them) counts as absent. */
+function has(c: object, key: string): boolean {
+  return (c as Record<string, unknown>)[key] !== undefined;
+}
+
 function isPercentComponent(c: MixComponent): c is PercentComponent {
-  return "percent" in c || "percentOf" in c;
+  return has(c, "percent") || has(c, "percentOf");
 }
 
 /** Checks one component's own fields; returns its percentOf names (empty for parts components). */
@@ -61,7 +66,7 @@ function checkComponent(c: MixComponent, index: number): string[] {
   if (c.densityGPerMl !== undefined) requirePositive(c.densityGPerMl, "densityGPerMl", name);
 
   if (!isPercentComponent(c)) {
-    if (!("parts" in c)) {
+    if (!has(c, "parts")) {
       throw new MixError(`Component "${name}": needs either parts or percent with percentOf`, {
         component: name,
         field: "parts",
@@ -70,7 +75,7 @@ function checkComponent(c: MixComponent, index: number): string[] {
     requirePositive(c.parts, "parts", name);
     return [];
   }
-  if ("parts" in c) {
+  if (has(c, "parts")) {
     throw new MixError(`Component "${name}": give either parts or percent, not both`, {
       component: name,
       field: "parts",

@@ -2,8 +2,9 @@ import { requireCount, requireDate, requireNonNegative, requirePositive } from "
 
 const MS_PER_MINUTE = 60_000;
 
+/** `at` plus `minutes`, to the nearest millisecond (a Date holds whole milliseconds). */
 function addMinutes(at: Date, minutes: number): Date {
-  return new Date(at.getTime() + minutes * MS_PER_MINUTE);
+  return new Date(at.getTime() + Math.round(minutes * MS_PER_MINUTE));
 }
 
 /** When a batch mixed at `mixedAt` reaches the end of its pot life. */
@@ -41,8 +42,9 @@ export interface LayerTimeline {
 }
 
 /**
- * Plans one layer: coat i starts at start + (i − 1) × (minutesPerCoat + flashMinutes) and lasts
- * minutesPerCoat; the next layer may go on dryMinutes after the last coat ends.
+ * Plans one layer: each coat lasts minutesPerCoat, the next coat starts when the previous coat's
+ * flash ends (so coat i starts at start + (i − 1) × (minutesPerCoat + flashMinutes)), and the next
+ * layer may go on dryMinutes after the last coat ends.
  */
 export function layerTimeline(plan: LayerPlan, startAt: Date): LayerTimeline {
   requireDate(startAt, "startAt");
@@ -52,10 +54,12 @@ export function layerTimeline(plan: LayerPlan, startAt: Date): LayerTimeline {
   const dry = requireNonNegative(plan.dryMinutes, "dryMinutes");
 
   const slots: CoatSlot[] = [];
+  let startsAt = startAt;
   for (let i = 0; i < coats; i++) {
-    const startsAt = addMinutes(startAt, i * (spray + flash));
     const endsAt = addMinutes(startsAt, spray);
-    slots.push({ coat: i + 1, startsAt, endsAt, flashEndsAt: addMinutes(endsAt, flash) });
+    const flashEndsAt = addMinutes(endsAt, flash);
+    slots.push({ coat: i + 1, startsAt, endsAt, flashEndsAt });
+    startsAt = flashEndsAt;
   }
   const lastCoatEndsAt = slots[slots.length - 1]!.endsAt;
   return { coats: slots, lastCoatEndsAt, nextLayerAt: addMinutes(lastCoatEndsAt, dry) };

@@ -39,7 +39,7 @@ describe("parts ratios (references.md §7, computed from the parts-by-volume con
   });
 
   it("8:1:1 of 10 fl oz is 8 / 1 / 1 fl oz", () => {
-    // Meaning of 8:1:1 (8 paint, 1 hardener, 1 reducer): therangerstation.com "mixing paint, measuring parts".
+    // Meaning of 8:1:1 (8 paint, 1 hardener, 1 reducer): trade how-to on measuring parts, references.md §7 [V].
     const lines = mixForTotal(
       [
         { name: "paint", parts: 8 },

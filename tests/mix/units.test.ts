@@ -38,7 +38,8 @@ describe("US customary volume, exact NIST definitions", () => {
   });
 
   it("is not the imperial gallon nor the nutrition-label cup", () => {
-    // Imperial gallon = 4.54609 L exactly (UK/Canada); US nutrition-label cup = 240 mL (21 CFR 101.9, from memory).
+    // Imperial gallon = 4.54609 L exactly (UK Weights and Measures Act 1985, from memory; references.md §1a);
+    // US nutrition-label cup = 240 mL (21 CFR 101.9(b)(5)(viii), from memory).
     expect(Math.abs(convertVolume(1, "gallon", "L") - 4.54609)).toBeGreaterThan(0.7);
     expect(Math.abs(convertVolume(1, "cup", "mL") - 240)).toBeGreaterThan(3);
   });

@@ -2,7 +2,7 @@ import { aliasedTable, and, asc, count, desc, eq, gte, inArray, like, lt, lte, n
 import type { z } from "zod";
 import type { AppDeps } from "../../deps";
 import type { Actor } from "../../auth/session";
-import { customers, jobItems, jobStageEvents, jobs, users } from "../../db/schema";
+import { customers, jobStageEvents, jobs, users } from "../../db/schema";
 import { badRequest, conflict } from "../../http/http-error";
 import { iso } from "../../http/dates";
 import { parseSort, type Page } from "../../../shared/api/pagination";
@@ -21,7 +21,8 @@ import { findJobFor, jobScope } from "./jobs.access";
 import { listItems } from "./job-items.service";
 
 const painters = aliasedTable(users, "painter");
-const itemCount = sql<number>`(select count(*) from ${jobItems} where ${jobItems.jobId} = ${jobs.id})`.mapWith(Number);
+// Written out in full so the inner query can never bind "id" to the wrong table.
+const itemCount = sql<number>`(select count(*) from "job_items" as ji where ji."job_id" = "jobs"."id")`.mapWith(Number);
 
 const jobColumns = {
   id: jobs.id,

@@ -1,0 +1,66 @@
+import { useState } from "react";
+import { MutationCache, QueryCache, QueryClient, QueryClientProvider } from "@tanstack/react-query";
+import { RouterProvider } from "react-router";
+import { isApiError } from "@/lib/api-client";
+import { toast } from "@/components/ui/toast/toast-store";
+import { Toaster } from "@/components/ui/toast/toaster";
+import { authKeys } from "@/features/auth/api/auth.queries";
+import { createAppRouter } from "./router";
+
+/** Errors the screen cannot work around: server faults, an unreachable server, bugs. They go to an error boundary. */
+function isFatal(error: unknown): boolean {
+  return !isApiError(error) || error.isServerError;
+}
+
+/**
+ * The error policy, in one place:
+ * - 401 anywhere: the session is over; forget the user, and the access gate sends them to sign-in.
+ * - 4xx: handled where it happens (form fields, inline messages, "not found" states).
+ * - 5xx / network on a first load: thrown to the nearest error boundary.
+ * - Any failure of a background refresh while data is on screen: a toast, and the old data stays.
+ * - 5xx on a write: the error boundary (forms show 4xx and network failures themselves).
+ */
+export function createQueryClient() {
+  const queryClient: QueryClient = new QueryClient({
+    queryCache: new QueryCache({
+      onError: (error, query) => {
+        if (isApiError(error) && error.status === 401) return endSession();
+        if (query.state.data !== undefined) toast.error(`Could not refresh: ${error.message}`);
+      },
+    }),
+    mutationCache: new MutationCache({
+      onError: (error) => {
+        if (isApiError(error) && error.status === 401) endSession();
+      },
+    }),
+    defaultOptions: {
+      queries: {
+        staleTime: 30_000,
+        retry: (failureCount, error) => !(isApiError(error) && error.isClientError) && failureCount < 2,
+        throwOnError: (error, query) => isFatal(error) && query.state.data === undefined,
+      },
+      mutations: {
+        throwOnError: (error) => !isApiError(error) || error.status >= 500,
+      },
+    },
+  });
+
+  function endSession() {
+    if (!queryClient.getQueryData(authKeys.me())) return;
+    queryClient.setQueryData(authKeys.me(), null);
+    toast.info("Your session has ended. Sign in again to carry on.");
+  }
+
+  return queryClient;
+}
+
+export function AppProvider() {
+  const [queryClient] = useState(createQueryClient);
+  const [router] = useState(() => createAppRouter(queryClient));
+  return (
+    <QueryClientProvider client={queryClient}>
+      <RouterProvider router={router} />
+      <Toaster />
+    </QueryClientProvider>
+  );
+}

@@ -1,0 +1,122 @@
+import { keepPreviousData, queryOptions, useMutation, useQueryClient, type QueryClient } from "@tanstack/react-query";
+import { api } from "@/lib/api-client";
+import type { Page } from "@shared/api/pagination";
+import type { Stage } from "@shared/domain/stages";
+import type {
+  BoardDto,
+  ChangeStageInput,
+  CreateJobInput,
+  JobDetailDto,
+  JobDto,
+  JobSortField,
+  UpdateJobInput,
+} from "@shared/schemas/job.schema";
+
+export type JobListParams = {
+  page?: number;
+  pageSize?: number;
+  q?: string;
+  sort?: JobSortField | `-${JobSortField}`;
+  stage?: Stage[];
+  customerId?: number;
+  painterId?: string;
+  due?: "overdue" | "week";
+};
+
+export const jobKeys = {
+  all: ["jobs"] as const,
+  lists: () => [...jobKeys.all, "list"] as const,
+  list: (params: JobListParams) => [...jobKeys.lists(), params] as const,
+  board: () => [...jobKeys.all, "board"] as const,
+  details: () => [...jobKeys.all, "detail"] as const,
+  detail: (id: number) => [...jobKeys.details(), id] as const,
+};
+
+export const jobQueries = {
+  list: (params: JobListParams) =>
+    queryOptions({
+      queryKey: jobKeys.list(params),
+      queryFn: ({ signal }) => api.get<Page<JobDto>>("/jobs", { query: params, signal }),
+      placeholderData: keepPreviousData,
+    }),
+  board: () =>
+    queryOptions({
+      queryKey: jobKeys.board(),
+      queryFn: ({ signal }) => api.get<BoardDto>("/jobs/board", { signal }),
+      refetchInterval: 60_000,
+    }),
+  detail: (id: number) =>
+    queryOptions({
+      queryKey: jobKeys.detail(id),
+      queryFn: ({ signal }) => api.get<JobDetailDto>(`/jobs/${id}`, { signal }),
+    }),
+};
+
+/** After any write to a job: its detail is replaced, every list and the board are refetched. */
+function afterJobWrite(queryClient: QueryClient, job?: JobDetailDto) {
+  if (job) queryClient.setQueryData(jobKeys.detail(job.id), job);
+  return Promise.all([
+    queryClient.invalidateQueries({ queryKey: jobKeys.lists() }),
+    queryClient.invalidateQueries({ queryKey: jobKeys.board() }),
+  ]);
+}
+
+export function useCreateJob() {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: (input: CreateJobInput) => api.post<JobDetailDto>("/jobs", input),
+    onSuccess: (job) => afterJobWrite(queryClient, job),
+  });
+}
+
+export function useUpdateJob(id: number) {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: (input: UpdateJobInput) => api.patch<JobDetailDto>(`/jobs/${id}`, input),
+    onSuccess: (job) => afterJobWrite(queryClient, job),
+  });
+}
+
+export function useDeleteJob() {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: (id: number) => api.delete(`/jobs/${id}`),
+    onSuccess: (_data, id) => {
+      queryClient.removeQueries({ queryKey: jobKeys.detail(id) });
+      return afterJobWrite(queryClient);
+    },
+  });
+}
+
+export type StageMove = ChangeStageInput & { jobId: number };
+
+/** Moves a job; the board shows the move at once and rolls back if the server refuses it. */
+export function useChangeStage() {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: ({ jobId, ...input }: StageMove) => api.post<JobDetailDto>(`/jobs/${jobId}/stage`, input),
+    onMutate: async ({ jobId, stage }) => {
+      await queryClient.cancelQueries({ queryKey: jobKeys.board() });
+      const previous = queryClient.getQueryData(jobKeys.board());
+      if (previous) queryClient.setQueryData(jobKeys.board(), moveOnBoard(previous, jobId, stage));
+      return { previous };
+    },
+    onError: (_error, _move, context) => {
+      if (context?.previous) queryClient.setQueryData(jobKeys.board(), context.previous);
+    },
+    onSuccess: (job) => afterJobWrite(queryClient, job),
+  });
+}
+
+function moveOnBoard(board: BoardDto, jobId: number, to: Stage): BoardDto {
+  const job = board.columns.flatMap((c) => c.jobs).find((j) => j.id === jobId);
+  if (!job) return board;
+  return {
+    columns: board.columns.map((column) => {
+      if (column.stage === job.stage)
+        return { ...column, total: column.total - 1, jobs: column.jobs.filter((j) => j.id !== jobId) };
+      if (column.stage === to) return { ...column, total: column.total + 1, jobs: [{ ...job, stage: to }, ...column.jobs] };
+      return column;
+    }),
+  };
+}

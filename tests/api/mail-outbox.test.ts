@@ -1,0 +1,60 @@
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { mkdtempSync } from "node:fs";
+import { tmpdir } from "node:os";
+import path from "node:path";
+import request from "supertest";
+import { createSmtpMailer } from "../../server/mail/mailer";
+import { startSmtpOutbox } from "../../server/stand-ins/smtp-outbox";
+import { addUser, cookieFor, makeApp } from "../support/test-app";
+
+describe("e-mail through the local SMTP stand-in", () => {
+  let outbox: Awaited<ReturnType<typeof startSmtpOutbox>>;
+  beforeAll(async () => {
+    outbox = await startSmtpOutbox(mkdtempSync(path.join(tmpdir(), "cw-outbox-")));
+  });
+  afterAll(() => outbox.close());
+
+  it("a password reset travels over SMTP and the owner reads it in the outbox (demo mode)", async () => {
+    const mailer = createSmtpMailer({ host: "127.0.0.1", port: outbox.port, from: "Coatwright <no-reply@coatwright.test>" });
+    const t = makeApp({ mailer, demoMode: true, outboxDir: outbox.dir });
+    const owner = await addUser(t, "owner", { email: "boss@shop.test" });
+    await addUser(t, "painter", { email: "forgetful@shop.test" });
+    expect((await request(t.app).post("/api/auth/password-reset").send({ email: "forgetful@shop.test" })).status).toBe(202);
+
+    const res = await request(t.app).get("/api/outbox").set("Cookie", await cookieFor(t, owner.id));
+    expect(res.status).toBe(200);
+    const mail = res.body.items.find((m: { to: string[] }) => m.to.includes("forgetful@shop.test"));
+    expect(mail).toMatchObject({ subject: "Reset your Coatwright password", from: "no-reply@coatwright.test" });
+    expect(mail.text).toMatch(/http:\/\/coatwright\.test\/reset-password\?token=[\w-]{40,}/);
+  });
+
+  it("keeps attachments, readable through the outbox", async () => {
+    const mailer = createSmtpMailer({ host: "127.0.0.1", port: outbox.port, from: "shop@coatwright.test" });
+    await mailer.send({ to: "x@example.test", subject: "With file", text: "see file", attachments: [{ filename: "note.txt", content: Buffer.from("hello panel"), contentType: "text/plain" }] });
+    const t = makeApp({ mailer, demoMode: true, outboxDir: outbox.dir });
+    const owner = await addUser(t, "owner");
+    const cookie = await cookieFor(t, owner.id);
+    const list = await request(t.app).get("/api/outbox").set("Cookie", cookie);
+    const mail = list.body.items.find((m: { subject: string }) => m.subject === "With file");
+    expect(mail.attachments).toEqual([{ filename: "note.txt", contentType: "text/plain", size: 11 }]);
+    const file = await request(t.app).get(`/api/outbox/${mail.id}/attachments/0`).set("Cookie", cookie);
+    expect(file.status).toBe(200);
+    expect(file.text).toBe("hello panel");
+  });
+
+  it("hides the outbox outside demo mode", async () => {
+    const t = makeApp({ demoMode: false, outboxDir: outbox.dir });
+    const owner = await addUser(t, "owner");
+    const res = await request(t.app).get("/api/outbox").set("Cookie", await cookieFor(t, owner.id));
+    expect(res.status).toBe(404);
+  });
+
+  it("a dead SMTP server makes the reset request fail cleanly, not hang", async () => {
+    const mailer = createSmtpMailer({ host: "127.0.0.1", port: 1, from: "shop@coatwright.test" });
+    const t = makeApp({ mailer });
+    await addUser(t, "painter", { email: "p@shop.test" });
+    const res = await request(t.app).post("/api/auth/password-reset").send({ email: "p@shop.test" });
+    expect(res.status).toBe(502);
+    expect(res.body.error.code).toBe("upstream_failed");
+  });
+});

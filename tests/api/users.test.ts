@@ -1,0 +1,48 @@
+import { describe, expect, it } from "vitest";
+import request from "supertest";
+import { makeShop } from "../support/test-app";
+
+describe("users (owner)", () => {
+  it("creates a user who can then sign in, with the chosen role", async () => {
+    const s = await makeShop();
+    const res = await s.as("owner").post("/api/users").send({ email: "New.Painter@Shop.test", name: "Nell Painter", role: "painter", password: "a-long-password" });
+    expect(res.status).toBe(201);
+    expect(res.body).toMatchObject({ email: "new.painter@shop.test", role: "painter", active: true });
+    expect(res.body).not.toHaveProperty("passwordHash");
+    const signIn = await request(s.app).post("/api/auth/sign-in").send({ email: "new.painter@shop.test", password: "a-long-password" });
+    expect(signIn.status).toBe(200);
+  });
+
+  it("refuses a duplicate e-mail (409) and a customer account with no customer (400)", async () => {
+    const s = await makeShop();
+    const dup = await s.as("owner").post("/api/users").send({ email: s.painter.email, name: "Again", role: "painter", password: "a-long-password" });
+    expect(dup.status).toBe(409);
+    expect(dup.body.error.fields).toHaveProperty("email");
+    const loose = await s.as("owner").post("/api/users").send({ email: "c@shop.test", name: "Cust", role: "customer", password: "a-long-password" });
+    expect(loose.status).toBe(400);
+    expect(loose.body.error.fields).toHaveProperty("customerId");
+  });
+
+  it("changing a role or switching a user off ends their sessions", async () => {
+    const s = await makeShop();
+    const res = await s.as("owner").patch(`/api/users/${s.estimator.id}`).send({ role: "painter" });
+    expect(res.body.role).toBe("painter");
+    expect((await s.as("estimator").get("/api/auth/me")).status).toBe(401);
+    await s.as("owner").patch(`/api/users/${s.painter.id}`).send({ active: false });
+    expect((await s.as("painter").get("/api/auth/me")).status).toBe(401);
+  });
+
+  it("keeps at least one active owner and stops owners locking themselves out", async () => {
+    const s = await makeShop();
+    const self = await s.as("owner").patch(`/api/users/${s.owner.id}`).send({ active: false });
+    expect(self.status).toBe(409);
+    expect((await s.as("owner").get("/api/auth/me")).status).toBe(200);
+  });
+
+  it("lists painters for the office to assign jobs", async () => {
+    const s = await makeShop();
+    const res = await s.as("estimator").get("/api/painters");
+    expect(res.body.map((p: { id: string }) => p.id).sort()).toEqual([s.painter.id, s.painter2.id].sort());
+    expect(Object.keys(res.body[0]).sort()).toEqual(["id", "name"]);
+  });
+});
