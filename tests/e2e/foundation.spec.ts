@@ -1,0 +1,87 @@
+import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
+import type { Browser } from "playwright-core";
+import path from "node:path";
+import { existsSync, statSync } from "node:fs";
+import { ARTEFACTS, launch, navNames, newPage, signIn } from "./browser";
+
+const baseUrl = inject("baseUrl");
+let browser: Browser;
+beforeAll(async () => {
+  browser = await launch();
+});
+afterAll(async () => {
+  await browser?.close();
+});
+
+describe("each demo role signs in and sees its own navigation", () => {
+  const expected = {
+    owner: { has: ["Board", "Jobs", "Customers", "Users", "Outbox", "Account"], lacks: [] as string[] },
+    estimator: { has: ["Board", "Jobs", "Customers", "Account"], lacks: ["Users", "Outbox"] },
+    painter: { has: ["Board", "Jobs", "Account"], lacks: ["Customers", "Users", "Outbox"] },
+    customer: { has: ["My jobs"], lacks: ["Board", "Jobs", "Customers", "Users", "Outbox"] },
+  };
+  for (const [role, nav] of Object.entries(expected) as [keyof typeof expected, (typeof expected)["owner"]][]) {
+    it(role, async () => {
+      const { page, errors, close } = await newPage(browser);
+      await signIn(page, baseUrl, role);
+      const names = await navNames(page);
+      for (const n of nav.has) expect(names).toContain(n);
+      for (const n of nav.lacks) expect(names).not.toContain(n);
+      await page.getByRole("button", { name: "Sign out" }).click();
+      await page.waitForURL((u) => u.pathname.startsWith("/sign-in"));
+      expect(errors).toEqual([]);
+      await close();
+    });
+  }
+});
+
+describe("jobs", () => {
+  it("an estimator creates a job through the form and finds it in the table", async () => {
+    const { page, errors, close } = await newPage(browser);
+    await signIn(page, baseUrl, "estimator");
+    await page.goto(`${baseUrl}/jobs`);
+    await page.getByRole("link", { name: "New job" }).or(page.getByRole("button", { name: "New job" })).first().click();
+    const title = `Pinstriped tank E2E ${Date.now()}`;
+    // Submitting empty shows the field errors beside the fields.
+    await page.getByRole("button", { name: "Create job" }).click();
+    await expect.poll(() => page.getByText("Title is required").count()).toBeGreaterThan(0);
+    await page.getByLabel("Customer").selectOption({ label: "Imogen Castellan" });
+    await page.getByLabel("Title").fill(title);
+    await page.getByLabel("Due date").fill("2027-03-15");
+    await page.getByLabel("Painter").selectOption({ label: "Marco Vell" });
+    await page.getByRole("button", { name: "Create job" }).click();
+    await page.waitForURL(/\/jobs\/\d+$/);
+    await expect.poll(() => page.getByRole("heading", { level: 1 }).innerText()).toContain(title);
+
+    await page.goto(`${baseUrl}/jobs`);
+    await page.getByLabel("Search jobs").fill("Pinstriped tank E2E");
+    await expect.poll(() => page.getByRole("table").innerText(), { timeout: 10_000 }).toContain(title);
+    expect(new URL(page.url()).searchParams.get("q")).toBe("Pinstriped tank E2E");
+    expect(errors).toEqual([]);
+    await close();
+  });
+
+  it("the owner's board shows every stage; a screenshot is saved as an artefact", async () => {
+    const { page, errors, close } = await newPage(browser, { width: 1280, height: 900 });
+    await signIn(page, baseUrl, "owner");
+    await page.goto(`${baseUrl}/board`);
+    for (const stage of ["Inquiry", "Quoted", "Booked", "In prep", "In booth", "Curing", "Finishing", "Ready"]) {
+      await expect.poll(() => page.getByRole("heading", { name: new RegExp(`^${stage}`) }).count()).toBeGreaterThan(0);
+    }
+    const file = path.join(ARTEFACTS, "board.png");
+    await page.screenshot({ path: file, fullPage: false });
+    expect(existsSync(file) && statSync(file).size > 10_000).toBe(true);
+    expect(errors).toEqual([]);
+    await close();
+  });
+
+  it("a customer sees only their own jobs in the portal", async () => {
+    const { page, errors, close } = await newPage(browser, { width: 390, height: 844 });
+    await signIn(page, baseUrl, "customer");
+    const text = await page.getByRole("main").innerText();
+    expect(text).toContain("Tobias Wren".split(" ")[0]);
+    expect(text).not.toContain("Imogen Castellan");
+    expect(errors).toEqual([]);
+    await close();
+  });
+});

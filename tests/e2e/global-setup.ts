@@ -1,0 +1,56 @@
+import { spawn, spawnSync, type ChildProcess } from "node:child_process";
+import { existsSync, mkdtempSync, mkdirSync } from "node:fs";
+import { tmpdir } from "node:os";
+import path from "node:path";
+import type { TestProject } from "vitest/node";
+
+/**
+ * Starts the real product (built SPA + API + SMTP stand-in, demo data) on a free port with a throwaway
+ * DATA_DIR, the way `npm start` does, and hands its URL to the specs.
+ */
+const root = path.resolve(import.meta.dirname, "../..");
+let server: ChildProcess | undefined;
+
+declare module "vitest" {
+  export interface ProvidedContext {
+    baseUrl: string;
+    dataDir: string;
+  }
+}
+
+async function waitFor(url: string, ms: number) {
+  const until = Date.now() + ms;
+  while (Date.now() < until) {
+    try {
+      const res = await fetch(url);
+      if (res.ok) return;
+    } catch {
+      /* not up yet */
+    }
+    await new Promise((r) => setTimeout(r, 250));
+  }
+  throw new Error(`Server did not answer at ${url} within ${ms} ms`);
+}
+
+export default async function setup(project: TestProject) {
+  if (!existsSync(path.join(root, "dist", "index.html"))) {
+    const build = spawnSync(path.join(root, "node_modules/.bin/vite"), ["build", "--logLevel", "warn"], { cwd: root, stdio: "inherit" });
+    if (build.status !== 0) throw new Error("vite build failed");
+  }
+  mkdirSync(path.join(root, "test-results"), { recursive: true });
+  const dataDir = mkdtempSync(path.join(tmpdir(), "cw-e2e-"));
+  const port = 4300 + Math.floor(Math.random() * 500);
+  server = spawn(path.join(root, "node_modules/.bin/tsx"), ["server/index.ts"], {
+    cwd: root,
+    env: { ...process.env, PORT: String(port), DATA_DIR: dataDir, DEMO_MODE: "1" },
+    stdio: ["ignore", "inherit", "inherit"],
+    detached: true,
+  });
+  const baseUrl = `http://localhost:${port}`;
+  await waitFor(`${baseUrl}/api/health`, 60_000);
+  project.provide("baseUrl", baseUrl);
+  project.provide("dataDir", dataDir);
+  return () => {
+    if (server?.pid) process.kill(-server.pid, "SIGTERM");
+  };
+}
