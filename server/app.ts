@@ -16,6 +16,7 @@ import { paintersRouter, usersRouter } from "./modules/users/users.router";
 import { customersRouter } from "./modules/customers/customers.router";
 import { jobsRouter } from "./modules/jobs/jobs.router";
 import { outboxRouter } from "./modules/outbox/outbox.router";
+import { mixRouter } from "./modules/mix/mix.router";
 
 export type CreateAppOptions = {
   db: Db;
@@ -82,6 +83,7 @@ export function createApp(options: CreateAppOptions) {
     ["/customers", customersRouter(deps)],
     ["/jobs", jobsRouter(deps)],
     ["/outbox", outboxRouter(deps)],
+    ["/mix", mixRouter(deps)],
   ];
   for (const [prefix, router] of mounts) api.use(prefix, router);
   api.use(notFoundHandler);

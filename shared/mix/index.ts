@@ -49,3 +49,5 @@ export { deltaE2000, deltaE76 } from "./color-difference";
 export type { Lab, DeltaE2000Weights } from "./color-difference";
 export { potLifeEnds, layerTimeline } from "./timeline";
 export type { LayerPlan, CoatSlot, LayerTimeline } from "./timeline";
+export { computeMix } from "./compute";
+export type { MixRequest, MixResult } from "./compute";

@@ -72,6 +72,11 @@ export const MATRIX: Record<string, Case> = {
     expect: office(200),
   },
   "DELETE /api/jobs/:id/items/:itemId": { path: (s) => `/api/jobs/${s.jobA.id}/items/${s.itemA.id}`, expect: office(204) },
+  "POST /api/mix/compute": {
+    path: () => "/api/mix/compute",
+    body: () => ({ components: [{ name: "clear", parts: 4 }, { name: "hardener", parts: 1 }], mode: "total", amount: 500, unit: "mL" }),
+    expect: staff(200),
+  },
   "GET /api/outbox": { path: () => "/api/outbox", expect: ownerOnly(200) },
   "GET /api/outbox/:id/attachments/:index": { path: () => "/api/outbox/none-here/attachments/0", expect: ownerOnly(404) },
 };

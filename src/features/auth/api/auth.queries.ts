@@ -47,14 +47,10 @@ export function useSignIn() {
   });
 }
 
+/** Ends the session on the server. The caller then reloads into the sign-in page, which drops every cached record. */
 export function useSignOut() {
-  const queryClient = useQueryClient();
   return useMutation({
     mutationFn: () => api.post<void>("/auth/sign-out"),
-    onSettled: () => {
-      queryClient.removeQueries({ predicate: (q) => q.queryKey[0] !== authKeys.all[0] });
-      queryClient.setQueryData(authKeys.me(), null);
-    },
   });
 }
 

@@ -1,0 +1,36 @@
+import type { LucideIcon } from "lucide-react";
+import { CircleUserRound, Columns3, FlaskConical, Inbox, Layers, ListChecks, Package, ReceiptText, Users, Contact } from "lucide-react";
+import type { Access } from "@shared/domain/roles";
+import { paths } from "./paths";
+
+export type NavItem = {
+  /** The link's accessible name; end-to-end tests rely on these. */
+  label: string;
+  to: string;
+  icon: LucideIcon;
+  access: Access;
+  /** Only where the server runs the demo stand-ins. */
+  demoOnly?: boolean;
+  /** Planned: listed here so the slot is obvious, hidden until its screen exists. */
+  planned?: boolean;
+};
+
+/** The staff navigation, in order. A role sees the items its access group allows. */
+export const STAFF_NAV: NavItem[] = [
+  { label: "Board", to: paths.board, icon: Columns3, access: "staff" },
+  { label: "Jobs", to: paths.jobs, icon: ListChecks, access: "staff" },
+  { label: "Customers", to: paths.customers, icon: Contact, access: "office" },
+  { label: "Quotes", to: "/quotes", icon: ReceiptText, access: "office", planned: true },
+  { label: "Plans", to: "/plans", icon: Layers, access: "staff", planned: true },
+  { label: "Mix calculator", to: "/mix", icon: FlaskConical, access: "staff", planned: true },
+  { label: "Materials", to: "/materials", icon: Package, access: "staff", planned: true },
+  { label: "Users", to: paths.users, icon: Users, access: "owner" },
+  { label: "Outbox", to: paths.outbox, icon: Inbox, access: "owner", demoOnly: true },
+  { label: "Account", to: paths.account, icon: CircleUserRound, access: "staff" },
+];
+
+/** The customer portal's navigation. */
+export const PORTAL_NAV: NavItem[] = [
+  { label: "My jobs", to: paths.portal, icon: ListChecks, access: "customer" },
+  { label: "Account", to: paths.portalAccount, icon: CircleUserRound, access: "customer" },
+];

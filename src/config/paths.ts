@@ -1,0 +1,33 @@
+import type { Role } from "@shared/domain/roles";
+
+/** Every address in the app, in one place. */
+export const paths = {
+  home: "/",
+  signIn: "/sign-in",
+  forgotPassword: "/forgot-password",
+  resetPassword: "/reset-password",
+  board: "/board",
+  jobs: "/jobs",
+  newJob: "/jobs/new",
+  job: (id: number) => `/jobs/${id}`,
+  customers: "/customers",
+  newCustomer: "/customers/new",
+  customer: (id: number) => `/customers/${id}`,
+  users: "/users",
+  outbox: "/outbox",
+  account: "/account",
+  portal: "/portal",
+  portalAccount: "/portal/account",
+} as const;
+
+/** Where each role lands after signing in. */
+export function homePathFor(role: Role): string {
+  return role === "customer" ? paths.portal : paths.board;
+}
+
+/** A `next` address from the query string, if it is a path inside this app. */
+export function safeNextPath(next: string | null): string | null {
+  if (!next || !next.startsWith("/") || next.startsWith("//") || next.startsWith("/\\")) return null;
+  if (next.startsWith(paths.signIn)) return null;
+  return next;
+}
