@@ -17,6 +17,7 @@ import { customersRouter } from "./modules/customers/customers.router";
 import { jobsRouter } from "./modules/jobs/jobs.router";
 import { outboxRouter } from "./modules/outbox/outbox.router";
 import { mixRouter } from "./modules/mix/mix.router";
+import { settingsRouter } from "./modules/settings/settings.router";
 
 export type CreateAppOptions = {
   db: Db;
@@ -84,6 +85,7 @@ export function createApp(options: CreateAppOptions) {
     ["/jobs", jobsRouter(deps)],
     ["/outbox", outboxRouter(deps)],
     ["/mix", mixRouter(deps)],
+    ["/settings", settingsRouter(deps)],
   ];
   for (const [prefix, router] of mounts) api.use(prefix, router);
   api.use(notFoundHandler);

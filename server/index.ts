@@ -3,7 +3,7 @@ import type { AddressInfo } from "node:net";
 import { fileURLToPath } from "node:url";
 import { readEnv } from "./config";
 import { migrateDb, openDb } from "./db/client";
-import { isEmpty, seedDemo } from "./db/seed";
+import { isEmpty, seedDemo } from "./db/seed/index";
 import { createApp } from "./app";
 import { createSmtpMailer } from "./mail/mailer";
 import { startSmtpOutbox } from "./stand-ins/smtp-outbox";

@@ -1,7 +1,7 @@
 import { mkdirSync } from "node:fs";
 import { readEnv } from "../config";
 import { migrateDb, openDb } from "./client";
-import { isEmpty, seedDemo } from "./seed";
+import { isEmpty, seedDemo } from "./seed/index";
 
 const env = readEnv();
 mkdirSync(env.dataDir, { recursive: true });

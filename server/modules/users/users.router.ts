@@ -1,7 +1,8 @@
 import { Router } from "express";
 import { z } from "zod";
 import type { AppDeps } from "../../deps";
-import { actorOf, allow } from "../../http/guard";
+import { allow } from "../../http/guard";
+import { ctxOf } from "../../http/context";
 import { body, params, query } from "../../http/validate";
 import { createUserInputSchema, listUsersQuerySchema, updateUserInputSchema } from "../../../shared/schemas/user.schema";
 import { createUser, getUser, listPainters, listUsers, updateUser } from "./users.service";
@@ -14,13 +15,13 @@ export function usersRouter(deps: AppDeps) {
     res.json(listUsers(deps, query(req, listUsersQuerySchema)));
   });
   r.post("/", allow("owner"), async (req, res) => {
-    res.status(201).json(await createUser(deps, body(req, createUserInputSchema)));
+    res.status(201).json(await createUser(deps, ctxOf(req, res), body(req, createUserInputSchema)));
   });
   r.get("/:id", allow("owner"), (req, res) => {
     res.json(getUser(deps, params(req, userParams).id));
   });
   r.patch("/:id", allow("owner"), async (req, res) => {
-    res.json(await updateUser(deps, actorOf(res), params(req, userParams).id, body(req, updateUserInputSchema)));
+    res.json(await updateUser(deps, ctxOf(req, res), params(req, userParams).id, body(req, updateUserInputSchema)));
   });
   return r;
 }

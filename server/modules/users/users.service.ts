@@ -7,7 +7,8 @@ import { badRequest, conflict, notFound } from "../../http/http-error";
 import { iso } from "../../http/dates";
 import { parseSort, type Page } from "../../../shared/api/pagination";
 import type { CreateUserInput, ListUsersQuery, PainterDto, UpdateUserInput, UserDto } from "../../../shared/schemas/user.schema";
-import type { Actor } from "../../auth/session";
+import type { RequestContext } from "../../http/context";
+import { recordAudit } from "../audit/audit.service";
 
 const userColumns = {
   id: users.id,
@@ -65,19 +66,21 @@ function checkCustomerLink(deps: AppDeps, role: string, customerId: number | nul
   return customerId;
 }
 
-export async function createUser(deps: AppDeps, input: CreateUserInput): Promise<UserDto> {
+export async function createUser(deps: AppDeps, ctx: RequestContext, input: CreateUserInput): Promise<UserDto> {
   const taken = deps.db.select({ id: users.id }).from(users).where(eq(users.email, input.email)).get();
   if (taken) throw conflict("That e-mail already has an account", { email: "Already in use" });
   const customerId = checkCustomerLink(deps, input.role, input.customerId);
   const id = randomUUID();
-  deps.db
-    .insert(users)
-    .values({ id, email: input.email, name: input.name, role: input.role, customerId, passwordHash: await hashPassword(input.password) })
-    .run();
+  const passwordHash = await hashPassword(input.password);
+  deps.db.transaction((tx) => {
+    tx.insert(users).values({ id, email: input.email, name: input.name, role: input.role, customerId, passwordHash }).run();
+    recordAudit(tx, ctx, { kind: "user", entity: "user", entityId: id, action: "created", after: { email: input.email, name: input.name, role: input.role, customerId } }, deps.now());
+  });
   return getUser(deps, id);
 }
 
-export async function updateUser(deps: AppDeps, actor: Actor, id: string, input: UpdateUserInput): Promise<UserDto> {
+export async function updateUser(deps: AppDeps, ctx: RequestContext, id: string, input: UpdateUserInput): Promise<UserDto> {
+  const actor = ctx.actor;
   const user = deps.db.select().from(users).where(eq(users.id, id)).get();
   if (!user) throw notFound("User");
   const role = input.role ?? user.role;
@@ -93,11 +96,17 @@ export async function updateUser(deps: AppDeps, actor: Actor, id: string, input:
     if (!otherOwners) throw conflict("The shop needs at least one active owner", { role: "Last active owner" });
   }
   const customerId = checkCustomerLink(deps, role, input.customerId !== undefined ? input.customerId : user.customerId);
-  deps.db
-    .update(users)
-    .set({ name: input.name ?? user.name, role, active, customerId, updatedAt: deps.now() })
-    .where(eq(users.id, id))
-    .run();
+  const name = input.name ?? user.name;
+  deps.db.transaction((tx) => {
+    tx.update(users).set({ name, role, active, customerId, updatedAt: deps.now() }).where(eq(users.id, id)).run();
+    const action = role !== user.role ? "role_changed" : active !== user.active ? (active ? "reactivated" : "deactivated") : "updated";
+    recordAudit(
+      tx,
+      ctx,
+      { kind: "user", entity: "user", entityId: id, action, before: { name: user.name, role: user.role, active: user.active, customerId: user.customerId }, after: { name, role, active, customerId } },
+      deps.now(),
+    );
+  });
   if (!active || role !== user.role) await deps.lucia.invalidateUserSessions(id);
   return getUser(deps, id);
 }

@@ -1,10 +1,10 @@
 import { count } from "drizzle-orm";
 import { randomUUID } from "node:crypto";
-import type { Db } from "./client";
-import { customers, jobItems, jobStageEvents, jobs, users } from "./schema";
-import { hashPassword } from "../auth/password";
-import { STAGES, type Stage } from "../../shared/domain/stages";
-import type { Substrate } from "../../shared/domain/substrates";
+import type { Db } from "../client";
+import { customers, jobItems, jobStageEvents, jobs, users } from "../schema";
+import { hashPassword } from "../../auth/password";
+import { STAGES, type Stage } from "../../../shared/domain/stages";
+import type { Substrate } from "../../../shared/domain/substrates";
 
 /**
  * The demo shop: Harrow Creek Custom Finishes, an invented shop in an invented town.
@@ -121,12 +121,23 @@ export function isEmpty(db: Db): boolean {
   return (db.select({ n: count() }).from(users).get()?.n ?? 0) === 0;
 }
 
-export async function seedDemo(db: Db, now = Date.now()) {
+/** What later seed steps build on: the ids of the demo people, customers and jobs. */
+export type SeedContext = {
+  db: Db;
+  now: number;
+  rand: () => number;
+  userIds: Record<(typeof DEMO_USERS)[number]["key"], string>;
+  customerIds: number[];
+  jobs: { id: number; stage: Stage; customerId: number; painterId: string | null; title: string; createdAt: number }[];
+};
+
+export async function seedCore(db: Db, now = Date.now()): Promise<SeedContext> {
   const passwordHash = await hashPassword(DEMO_PASSWORD);
   const rand = prng(20261202);
   const pick = <T>(xs: readonly T[]) => xs[Math.floor(rand() * xs.length)]!;
 
-  db.transaction((tx) => {
+  const seededJobs: SeedContext["jobs"] = [];
+  const ctx = db.transaction((tx) => {
     const customerIds = CUSTOMERS.map(
       (c, i) =>
         tx
@@ -171,6 +182,7 @@ export async function seedDemo(db: Db, now = Date.now()) {
         })
         .returning({ id: jobs.id })
         .get().id;
+      seededJobs.push({ id: jobId, stage, customerId, painterId: painter, title: `${kit.title}, ${finish}`, createdAt });
       for (const item of kit.items) {
         tx.insert(jobItems)
           .values({ jobId, name: item.name, substrate: item.substrate, surfaceArea: item.area, areaUnit: item.unit, notes: item.notes ?? null, createdAt, updatedAt: createdAt })
@@ -186,5 +198,7 @@ export async function seedDemo(db: Db, now = Date.now()) {
           .run();
       });
     });
+    return { customerIds, userIds: userIds as SeedContext["userIds"] };
   });
+  return { db, now, rand, ...ctx, jobs: seededJobs };
 }

@@ -1,0 +1,55 @@
+import { eq } from "drizzle-orm";
+import type { AppDeps } from "../../deps";
+import { shopSettings } from "../../db/schema";
+import type { RequestContext } from "../../http/context";
+import { recordAudit } from "../audit/audit.service";
+import {
+  DEFAULT_SETTINGS,
+  shopSettingsSchema,
+  type PublicShopSettings,
+  type ShopSettings,
+  type UpdateShopSettings,
+} from "../../../shared/schemas/settings.schema";
+
+/** The shop's settings, with defaults for anything never set. */
+export function getSettings(deps: Pick<AppDeps, "db">): ShopSettings {
+  const row = deps.db.select().from(shopSettings).where(eq(shopSettings.id, 1)).get();
+  const parsed = shopSettingsSchema.safeParse({ ...DEFAULT_SETTINGS, ...((row?.data as object) ?? {}) });
+  return parsed.success ? parsed.data : DEFAULT_SETTINGS;
+}
+
+export function getPublicSettings(deps: Pick<AppDeps, "db">): PublicShopSettings {
+  const s = getSettings(deps);
+  return {
+    shopName: s.shopName,
+    shopAddress: s.shopAddress,
+    shopPhone: s.shopPhone,
+    shopEmail: s.shopEmail,
+    defaultVolumeUnit: s.defaultVolumeUnit,
+    defaultAreaUnit: s.defaultAreaUnit,
+    deltaEMatch: s.deltaEMatch,
+    deltaEClose: s.deltaEClose,
+  };
+}
+
+/** Money settings (labour rate, tax, deposit, markup) are audited as money; the rest as settings. */
+const MONEY_KEYS = ["labourRateCents", "taxPercent", "taxAppliesTo", "depositPercent", "materialsMarkupPercent", "shopSuppliesPercent"];
+
+export function updateSettings(deps: AppDeps, ctx: RequestContext, patch: Partial<ShopSettings> & UpdateShopSettings): ShopSettings {
+  const before = getSettings(deps);
+  const after = shopSettingsSchema.parse({ ...before, ...patch });
+  const now = deps.now();
+  deps.db.transaction((tx) => {
+    tx.insert(shopSettings)
+      .values({ id: 1, data: after, updatedAt: now, updatedBy: ctx.actor.id })
+      .onConflictDoUpdate({ target: shopSettings.id, set: { data: after, updatedAt: now, updatedBy: ctx.actor.id } })
+      .run();
+    const changed = Object.keys(after).filter((k) => JSON.stringify(before[k as keyof ShopSettings]) !== JSON.stringify(after[k as keyof ShopSettings]));
+    const pick = (o: ShopSettings, keys: string[]) => Object.fromEntries(keys.map((k) => [k, o[k as keyof ShopSettings]]));
+    const money = changed.filter((k) => MONEY_KEYS.includes(k));
+    const other = changed.filter((k) => !MONEY_KEYS.includes(k));
+    if (money.length) recordAudit(tx, ctx, { kind: "money", entity: "settings", entityId: 1, action: "updated", before: pick(before, money), after: pick(after, money) }, now);
+    if (other.length) recordAudit(tx, ctx, { kind: "settings", entity: "settings", entityId: 1, action: "updated", before: pick(before, other), after: pick(after, other) }, now);
+  });
+  return after;
+}

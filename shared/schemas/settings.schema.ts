@@ -1,0 +1,74 @@
+import { z } from "zod";
+import { VOLUME_UNIT_IDS } from "../mix/index";
+import { AREA_UNITS } from "../domain/substrates";
+
+/** Kinds of quote line a shop may charge sales tax on (which kinds are taxed depends on the state). */
+export const TAXABLE_LINE_KINDS = ["labour", "materials", "supplies", "sublet"] as const;
+
+const pct = (label: string, max = 100) =>
+  z.coerce.number({ error: `${label} must be a number` }).min(0, `${label} cannot be negative`).max(max, `${label} is limited to ${max}%`);
+const cents = (label: string) =>
+  z.coerce.number({ error: `${label} must be a number` }).int(`${label} is in whole cents`).min(0, `${label} cannot be negative`).max(100_000_000, `${label} is too large`);
+
+/** A VOC limit the shop enters for its own air district; nothing is built in. */
+export const vocLimitSchema = z.object({
+  category: z.string().trim().min(1, "Coating category is required").max(60, "Category is limited to 60 characters"),
+  limitGPerL: z.coerce.number({ error: "Limit must be a number" }).positive("Limit must be more than 0").max(2000, "Limit is limited to 2000 g/L"),
+});
+
+export const shopSettingsSchema = z.object({
+  shopName: z.string().trim().min(1, "Shop name is required").max(120),
+  shopAddress: z.string().trim().max(300).default(""),
+  shopPhone: z.string().trim().max(40).default(""),
+  shopEmail: z.string().trim().max(254).default(""),
+  /** Labour rate per hour, integer cents. */
+  labourRateCents: cents("Labour rate"),
+  taxPercent: pct("Tax"),
+  taxAppliesTo: z.array(z.enum(TAXABLE_LINE_KINDS)).default(["materials", "supplies"]),
+  depositPercent: pct("Deposit"),
+  materialsMarkupPercent: pct("Materials markup", 500),
+  shopSuppliesPercent: pct("Shop supplies"),
+  quoteValidDays: z.coerce.number().int().min(1, "At least one day").max(365, "At most a year"),
+  quoteTerms: z.string().trim().max(4000).default(""),
+  defaultVolumeUnit: z.enum(VOLUME_UNIT_IDS),
+  defaultAreaUnit: z.enum(AREA_UNITS),
+  /** Colour-difference verdicts for test panels: ΔE00 below `match` reads "match", below `close` "close". */
+  deltaEMatch: z.coerce.number().positive().max(20),
+  deltaEClose: z.coerce.number().positive().max(50),
+  vocLimits: z.array(vocLimitSchema).max(40).default([]),
+  /** Optional VOC mass caps from the shop's air permit, in kg. */
+  vocMonthlyCapKg: z.coerce.number().positive().max(1e6).nullable().default(null),
+  vocYearlyCapKg: z.coerce.number().positive().max(1e7).nullable().default(null),
+});
+export type ShopSettings = z.infer<typeof shopSettingsSchema>;
+
+export const updateShopSettingsSchema = shopSettingsSchema.partial().refine((s) => s.deltaEMatch === undefined || s.deltaEClose === undefined || s.deltaEMatch <= s.deltaEClose, {
+  path: ["deltaEClose"],
+  message: "The 'close' threshold must be at least the 'match' threshold",
+});
+export type UpdateShopSettings = z.input<typeof updateShopSettingsSchema>;
+
+/** What any signed-in user may read: no money. */
+export type PublicShopSettings = Pick<ShopSettings, "shopName" | "shopAddress" | "shopPhone" | "shopEmail" | "defaultVolumeUnit" | "defaultAreaUnit" | "deltaEMatch" | "deltaEClose">;
+
+export const DEFAULT_SETTINGS: ShopSettings = {
+  shopName: "My custom paint shop",
+  shopAddress: "",
+  shopPhone: "",
+  shopEmail: "",
+  labourRateCents: 8500,
+  taxPercent: 0,
+  taxAppliesTo: ["materials", "supplies"],
+  depositPercent: 50,
+  materialsMarkupPercent: 25,
+  shopSuppliesPercent: 8,
+  quoteValidDays: 30,
+  quoteTerms: "",
+  defaultVolumeUnit: "mL",
+  defaultAreaUnit: "m2",
+  deltaEMatch: 1,
+  deltaEClose: 2,
+  vocLimits: [],
+  vocMonthlyCapKg: null,
+  vocYearlyCapKg: null,
+};

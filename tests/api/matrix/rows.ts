@@ -1,0 +1,20 @@
+import type { Shop } from "../../support/test-app";
+
+/** Who calls a route in the role matrix. */
+export type Who = "anonymous" | "owner" | "estimator" | "painter" | "customer";
+/** One row: how to call the route on a fresh demo-like shop, and the status each caller must get. */
+export type MatrixCase = {
+  path: (s: Shop) => string;
+  body?: (s: Shop) => object;
+  /** Extra setup on the fresh shop before the call (e.g. create the record the route needs). */
+  prepare?: (s: Shop) => unknown | Promise<unknown>;
+  expect: Record<Who, number>;
+};
+export type MatrixRows = Record<string, MatrixCase>;
+
+export const all = (status: number): Record<Who, number> => ({ anonymous: status, owner: status, estimator: status, painter: status, customer: status });
+export const signedIn = (status: number) => ({ anonymous: 401, owner: status, estimator: status, painter: status, customer: status });
+export const staff = (status: number) => ({ anonymous: 401, owner: status, estimator: status, painter: status, customer: 403 });
+export const office = (status: number) => ({ anonymous: 401, owner: status, estimator: status, painter: 403, customer: 403 });
+export const ownerOnly = (status: number) => ({ anonymous: 401, owner: status, estimator: 403, painter: 403, customer: 403 });
+export const customerOnly = (status: number) => ({ anonymous: 401, owner: 403, estimator: 403, painter: 403, customer: status });
