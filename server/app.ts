@@ -41,6 +41,7 @@ export function createApp(options: CreateAppOptions) {
     demoMode: options.demoMode ?? false,
     outboxDir: options.outboxDir ?? null,
     dataDir: options.dataDir ?? "./data",
+    uploadsDir: path.join(options.dataDir ?? "./data", "uploads"),
     now: options.now ?? Date.now,
     rateLimits: {
       signIn: { perAddress: 30, perAccount: 8, windowMs: 15 * 60_000 },

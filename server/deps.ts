@@ -12,6 +12,8 @@ export type AppDeps = {
   demoMode: boolean;
   outboxDir: string | null;
   dataDir: string;
+  /** Where uploaded files are kept (DATA_DIR/uploads). */
+  uploadsDir: string;
   now: () => number;
   rateLimits: { signIn: { perAddress: number; perAccount: number; windowMs: number }; passwordReset: number };
   /** Path of the built SPA (dist/) to serve, or null for API only. */

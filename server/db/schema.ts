@@ -5,3 +5,7 @@
 export * from "./tables/core";
 export * from "./tables/settings";
 export * from "./tables/audit";
+export * from "./tables/materials";
+export * from "./tables/plans";
+export * from "./tables/mix-sheets";
+export * from "./tables/uploads";

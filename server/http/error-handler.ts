@@ -3,6 +3,7 @@ import { ZodError } from "zod";
 import { HttpError } from "./http-error";
 import { zodFields } from "./validate";
 import { MixError } from "../../shared/mix/index";
+import multer from "multer";
 
 export const notFoundHandler: RequestHandler = (req, res) => {
   res.status(404).json({ error: { code: "not_found", message: `No API route for ${req.method} ${req.path}` } });
@@ -23,6 +24,17 @@ export const errorHandler: ErrorRequestHandler = (err: unknown, req, res, _next)
   }
   if (err instanceof MixError) {
     res.status(400).json({ error: { code: "validation_failed", message: err.message, fields: { [err.field ?? "components"]: err.message } } });
+    return;
+  }
+  if (err instanceof multer.MulterError) {
+    const tooBig = err.code === "LIMIT_FILE_SIZE";
+    res.status(tooBig ? 413 : 400).json({
+      error: {
+        code: tooBig ? "payload_too_large" : "bad_request",
+        message: tooBig ? "The file is larger than the upload limit; send a smaller file" : `Upload problem: ${err.message}`,
+        fields: { [err.field ?? "file"]: tooBig ? "File too large" : err.message },
+      },
+    });
     return;
   }
   const e = err as BodyParserError;

@@ -3,10 +3,8 @@ import { index, integer, real, sqliteTable, text, uniqueIndex } from "drizzle-or
 import { ROLES } from "../../../shared/domain/roles";
 import { STAGES } from "../../../shared/domain/stages";
 import { AREA_UNITS, SUBSTRATES } from "../../../shared/domain/substrates";
+import { createdAt, updatedAt } from "./columns";
 
-/** Times are integer epoch milliseconds; the API sends ISO strings. */
-const createdAt = () => integer("created_at", { mode: "number" }).notNull().default(sql`(unixepoch('subsec') * 1000)`);
-const updatedAt = () => integer("updated_at", { mode: "number" }).notNull().default(sql`(unixepoch('subsec') * 1000)`);
 
 export const customers = sqliteTable(
   "customers",
@@ -74,6 +72,8 @@ export const jobs = sqliteTable(
     dueDate: text("due_date"),
     assignedPainterId: text("assigned_painter_id").references(() => users.id, { onDelete: "set null" }),
     notes: text("notes"),
+    /** The finish-plan version this job was (or is being) sprayed with; set when the version is first used. */
+    sprayedPlanVersionId: integer("sprayed_plan_version_id"),
     stageChangedAt: integer("stage_changed_at").notNull().default(sql`(unixepoch('subsec') * 1000)`),
     createdAt: createdAt(),
     updatedAt: updatedAt(),

@@ -96,13 +96,14 @@ export function useChangeStage() {
   return useMutation({
     mutationFn: ({ jobId, ...input }: StageMove) => api.post<JobDetailDto>(`/jobs/${jobId}/stage`, input),
     onMutate: async ({ jobId, stage }) => {
-      await queryClient.cancelQueries({ queryKey: jobKeys.board() });
-      const previous = queryClient.getQueryData(jobKeys.board());
-      if (previous) queryClient.setQueryData(jobKeys.board(), moveOnBoard(previous, jobId, stage));
+      const boardKey = jobQueries.board().queryKey;
+      await queryClient.cancelQueries({ queryKey: boardKey });
+      const previous = queryClient.getQueryData(boardKey);
+      if (previous) queryClient.setQueryData(boardKey, moveOnBoard(previous, jobId, stage));
       return { previous };
     },
     onError: (_error, _move, context) => {
-      if (context?.previous) queryClient.setQueryData(jobKeys.board(), context.previous);
+      if (context?.previous) queryClient.setQueryData(jobQueries.board().queryKey, context.previous);
     },
     onSuccess: (job) => afterJobWrite(queryClient, job),
   });

@@ -1,0 +1,87 @@
+import { mkdirSync, readFileSync, writeFileSync, unlinkSync, existsSync } from "node:fs";
+import path from "node:path";
+import { randomBytes } from "node:crypto";
+import multer from "multer";
+import sharp from "sharp";
+import { fileTypeFromBuffer } from "file-type";
+import { HttpError } from "../../http/http-error";
+
+export const MAX_PHOTO_BYTES = 15 * 1024 * 1024;
+export const MAX_DOCUMENT_BYTES = 20 * 1024 * 1024;
+
+const IMAGE_TYPES = ["image/jpeg", "image/png", "image/webp"] as const;
+const DOCUMENT_TYPES = ["application/pdf", ...IMAGE_TYPES] as const;
+
+/** Multer keeping the file in memory (checked by content before anything touches the disk). */
+export function uploadMiddleware(maxBytes: number, field = "file") {
+  return multer({ storage: multer.memoryStorage(), limits: { fileSize: maxBytes, files: 1, fields: 20 } }).single(field);
+}
+
+export type StoredFile = {
+  mime: string;
+  size: number;
+  originalName: string;
+  storedName: string;
+  thumbName: string | null;
+  width: number | null;
+  height: number | null;
+};
+
+const unsupported = (message: string) => new HttpError(415, "unsupported_media_type", message, { file: message });
+
+/**
+ * Checks a file by its content (never its name), and writes it under `dir` with a random name.
+ * Photos are re-encoded: EXIF (camera, GPS) is dropped, orientation applied, and a 400 px WebP thumbnail made.
+ * `accept` = "photo" (JPEG, PNG, WebP) or "document" (PDF or those images).
+ */
+export async function storeFile(dir: string, file: Express.Multer.File | undefined, accept: "photo" | "document"): Promise<StoredFile> {
+  if (!file) throw new HttpError(400, "validation_failed", "Attach a file in the 'file' field", { file: "No file attached" });
+  const detected = await fileTypeFromBuffer(file.buffer);
+  const allowed: readonly string[] = accept === "photo" ? IMAGE_TYPES : DOCUMENT_TYPES;
+  if (detected?.mime === "image/heic" || detected?.mime === "image/heif") {
+    throw unsupported("HEIC photos cannot be read here; set the camera to save JPEG (\"most compatible\") and upload again");
+  }
+  if (!detected || !allowed.includes(detected.mime)) {
+    const what = accept === "photo" ? "a JPEG, PNG or WebP photo" : "a PDF or a JPEG, PNG or WebP image";
+    throw unsupported(`The file's content is not ${what}${detected ? ` (it looks like ${detected.mime})` : ""}`);
+  }
+  mkdirSync(dir, { recursive: true });
+  const base = randomBytes(16).toString("hex");
+  const storedName = `${base}.${detected.ext}`;
+  if (detected.mime === "application/pdf") {
+    writeFileSync(path.join(dir, storedName), file.buffer);
+    return { mime: detected.mime, size: file.size, originalName: safeName(file.originalname), storedName, thumbName: null, width: null, height: null };
+  }
+  try {
+    const image = sharp(file.buffer, { failOn: "error" }).rotate();
+    const clean = await image.toBuffer({ resolveWithObject: true });
+    writeFileSync(path.join(dir, storedName), clean.data);
+    const thumbName = `${base}.thumb.webp`;
+    await sharp(clean.data).resize(400, 400, { fit: "inside", withoutEnlargement: true }).webp({ quality: 78 }).toFile(path.join(dir, thumbName));
+    return {
+      mime: detected.mime,
+      size: clean.data.length,
+      originalName: safeName(file.originalname),
+      storedName,
+      thumbName,
+      width: clean.info.width,
+      height: clean.info.height,
+    };
+  } catch {
+    throw unsupported("The image could not be read; it may be damaged");
+  }
+}
+
+export function readStored(dir: string, name: string): Buffer | null {
+  if (!/^[a-f0-9]{32}(\.thumb)?\.[a-z0-9]+$/.test(name)) return null;
+  const p = path.join(dir, name);
+  return existsSync(p) ? readFileSync(p) : null;
+}
+
+export function removeStored(dir: string, ...names: (string | null)[]) {
+  for (const n of names) if (n && /^[a-f0-9]{32}/.test(n)) { try { unlinkSync(path.join(dir, n)); } catch { /* already gone */ } }
+}
+
+function safeName(name: string) {
+  return (name || "file").replace(/[^\w.\- ]+/g, "_").slice(0, 120);
+}

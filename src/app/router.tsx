@@ -1,0 +1,63 @@
+import type { ComponentType } from "react";
+import { createBrowserRouter, Outlet } from "react-router";
+import type { QueryClient } from "@tanstack/react-query";
+import { FullPageSpinner } from "@/components/ui/spinner";
+import { authQueries } from "@/features/auth/api/auth.queries";
+import { HomeRedirect } from "./routes/home-redirect";
+import { RouteError } from "./routes/route-error";
+
+/** Loads a route module on first visit: each screen (and the portal apart from the staff app) is its own chunk. */
+const page = (load: () => Promise<{ default: ComponentType }>) => async () => ({ Component: (await load()).default });
+
+export function createAppRouter(queryClient: QueryClient) {
+  return createBrowserRouter([
+    {
+      id: "root",
+      // Who is signed in is known before anything renders; the gates read it from the cache.
+      loader: async () => {
+        await queryClient.ensureQueryData(authQueries.me());
+        return null;
+      },
+      shouldRevalidate: () => false,
+      Component: Outlet,
+      HydrateFallback: FullPageSpinner,
+      ErrorBoundary: RouteError,
+      children: [
+        { index: true, Component: HomeRedirect },
+        {
+          lazy: page(() => import("./routes/auth/auth-pages-layout")),
+          children: [
+            { path: "sign-in", lazy: page(() => import("./routes/auth/sign-in")) },
+            { path: "forgot-password", lazy: page(() => import("./routes/auth/forgot-password")) },
+            { path: "reset-password", lazy: page(() => import("./routes/auth/reset-password")) },
+          ],
+        },
+        {
+          lazy: page(() => import("./routes/staff/staff-layout")),
+          children: [
+            { path: "board", lazy: page(() => import("./routes/staff/board")) },
+            { path: "jobs", lazy: page(() => import("./routes/staff/jobs")) },
+            { path: "jobs/new", lazy: page(() => import("./routes/staff/new-job")) },
+            { path: "jobs/:jobId", lazy: page(() => import("./routes/staff/job")) },
+            { path: "customers", lazy: page(() => import("./routes/staff/customers")) },
+            { path: "customers/new", lazy: page(() => import("./routes/staff/new-customer")) },
+            { path: "customers/:customerId", lazy: page(() => import("./routes/staff/customer")) },
+            { path: "users", lazy: page(() => import("./routes/staff/users")) },
+            { path: "outbox", lazy: page(() => import("./routes/staff/outbox")) },
+            { path: "account", lazy: page(() => import("./routes/account")) },
+            // Later: quotes, plans, mix, materials (their nav slots are in config/nav.ts).
+          ],
+        },
+        {
+          path: "portal",
+          lazy: page(() => import("./routes/portal/portal-layout")),
+          children: [
+            { index: true, lazy: page(() => import("./routes/portal/my-jobs")) },
+            { path: "account", lazy: page(() => import("./routes/account")) },
+          ],
+        },
+        { path: "*", lazy: page(() => import("./routes/not-found")) },
+      ],
+    },
+  ]);
+}

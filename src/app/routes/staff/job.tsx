@@ -1,0 +1,133 @@
+import { useState } from "react";
+import { useNavigate, useParams } from "react-router";
+import { useQuery } from "@tanstack/react-query";
+import { Pencil, Trash2 } from "lucide-react";
+import { roleCan } from "@shared/domain/roles";
+import type { JobDetailDto } from "@shared/schemas/job.schema";
+import { isApiError } from "@/lib/api-client";
+import { Button } from "@/components/ui/button";
+import { Dialog } from "@/components/ui/dialog";
+import { PageHeader } from "@/components/ui/page-header";
+import { Panel } from "@/components/ui/panel";
+import { Spinner } from "@/components/ui/spinner";
+import { toast } from "@/components/ui/toast/toast-store";
+import { paths } from "@/config/paths";
+import { useCurrentUser } from "@/features/auth/hooks/use-current-user";
+import { customerQueries } from "@/features/customers/api/customers.queries";
+import { jobQueries, useUpdateJob } from "@/features/jobs/api/jobs.queries";
+import { DeleteJobDialog } from "@/features/jobs/components/delete-job-dialog";
+import { JobFacts } from "@/features/jobs/components/job-facts";
+import { JobForm } from "@/features/jobs/components/job-form";
+import { JobItemsPanel } from "@/features/jobs/components/job-items-panel";
+import { StageBadge } from "@/features/jobs/components/stage-badge";
+import { StageHistory } from "@/features/jobs/components/stage-history";
+import { StageMoveOptions } from "@/features/jobs/components/stage-move-options";
+import { userQueries } from "@/features/users/api/users.queries";
+import { InPageNotFound } from "../in-page-not-found";
+
+export default function JobRoute() {
+  const { jobId } = useParams();
+  const id = Number(jobId);
+  const valid = Number.isInteger(id) && id > 0;
+  const { data: job, error, isPending } = useQuery({ ...jobQueries.detail(id), enabled: valid });
+
+  if (!valid || (isApiError(error) && (error.status === 404 || error.status === 400)))
+    return <InPageNotFound what="Job" backTo={paths.jobs} backLabel="Back to jobs" />;
+  if (isPending || !job) return <Spinner label="Loading the job…" />;
+  return <JobPage job={job} />;
+}
+
+function JobPage({ job }: { job: JobDetailDto }) {
+  const user = useCurrentUser();
+  const navigate = useNavigate();
+  const office = roleCan(user.role, "office");
+  const [dialog, setDialog] = useState<"edit" | "delete" | null>(null);
+
+  return (
+    <>
+      <PageHeader
+        documentTitle={`#${job.id} ${job.title}`}
+        eyebrow={<span className="tabular-nums">Job #{job.id}</span>}
+        title={job.title}
+        actions={
+          office ? (
+            <>
+              <Button variant="secondary" onClick={() => setDialog("edit")} icon={<Pencil aria-hidden className="size-4" />}>
+                Edit job
+              </Button>
+              {job.stage === "inquiry" ? (
+                <Button variant="danger" onClick={() => setDialog("delete")} icon={<Trash2 aria-hidden className="size-4" />}>
+                  Delete
+                </Button>
+              ) : null}
+            </>
+          ) : null
+        }
+      />
+      <div className="grid gap-6 xl:grid-cols-[minmax(0,1fr)_22rem]">
+        <div className="flex min-w-0 flex-col gap-6">
+          <Panel title="Stage" titleId="stage-heading" actions={<StageBadge stage={job.stage} size="lg" />}>
+            <StageMoveOptions jobId={job.id} current={job.stage} moves={job.nextStages} />
+          </Panel>
+          <Panel>
+            <JobFacts job={job} linkCustomer={office} />
+            {job.notes ? (
+              <div className="mt-5 border-t border-primer-200 pt-4">
+                <h2 className="text-xs font-semibold tracking-wide text-primer-700 uppercase">Shop notes</h2>
+                <p className="mt-1 whitespace-pre-line text-ink-950">{job.notes}</p>
+              </div>
+            ) : null}
+          </Panel>
+          <JobItemsPanel jobId={job.id} items={job.items} canEdit={office} />
+        </div>
+        <StageHistory events={job.events} />
+      </div>
+      {dialog === "edit" ? <EditJobDialog job={job} onClose={() => setDialog(null)} /> : null}
+      {dialog === "delete" ? (
+        <DeleteJobDialog job={job} onClose={() => setDialog(null)} onDeleted={() => navigate(paths.jobs, { replace: true })} />
+      ) : null}
+    </>
+  );
+}
+
+function EditJobDialog({ job, onClose }: { job: JobDetailDto; onClose: () => void }) {
+  const customers = useQuery(customerQueries.options());
+  const painters = useQuery(userQueries.painters());
+  const update = useUpdateJob(job.id);
+  const customerOptions = customers.data?.options ?? [];
+  const withCurrent = customerOptions.some((c) => c.id === job.customerId)
+    ? customerOptions
+    : [{ id: job.customerId, name: job.customerName }, ...customerOptions];
+  const painterOptions = painters.data ?? [];
+  const painterList =
+    job.assignedPainterId && !painterOptions.some((p) => p.id === job.assignedPainterId)
+      ? [{ id: job.assignedPainterId, name: `${job.assignedPainterName ?? "Former painter"} (inactive)` }, ...painterOptions]
+      : painterOptions;
+
+  return (
+    <Dialog title={`Edit job #${job.id}`} onClose={onClose} size="lg">
+      {customers.isPending || painters.isPending ? (
+        <Spinner />
+      ) : (
+        <JobForm
+          customers={withCurrent}
+          painters={painterList}
+          defaultValues={{
+            customerId: String(job.customerId),
+            title: job.title,
+            dueDate: job.dueDate,
+            assignedPainterId: job.assignedPainterId,
+            notes: job.notes ?? "",
+          }}
+          submitLabel="Save job"
+          onCancel={onClose}
+          onSubmit={async (values) => {
+            await update.mutateAsync(values);
+            toast.success("Job saved");
+            onClose();
+          }}
+        />
+      )}
+    </Dialog>
+  );
+}

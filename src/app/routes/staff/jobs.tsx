@@ -1,0 +1,30 @@
+import { useQuery } from "@tanstack/react-query";
+import { Plus } from "lucide-react";
+import { roleCan } from "@shared/domain/roles";
+import { ButtonLink } from "@/components/ui/button";
+import { PageHeader } from "@/components/ui/page-header";
+import { paths } from "@/config/paths";
+import { useCurrentUser } from "@/features/auth/hooks/use-current-user";
+import { JobsTable } from "@/features/jobs/components/jobs-table";
+import { userQueries } from "@/features/users/api/users.queries";
+
+export default function JobsRoute() {
+  const user = useCurrentUser();
+  const office = roleCan(user.role, "office");
+  const painters = useQuery({ ...userQueries.painters(), enabled: office });
+  const newJob = office ? (
+    <ButtonLink to={paths.newJob} icon={<Plus aria-hidden className="size-5" />}>
+      New job
+    </ButtonLink>
+  ) : null;
+  return (
+    <>
+      <PageHeader
+        title="Jobs"
+        description={office ? "Search, filter and sort every job." : "The jobs assigned to you."}
+        actions={newJob}
+      />
+      <JobsTable painters={office ? (painters.data ?? []) : undefined} emptyAction={newJob} />
+    </>
+  );
+}

@@ -1,0 +1,54 @@
+import { useNavigate, useSearchParams } from "react-router";
+import { useQuery } from "@tanstack/react-query";
+import { Panel } from "@/components/ui/panel";
+import { PageHeader } from "@/components/ui/page-header";
+import { Spinner } from "@/components/ui/spinner";
+import { toast } from "@/components/ui/toast/toast-store";
+import { paths } from "@/config/paths";
+import { AccessGate } from "@/features/auth/components/access-gate";
+import { customerQueries } from "@/features/customers/api/customers.queries";
+import { useCreateJob } from "@/features/jobs/api/jobs.queries";
+import { JobForm } from "@/features/jobs/components/job-form";
+import { userQueries } from "@/features/users/api/users.queries";
+
+export default function NewJobRoute() {
+  return (
+    <AccessGate access="office">
+      <NewJobPage />
+    </AccessGate>
+  );
+}
+
+function NewJobPage() {
+  const navigate = useNavigate();
+  const [searchParams] = useSearchParams();
+  const customers = useQuery(customerQueries.options());
+  const painters = useQuery(userQueries.painters());
+  const createJob = useCreateJob();
+  const preselected = searchParams.get("customer") ?? "";
+
+  return (
+    <>
+      <PageHeader title="New job" description="It starts as an inquiry. Add the parts to paint once it is created." />
+      <Panel className="max-w-2xl">
+        {customers.isPending || painters.isPending ? (
+          <Spinner label="Loading customers and painters…" />
+        ) : (
+          <JobForm
+            customers={customers.data?.options ?? []}
+            customersTruncated={(customers.data?.total ?? 0) > (customers.data?.options.length ?? 0)}
+            painters={painters.data ?? []}
+            defaultValues={{ customerId: preselected }}
+            submitLabel="Create job"
+            onCancel={() => navigate(-1)}
+            onSubmit={async (values) => {
+              const job = await createJob.mutateAsync(values);
+              toast.success(`Created job #${job.id}`);
+              navigate(paths.job(job.id));
+            }}
+          />
+        )}
+      </Panel>
+    </>
+  );
+}

@@ -1,0 +1,29 @@
+import { Outlet } from "react-router";
+import { roleCan, ROLE_LABELS } from "@shared/domain/roles";
+import { AppShell } from "@/components/layouts/app-shell";
+import { STAFF_NAV } from "@/config/nav";
+import { SessionGate } from "@/features/auth/components/session-gate";
+import { useCurrentUser } from "@/features/auth/hooks/use-current-user";
+import { ScreenBoundary } from "../screen-boundary";
+import { useSignOutAction } from "../use-sign-out-action";
+
+export default function StaffLayout() {
+  return (
+    <SessionGate access="staff">
+      <StaffFrame />
+    </SessionGate>
+  );
+}
+
+function StaffFrame() {
+  const user = useCurrentUser();
+  const { signOut, signingOut } = useSignOutAction();
+  const nav = STAFF_NAV.filter((item) => !item.planned && roleCan(user.role, item.access));
+  return (
+    <AppShell nav={nav} userName={user.name} roleLabel={ROLE_LABELS[user.role]} onSignOut={signOut} signingOut={signingOut}>
+      <ScreenBoundary>
+        <Outlet />
+      </ScreenBoundary>
+    </AppShell>
+  );
+}
