@@ -4,6 +4,7 @@ import type { QueryClient } from "@tanstack/react-query";
 import { FullPageSpinner } from "@/components/ui/spinner";
 import { authQueries } from "@/features/auth/api/auth.queries";
 import { HomeRedirect } from "./routes/home-redirect";
+import { NotFoundPage } from "./routes/not-found";
 import { RouteError } from "./routes/route-error";
 
 /** Loads a route module on first visit: each screen (and the portal apart from the staff app) is its own chunk. */
@@ -56,7 +57,7 @@ export function createAppRouter(queryClient: QueryClient) {
             { path: "account", lazy: page(() => import("./routes/account")) },
           ],
         },
-        { path: "*", lazy: page(() => import("./routes/not-found")) },
+        { path: "*", Component: NotFoundPage },
       ],
     },
   ]);

@@ -20,4 +20,3 @@ export function NotFoundPage() {
   );
 }
 
-export default NotFoundPage;
