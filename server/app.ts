@@ -18,6 +18,7 @@ import { jobsRouter } from "./modules/jobs/jobs.router";
 import { outboxRouter } from "./modules/outbox/outbox.router";
 import { mixRouter } from "./modules/mix/mix.router";
 import { settingsRouter } from "./modules/settings/settings.router";
+import { auditRouter } from "./modules/audit/audit.router";
 
 export type CreateAppOptions = {
   db: Db;
@@ -87,6 +88,7 @@ export function createApp(options: CreateAppOptions) {
     ["/outbox", outboxRouter(deps)],
     ["/mix", mixRouter(deps)],
     ["/settings", settingsRouter(deps)],
+    ["/audit", auditRouter(deps)],
   ];
   for (const [prefix, router] of mounts) api.use(prefix, router);
   api.use(notFoundHandler);
