@@ -9,7 +9,7 @@ export const pageQuerySchema = z.object({
   q: z.string().trim().max(200, "Search text is too long").optional(),
 });
 
-export function sortSchema<const T extends readonly [string, ...string[]]>(fields: T, fallback: T[number]) {
+export function sortSchema<const T extends readonly [string, ...string[]]>(fields: T, fallback: T[number] | `-${T[number]}`) {
   const allowed = [...fields, ...fields.map((f) => `-${f}`)] as [string, ...string[]];
   return z
     .enum(allowed, { error: `Sort by one of: ${fields.join(", ")} (prefix "-" for descending)` })

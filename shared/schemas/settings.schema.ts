@@ -1,6 +1,7 @@
 import { z } from "zod";
 import { VOLUME_UNIT_IDS } from "../mix/index";
 import { AREA_UNITS } from "../domain/substrates";
+import { LAYER_KINDS } from "../domain/layers";
 
 /** Kinds of quote line a shop may charge sales tax on (which kinds are taxed depends on the state). */
 export const TAXABLE_LINE_KINDS = ["labour", "materials", "supplies", "sublet"] as const;
@@ -10,9 +11,12 @@ const pct = (label: string, max = 100) =>
 const cents = (label: string) =>
   z.coerce.number({ error: `${label} must be a number` }).int(`${label} is in whole cents`).min(0, `${label} cannot be negative`).max(100_000_000, `${label} is too large`);
 
-/** A VOC limit the shop enters for its own air district; nothing is built in. */
+/**
+ * A VOC limit the shop enters for its own air district, per coating category (the layer kind the batch was
+ * mixed for); nothing is built in, because jurisdictions differ.
+ */
 export const vocLimitSchema = z.object({
-  category: z.string().trim().min(1, "Coating category is required").max(60, "Category is limited to 60 characters"),
+  layerKind: z.enum(LAYER_KINDS, { error: `Coating category must be one of: ${LAYER_KINDS.join(", ")}` }),
   limitGPerL: z.coerce.number({ error: "Limit must be a number" }).positive("Limit must be more than 0").max(2000, "Limit is limited to 2000 g/L"),
 });
 
@@ -35,7 +39,11 @@ export const shopSettingsSchema = z.object({
   /** Colour-difference verdicts for test panels: ΔE00 below `match` reads "match", below `close` "close". */
   deltaEMatch: z.coerce.number().positive().max(20),
   deltaEClose: z.coerce.number().positive().max(50),
-  vocLimits: z.array(vocLimitSchema).max(40).default([]),
+  vocLimits: z
+    .array(vocLimitSchema)
+    .max(LAYER_KINDS.length)
+    .refine((ls) => new Set(ls.map((l) => l.layerKind)).size === ls.length, "One limit per coating category")
+    .default([]),
   /** Optional VOC mass caps from the shop's air permit, in kg. */
   vocMonthlyCapKg: z.coerce.number().positive().max(1e6).nullable().default(null),
   vocYearlyCapKg: z.coerce.number().positive().max(1e7).nullable().default(null),

@@ -21,11 +21,13 @@ export function seedSettings(ctx: SeedContext) {
     defaultVolumeUnit: "mL",
     defaultAreaUnit: "m2",
     vocLimits: [
-      { category: "primer", limitGPerL: 250 },
-      { category: "sealer", limitGPerL: 250 },
-      { category: "ground coat", limitGPerL: 420 },
-      { category: "candy", limitGPerL: 420 },
-      { category: "clear", limitGPerL: 250 },
+      { layerKind: "adhesion_promoter", limitGPerL: 540 },
+      { layerKind: "sealer", limitGPerL: 250 },
+      { layerKind: "ground_coat", limitGPerL: 420 },
+      { layerKind: "candy", limitGPerL: 420 },
+      { layerKind: "effect_mid_coat", limitGPerL: 420 },
+      { layerKind: "intercoat_clear", limitGPerL: 420 },
+      { layerKind: "clear", limitGPerL: 250 },
     ],
     vocMonthlyCapKg: 40,
   };

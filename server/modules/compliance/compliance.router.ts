@@ -1,0 +1,56 @@
+import { Router } from "express";
+import { stringify } from "csv-stringify/sync";
+import type { AppDeps } from "../../deps";
+import { allow } from "../../http/guard";
+import { query } from "../../http/validate";
+import { complianceQuerySchema } from "../../../shared/schemas/compliance.schema";
+import { complianceLog } from "./compliance.service";
+
+export const CSV_COLUMNS = [
+  "batch",
+  "mixed_at",
+  "job",
+  "job_title",
+  "layer",
+  "coating_category",
+  "volume_l",
+  "volume_gal",
+  "voc_g_per_l",
+  "voc_lb_per_gal",
+  "voc_kg",
+  "voc_lb",
+  "limit_g_per_l",
+  "over_limit",
+] as const;
+
+export function complianceRouter(deps: AppDeps) {
+  const r = Router();
+  r.get("/", allow("office"), (req, res) => {
+    res.json(complianceLog(deps, query(req, complianceQuerySchema)));
+  });
+  r.get("/export.csv", allow("office"), (req, res) => {
+    const q = query(req, complianceQuerySchema);
+    const log = complianceLog(deps, q);
+    // Full precision in the file; rounding is for the screen.
+    const rows = log.batches.map((b) => [
+      b.id,
+      b.mixedAt,
+      b.jobId,
+      b.jobTitle,
+      b.layerName,
+      b.layerKind,
+      b.volumeL,
+      b.volumeGal,
+      b.voc?.gPerL ?? "",
+      b.voc?.lbPerGal ?? "",
+      b.vocMass.kg,
+      b.vocMass.lb,
+      b.limitGPerL ?? "",
+      b.overLimit ? "yes" : "no",
+    ]);
+    res.type("text/csv; charset=utf-8");
+    res.setHeader("Content-Disposition", `attachment; filename="voc-log-${q.from}-to-${q.to}.csv"`);
+    res.send(stringify([CSV_COLUMNS as unknown as string[], ...rows]));
+  });
+  return r;
+}

@@ -1,0 +1,141 @@
+import { sql } from "drizzle-orm";
+import type { AppDeps } from "../../deps";
+import { getSettings } from "../settings/settings.service";
+import { convertMass, convertVolume, gPerLToLbPerGal } from "../../../shared/mix/index";
+import type { LayerKind } from "../../../shared/domain/layers";
+import type { MaterialCategory } from "../../../shared/domain/materials";
+import type {
+  ComplianceBatchDto,
+  ComplianceCategoryDto,
+  ComplianceDto,
+  ComplianceMonthDto,
+  ComplianceQuery,
+  VocMass,
+} from "../../../shared/schemas/compliance.schema";
+
+/** Local midnight of a YYYY-MM-DD date, epoch ms. */
+function dayStart(date: string) {
+  const [y, m, d] = date.split("-").map(Number) as [number, number, number];
+  return new Date(y, m - 1, d).getTime();
+}
+const monthOf = (ms: number) => {
+  const d = new Date(ms);
+  return `${d.getFullYear()}-${String(d.getMonth() + 1).padStart(2, "0")}`;
+};
+const mass = (grams: number): VocMass => ({ kg: grams / 1000, lb: convertMass(grams, "g", "lb") });
+const gal = (litres: number) => convertVolume(litres, "L", "gallon");
+
+type BatchRow = {
+  id: number;
+  mixedAt: number;
+  jobId: number;
+  jobTitle: string;
+  layerName: string;
+  layerKind: LayerKind;
+  volumeMl: number;
+  lessWaterExemptMl: number;
+  vocGrams: number;
+  hasVoc: number;
+};
+
+/**
+ * Each batch's VOC is recomputed from the figures copied onto its lines when it was mixed:
+ * mass = Σ VOC_i × V_i × (1 − water/exempt_i), and g/L less water and exempt = mass / Σ V_i × (1 − water/exempt_i)
+ * (40 CFR 59.104(a)(1), the same rule as the mix engine's mixVoc). Actual poured amounts are used when recorded.
+ */
+function batches(deps: AppDeps, fromMs: number, toMs: number): BatchRow[] {
+  return deps.db.all<BatchRow>(sql`
+    select ms.id as id, ms.mixed_at as mixedAt, j.id as jobId, j.title as jobTitle, pl.name as layerName, pl.kind as layerKind,
+      sum(coalesce(l.actual_ml, l.planned_ml)) as volumeMl,
+      sum(coalesce(l.actual_ml, l.planned_ml) * (1 - coalesce(l.water_exempt_pct, 0) / 100.0)) as lessWaterExemptMl,
+      sum(coalesce(l.voc_g_per_l, 0) * coalesce(l.actual_ml, l.planned_ml) * (1 - coalesce(l.water_exempt_pct, 0) / 100.0)) / 1000.0 as vocGrams,
+      max(l.voc_g_per_l is not null) as hasVoc
+    from mix_sheets ms
+    join mix_sheet_lines l on l.mix_sheet_id = ms.id
+    join plan_layers pl on pl.id = ms.layer_id
+    join jobs j on j.id = ms.job_id
+    where ms.status = 'mixed' and ms.mixed_at >= ${fromMs} and ms.mixed_at < ${toMs}
+    group by ms.id
+    order by ms.mixed_at, ms.id`);
+}
+
+function categories(deps: AppDeps, fromMs: number, toMs: number): ComplianceCategoryDto[] {
+  const rows = deps.db.all<{ category: MaterialCategory; volumeMl: number; vocGrams: number }>(sql`
+    select m.category as category,
+      sum(coalesce(l.actual_ml, l.planned_ml)) as volumeMl,
+      sum(coalesce(l.voc_g_per_l, 0) * coalesce(l.actual_ml, l.planned_ml) * (1 - coalesce(l.water_exempt_pct, 0) / 100.0)) / 1000.0 as vocGrams
+    from mix_sheets ms
+    join mix_sheet_lines l on l.mix_sheet_id = ms.id
+    join materials m on m.id = l.material_id
+    where ms.status = 'mixed' and ms.mixed_at >= ${fromMs} and ms.mixed_at < ${toMs}
+    group by m.category
+    order by vocGrams desc`);
+  return rows.map((r) => ({ category: r.category, volumeL: r.volumeMl / 1000, volumeGal: gal(r.volumeMl / 1000), vocMass: mass(r.vocGrams) }));
+}
+
+export function complianceLog(deps: AppDeps, q: ComplianceQuery): ComplianceDto {
+  const settings = getSettings(deps);
+  const limits = new Map(settings.vocLimits.map((l) => [l.layerKind, l.limitGPerL]));
+  const fromMs = dayStart(q.from);
+  const toMs = dayStart(q.to) + 86_400_000;
+
+  const batchDtos: ComplianceBatchDto[] = batches(deps, fromMs, toMs).map((b) => {
+    const gPerL = b.hasVoc && b.lessWaterExemptMl > 0 ? b.vocGrams / (b.lessWaterExemptMl / 1000) : null;
+    const limit = limits.get(b.layerKind) ?? null;
+    return {
+      id: b.id,
+      mixedAt: new Date(b.mixedAt).toISOString(),
+      jobId: b.jobId,
+      jobTitle: b.jobTitle,
+      layerName: b.layerName,
+      layerKind: b.layerKind,
+      volumeL: b.volumeMl / 1000,
+      volumeGal: gal(b.volumeMl / 1000),
+      voc: gPerL === null ? null : { gPerL, lbPerGal: gPerLToLbPerGal(gPerL) },
+      vocMass: mass(b.vocGrams),
+      limitGPerL: limit,
+      // Compared unrounded against the shop's own limit; the screen shows both values.
+      overLimit: gPerL !== null && limit !== null && gPerL > limit,
+    };
+  });
+
+  const byMonth = new Map<string, ComplianceMonthDto & { grams: number }>();
+  for (const b of batchDtos) {
+    const key = monthOf(Date.parse(b.mixedAt));
+    const m = byMonth.get(key) ?? { month: key, batches: 0, volumeL: 0, volumeGal: 0, vocMass: mass(0), capKg: settings.vocMonthlyCapKg, overCap: false, batchesOverLimit: 0, grams: 0 };
+    m.batches += 1;
+    m.volumeL += b.volumeL;
+    m.grams += b.vocMass.kg * 1000;
+    if (b.overLimit) m.batchesOverLimit += 1;
+    byMonth.set(key, m);
+  }
+  const months = [...byMonth.values()].map(({ grams, ...m }) => ({
+    ...m,
+    volumeGal: gal(m.volumeL),
+    vocMass: mass(grams),
+    overCap: m.capKg !== null && grams / 1000 > m.capKg,
+  }));
+
+  const totalGrams = batchDtos.reduce((s, b) => s + b.vocMass.kg * 1000, 0);
+  const totalL = batchDtos.reduce((s, b) => s + b.volumeL, 0);
+
+  let yearToDate: ComplianceDto["yearToDate"] = null;
+  if (settings.vocYearlyCapKg !== null) {
+    const year = q.to.slice(0, 4);
+    const ytd = batches(deps, dayStart(`${year}-01-01`), toMs).reduce((s, b) => s + b.vocGrams, 0);
+    yearToDate = { year, vocMass: mass(ytd), overCap: ytd / 1000 > settings.vocYearlyCapKg };
+  }
+
+  return {
+    from: q.from,
+    to: q.to,
+    batches: batchDtos,
+    months,
+    categories: categories(deps, fromMs, toMs),
+    totals: { batches: batchDtos.length, volumeL: totalL, volumeGal: gal(totalL), vocMass: mass(totalGrams), batchesOverLimit: batchDtos.filter((b) => b.overLimit).length },
+    limits: settings.vocLimits.map((l) => ({ layerKind: l.layerKind, limitGPerL: l.limitGPerL, limitLbPerGal: gPerLToLbPerGal(l.limitGPerL) })),
+    monthlyCapKg: settings.vocMonthlyCapKg,
+    yearlyCapKg: settings.vocYearlyCapKg,
+    yearToDate,
+  };
+}
