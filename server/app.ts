@@ -1,6 +1,7 @@
 import express from "express";
 import helmet from "helmet";
 import { existsSync } from "node:fs";
+import { randomBytes } from "node:crypto";
 import path from "node:path";
 import type { Db } from "./db/client";
 import type { AppDeps } from "./deps";
@@ -10,6 +11,8 @@ import { originCheck } from "./http/origin-check";
 import { errorHandler, notFoundHandler } from "./http/error-handler";
 import { listRoutes } from "./http/route-list";
 import type { Mailer } from "./mail/mailer";
+import { createPayments, type PaymentsConfig } from "./payments/provider";
+import { keepRawBody } from "./http/raw-body";
 import { authRouter } from "./modules/auth/auth.router";
 import { healthRouter } from "./modules/health/health.router";
 import { paintersRouter, usersRouter } from "./modules/users/users.router";
@@ -19,6 +22,19 @@ import { outboxRouter } from "./modules/outbox/outbox.router";
 import { mixRouter } from "./modules/mix/mix.router";
 import { settingsRouter } from "./modules/settings/settings.router";
 import { auditRouter } from "./modules/audit/audit.router";
+import { complianceRouter } from "./modules/compliance/compliance.router";
+
+import { materialsRouter } from "./modules/materials/materials.router";
+import { jobPlanRouter, plansRouter } from "./modules/plans/plans.router";
+import { mixSheetsRouter } from "./modules/mix-sheets/mix-sheets.router";
+import { uploadsRouter } from "./modules/uploads/uploads.router";
+import { prepRouter } from "./modules/prep/prep.router";
+import { jobColourRouter, panelsRouter } from "./modules/panels/panels.router";
+import { boothRouter, coatLogsRouter } from "./modules/booth/booth.router";
+import { quotesRouter } from "./modules/quotes/quotes.router";
+import { messagesRouter } from "./modules/messages/messages.router";
+import { portalRouter } from "./modules/portal/portal.router";
+import { paymentsRouter } from "./modules/payments/payments.router";
 
 export type CreateAppOptions = {
   db: Db;
@@ -31,6 +47,10 @@ export type CreateAppOptions = {
   rateLimits?: Partial<AppDeps["rateLimits"]>;
   clientDir?: string | null;
   trustProxy?: boolean;
+  /** Secret for signed links; tests get a random one per app. */
+  appSecret?: string;
+  /** Card payments through the provider's SDK (the real service or the local stand-in); none when omitted. */
+  payments?: PaymentsConfig | null;
 };
 
 export function createApp(options: CreateAppOptions) {
@@ -50,6 +70,8 @@ export function createApp(options: CreateAppOptions) {
       ...options.rateLimits,
     },
     clientDir: options.clientDir ?? null,
+    appSecret: options.appSecret ?? randomBytes(32).toString("hex"),
+    payments: options.payments ? createPayments(options.payments) : null,
   };
 
   const app = express();
@@ -75,7 +97,7 @@ export function createApp(options: CreateAppOptions) {
   );
 
   const api = express.Router();
-  api.use(express.json({ limit: "200kb" }));
+  api.use(express.json({ limit: "200kb", verify: keepRawBody }));
   api.use(originCheck());
   api.use(sessionMiddleware(deps.lucia));
   const mounts: [string, express.Router][] = [
@@ -85,10 +107,25 @@ export function createApp(options: CreateAppOptions) {
     ["/painters", paintersRouter(deps)],
     ["/customers", customersRouter(deps)],
     ["/jobs", jobsRouter(deps)],
+    ["/jobs", jobPlanRouter(deps)],
+    ["/materials", materialsRouter(deps)],
+    ["/plans", plansRouter(deps)],
+    ["/mix-sheets", mixSheetsRouter(deps)],
     ["/outbox", outboxRouter(deps)],
     ["/mix", mixRouter(deps)],
     ["/settings", settingsRouter(deps)],
     ["/audit", auditRouter(deps)],
+    ["/compliance", complianceRouter(deps)],
+    ["/uploads", uploadsRouter(deps)],
+    ["/prep-records", prepRouter(deps)],
+    ["/panels", panelsRouter(deps)],
+    ["/jobs", jobColourRouter(deps)],
+    ["/jobs", boothRouter(deps)],
+    ["/coat-logs", coatLogsRouter(deps)],
+    ["/quotes", quotesRouter(deps)],
+    ["/messages", messagesRouter(deps)],
+    ["/portal", portalRouter(deps)],
+    ["/payments", paymentsRouter(deps)],
   ];
   for (const [prefix, router] of mounts) api.use(prefix, router);
   api.use(notFoundHandler);

@@ -16,6 +16,15 @@ const envSchema = z.object({
   /** Demo mode shows the outbox to the owner. On by default with the local stand-ins. */
   DEMO_MODE: z.enum(["0", "1"]).optional(),
   TRUST_PROXY: z.enum(["0", "1"]).default("0"),
+  /** Secret for signed links (at least 32 characters). When unset, one is generated once and kept in DATA_DIR/secret. */
+  APP_SECRET: z.string().min(32, "APP_SECRET must be at least 32 characters").optional(),
+  /** Card payments. Without STRIPE_SECRET_KEY the local payments stand-in is started and used instead. */
+  STRIPE_SECRET_KEY: z.string().min(1).optional(),
+  STRIPE_WEBHOOK_SECRET: z.string().min(1).optional(),
+  /** Where the payments SDK sends its requests (defaults to the provider's own API). */
+  STRIPE_API_HOST: z.string().min(1).optional(),
+  STRIPE_API_PORT: z.coerce.number().int().positive().max(65535).optional(),
+  STRIPE_API_PROTOCOL: z.enum(["http", "https"]).optional(),
 });
 
 export type Env = z.infer<typeof envSchema>;
@@ -34,6 +43,7 @@ export function readEnv(source: NodeJS.ProcessEnv = process.env) {
     dbFile: path.join(dataDir, "coatwright.db"),
     uploadsDir: path.join(dataDir, "uploads"),
     outboxDir: path.join(dataDir, "outbox"),
+    secretFile: path.join(dataDir, "secret"),
     demoMode: env.DEMO_MODE ? env.DEMO_MODE === "1" : !env.SMTP_HOST,
   };
 }

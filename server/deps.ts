@@ -1,6 +1,7 @@
 import type { Db } from "./db/client";
 import type { AppLucia } from "./auth/lucia";
 import type { Mailer } from "./mail/mailer";
+import type { Payments } from "./payments/provider";
 
 /** Everything a router or service needs from the outside world; tests build their own. */
 export type AppDeps = {
@@ -18,4 +19,8 @@ export type AppDeps = {
   rateLimits: { signIn: { perAddress: number; perAccount: number; windowMs: number }; passwordReset: number };
   /** Path of the built SPA (dist/) to serve, or null for API only. */
   clientDir: string | null;
+  /** Server secret for signing links (customer-portal quote links). */
+  appSecret: string;
+  /** The card-payment provider's SDK (real or the local stand-in); null when online payments are not set up. */
+  payments: Payments | null;
 };

@@ -7,6 +7,9 @@ import { isEmpty, seedDemo } from "./db/seed/index";
 import { createApp } from "./app";
 import { createSmtpMailer } from "./mail/mailer";
 import { startSmtpOutbox } from "./stand-ins/smtp-outbox";
+import { startPaymentsStandIn } from "./stand-ins/payments";
+import { loadAppSecret } from "./app-secret";
+import type { PaymentsConfig } from "./payments/provider";
 
 /**
  * Starts the whole product on one port: migrations, demo seed on an empty database,
@@ -18,7 +21,7 @@ export async function main() {
   const db = openDb(env.dbFile);
   migrateDb(db);
   if (isEmpty(db)) {
-    await seedDemo(db);
+    await seedDemo(db, Date.now(), { uploadsDir: env.uploadsDir });
     console.log("Seeded the demo shop (sign in with the demo accounts in the README).");
   }
 
@@ -29,9 +32,18 @@ export async function main() {
       : { host: "127.0.0.1", port: outbox!.port, from: env.MAIL_FROM },
   );
 
+  // Card payments: the real provider when STRIPE_SECRET_KEY is set, otherwise the local stand-in.
+  if (env.STRIPE_SECRET_KEY && !env.STRIPE_WEBHOOK_SECRET) throw new Error("Set STRIPE_WEBHOOK_SECRET (the webhook signing secret) along with STRIPE_SECRET_KEY");
+  const paymentsStandIn = env.STRIPE_SECRET_KEY ? null : await startPaymentsStandIn({ webhookSecret: env.STRIPE_WEBHOOK_SECRET });
+  const payments: PaymentsConfig = paymentsStandIn
+    ? paymentsStandIn.sdkConfig
+    : { secretKey: env.STRIPE_SECRET_KEY!, webhookSecret: env.STRIPE_WEBHOOK_SECRET!, host: env.STRIPE_API_HOST, port: env.STRIPE_API_PORT, protocol: env.STRIPE_API_PROTOCOL };
+
   const app = createApp({
     db,
     mailer,
+    appSecret: loadAppSecret(env.APP_SECRET, env.secretFile),
+    payments,
     publicUrl: env.PUBLIC_URL ?? `http://localhost:${env.PORT}`,
     demoMode: env.demoMode,
     outboxDir: outbox ? outbox.dir : null,
@@ -44,11 +56,16 @@ export async function main() {
     const port = (server.address() as AddressInfo).port;
     console.log(`Coatwright is running on http://localhost:${port}`);
     if (outbox) console.log(`Local SMTP stand-in on 127.0.0.1:${outbox.port}; messages kept in ${outbox.dir}`);
+    if (paymentsStandIn) {
+      paymentsStandIn.setWebhookUrl(`http://127.0.0.1:${port}/api/payments/webhook`);
+      console.log(`Local payments stand-in on ${paymentsStandIn.url} (test card 4242 4242 4242 4242 pays)`);
+    }
   });
 
   const shutdown = () => {
     server.close();
     void outbox?.close();
+    void paymentsStandIn?.close();
     db.$client.close();
     process.exit(0);
   };

@@ -9,3 +9,6 @@ export * from "./tables/materials";
 export * from "./tables/plans";
 export * from "./tables/mix-sheets";
 export * from "./tables/uploads";
+export * from "./tables/quotes";
+export * from "./tables/payments";
+export * from "./tables/booth";

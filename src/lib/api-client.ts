@@ -70,7 +70,7 @@ async function toApiError(response: Response): Promise<ApiError> {
   const code = FALLBACK_CODES[response.status] ?? (response.status >= 500 ? "internal" : "bad_request");
   const message =
     response.status >= 500
-      ? "The server had a problem. Try again in a moment."
+      ? `The server could not answer (${response.status}). Try again in a moment.`
       : `The request failed (${response.status} ${response.statusText || "error"}).`;
   return new ApiError(response.status, code, message);
 }
@@ -100,6 +100,7 @@ export const api = {
   get: <T>(path: string, options?: Omit<RequestOptions, "body">) => request<T>("GET", path, options),
   post: <T>(path: string, body?: unknown, options?: Omit<RequestOptions, "body">) => request<T>("POST", path, { ...options, body }),
   patch: <T>(path: string, body?: unknown, options?: Omit<RequestOptions, "body">) => request<T>("PATCH", path, { ...options, body }),
+  put: <T>(path: string, body?: unknown, options?: Omit<RequestOptions, "body">) => request<T>("PUT", path, { ...options, body }),
   delete: <T = void>(path: string, options?: Omit<RequestOptions, "body">) => request<T>("DELETE", path, options),
 };
 

@@ -1,10 +1,3 @@
-const pad = (n: number) => String(n).padStart(2, "0");
-
-/** Today's local calendar date as YYYY-MM-DD (the form due dates use). */
-export function todayIso(now = new Date()): string {
-  return `${now.getFullYear()}-${pad(now.getMonth() + 1)}-${pad(now.getDate())}`;
-}
-
 /** Parses YYYY-MM-DD as a local date (no time-zone shift). */
 function parseDateOnly(value: string): Date | null {
   const m = /^(\d{4})-(\d{2})-(\d{2})$/.exec(value);
@@ -42,6 +35,15 @@ export function formatDateTime(value: string | null | undefined): string {
   if (!value) return "";
   const d = new Date(value);
   return Number.isNaN(d.getTime()) ? value : dateTimeFormat.format(d);
+}
+
+const dayOfTimestampFormat = new Intl.DateTimeFormat(undefined, { day: "numeric", month: "short", year: "numeric" });
+
+/** Just the date of an ISO timestamp: "1 Dec 2026". */
+export function formatDay(value: string | null | undefined): string {
+  if (!value) return "";
+  const d = new Date(value);
+  return Number.isNaN(d.getTime()) ? value : dayOfTimestampFormat.format(d);
 }
 
 /** Whole days from today to a YYYY-MM-DD date (negative when past). */

@@ -37,6 +37,11 @@ describe("role matrix", async () => {
       const m = method.toLowerCase() as "get" | "post" | "patch" | "put" | "delete";
       let req = shop.as(who)[m](c.path(shop));
       if (c.body) req = req.send(c.body(shop));
+      if (c.attach) {
+        const file = c.attach(shop);
+        for (const [k, v] of Object.entries(file.fields ?? {})) req = req.field(k, v);
+        req = req.attach("file", file.data, file.filename);
+      }
       const res = await req;
       expect({ route: routePath, who, status: res.status }).toEqual({ route: routePath, who, status: c.expect[who] });
       if (res.status >= 400) expect(res.body.error).toMatchObject({ code: expect.any(String), message: expect.any(String) });

@@ -129,6 +129,8 @@ export type SeedContext = {
   userIds: Record<(typeof DEMO_USERS)[number]["key"], string>;
   customerIds: number[];
   jobs: { id: number; stage: Stage; customerId: number; painterId: string | null; title: string; createdAt: number }[];
+  /** Where demo photos are written (DATA_DIR/uploads); steps skip files when it is not given. */
+  uploadsDir?: string;
 };
 
 export async function seedCore(db: Db, now = Date.now()): Promise<SeedContext> {

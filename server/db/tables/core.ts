@@ -74,6 +74,8 @@ export const jobs = sqliteTable(
     notes: text("notes"),
     /** The finish-plan version this job was (or is being) sprayed with; set when the version is first used. */
     sprayedPlanVersionId: integer("sprayed_plan_version_id"),
+    /** The test panel the customer agreed as the job's colour (test_panels.id; no FK, the panels table comes later). */
+    approvedPanelId: integer("approved_panel_id"),
     stageChangedAt: integer("stage_changed_at").notNull().default(sql`(unixepoch('subsec') * 1000)`),
     createdAt: createdAt(),
     updatedAt: updatedAt(),

@@ -19,6 +19,7 @@ import type {
 } from "../../../shared/schemas/job.schema";
 import { findJobFor, jobScope } from "./jobs.access";
 import { listItems } from "./job-items.service";
+import { afterStageChange } from "../messages/messages.service";
 
 const painters = aliasedTable(users, "painter");
 // Written out in full so the inner query can never bind "id" to the wrong table.
@@ -251,6 +252,7 @@ export function changeStage(deps: AppDeps, actor: Actor, id: number, input: z.ou
       .values({ jobId: id, fromStage: job.stage, toStage: input.stage, note: input.note ?? null, userId: actor.id, at: now })
       .run();
   });
+  afterStageChange(deps, actor, id, input.stage);
   return getJob(deps, actor, id);
 }
 

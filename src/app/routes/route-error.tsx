@@ -13,7 +13,6 @@ export function RouteError() {
   return (
     <main id="main" className="px-4 py-10">
       <title>Problem · Coatwright</title>
-      <h1 className="sr-only">Something went wrong</h1>
       <ErrorFallback
         error={error}
         onRetry={() => {

@@ -13,14 +13,14 @@ function describe(error: unknown): { title: string; detail: string } {
   return { title: "Something went wrong", detail: "This screen hit an unexpected problem. Nothing you saved has been lost." };
 }
 
-/** What the user sees when a screen cannot be shown. */
+/** What the user sees when a screen cannot be shown. It takes the place of the page, so it carries the <h1>. */
 export function ErrorFallback({ error, onRetry }: { error: unknown; onRetry?: () => void }) {
   const { title, detail } = describe(error);
   return (
     <div role="alert" className="mx-auto my-10 flex max-w-lg flex-col items-center gap-4 rounded-2xl border border-primer-200 bg-white p-8 text-center shadow-card">
       <TriangleAlert aria-hidden className="size-10 text-flake-600" />
       <div>
-        <p className="text-xl font-bold text-ink-950">{title}</p>
+        <h1 className="text-xl font-bold text-ink-950">{title}</h1>
         <p className="mt-2 text-primer-700">{detail}</p>
       </div>
       <div className="flex flex-wrap justify-center gap-3">

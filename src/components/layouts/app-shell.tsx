@@ -29,13 +29,13 @@ export function AppShell({
 }) {
   const mainRef = useFocusMainOnNavigate();
   return (
-    <div className="min-h-dvh lg:grid lg:grid-cols-[15rem_minmax(0,1fr)]">
+    <div className="min-h-dvh lg:grid lg:grid-cols-[15rem_minmax(0,1fr)] lg:bg-[linear-gradient(to_right,#0b1020_15rem,transparent_15rem)]">
       <SkipLink />
       <header className="on-dark sticky top-0 z-30 grid grid-cols-[1fr_auto] items-center bg-ink-950 text-white shadow-raised lg:h-dvh lg:grid-cols-1 lg:grid-rows-[auto_1fr_auto] lg:items-stretch lg:shadow-none">
         <div className="flex h-14 items-center px-4 lg:h-16 lg:px-5">
           <Brand />
         </div>
-        <nav aria-label="Main" className="scrollbar-thin col-span-2 row-start-2 overflow-x-auto border-t border-white/10 lg:col-span-1 lg:border-t-0 lg:overflow-visible">
+        <nav aria-label="Main" className="scrollbar-thin relative col-span-2 row-start-2 overflow-x-auto border-t border-white/10 lg:col-span-1 lg:border-t-0 lg:overflow-visible">
           <ul className="flex gap-1 px-2 py-1.5 lg:flex-col lg:px-3 lg:py-2">
             {nav.map(({ label, to, icon: Icon }) => (
               <li key={to} className="shrink-0">
@@ -56,7 +56,7 @@ export function AppShell({
           </ul>
         </nav>
         <div className="col-start-2 row-start-1 flex items-center gap-2 pr-2 lg:col-start-1 lg:row-start-3 lg:flex-col lg:items-stretch lg:gap-3 lg:border-t lg:border-white/10 lg:p-4">
-          <p className="hidden min-w-0 text-right text-sm leading-tight sm:block lg:text-left">
+          <p className="max-w-[7.5rem] min-w-0 text-right text-xs leading-tight sm:max-w-none sm:text-sm lg:text-left">
             <span className="block truncate font-semibold text-white">{userName}</span>
             <span className="block text-ink-200">{roleLabel}</span>
           </p>

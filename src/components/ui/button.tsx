@@ -9,7 +9,7 @@ export type ButtonSize = "sm" | "md" | "lg";
 const VARIANTS: Record<ButtonVariant, string> = {
   primary: "bg-candy-600 text-white shadow-card hover:bg-candy-700 active:bg-candy-800",
   secondary: "border border-primer-300 bg-white text-ink-950 shadow-card hover:bg-primer-100 active:bg-primer-200",
-  ghost: "text-ink-900 hover:bg-primer-200/70 active:bg-primer-200",
+  ghost: "text-ink-900 hover:bg-primer-200/70 active:bg-primer-200 aria-pressed:bg-ink-100 aria-pressed:text-ink-950",
   danger: "border border-red-700 bg-white text-red-800 hover:bg-red-50 active:bg-red-100",
   dark: "bg-ink-900 text-white hover:bg-ink-800 active:bg-ink-700",
 };

@@ -30,7 +30,9 @@ export function Dialog({
     if (!dialog.open) dialog.showModal();
     return () => {
       dialog.close();
-      opener?.focus?.();
+      // Back to the opener; if it is gone (the card moved to another column), to the page content.
+      if (opener?.isConnected) opener.focus();
+      else document.getElementById("main")?.focus({ preventScroll: true });
     };
   }, []);
 

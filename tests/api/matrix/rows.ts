@@ -9,6 +9,8 @@ export type MatrixCase = {
   /** Extra setup on the fresh shop before the call (e.g. create the record the route needs). */
   prepare?: (s: Shop) => unknown | Promise<unknown>;
   expect: Record<Who, number>;
+  /** A file to send as multipart/form-data (field "file"), with text fields beside it (instead of a JSON body). */
+  attach?: (s: Shop) => { data: Buffer; filename: string; fields?: Record<string, string> };
 };
 export type MatrixRows = Record<string, MatrixCase>;
 

@@ -80,7 +80,7 @@ function JobPage({ job }: { job: JobDetailDto }) {
           </Panel>
           <JobItemsPanel jobId={job.id} items={job.items} canEdit={office} />
         </div>
-        <StageHistory events={job.events} />
+        <StageHistory events={job.events} className="self-start" />
       </div>
       {dialog === "edit" ? <EditJobDialog job={job} onClose={() => setDialog(null)} /> : null}
       {dialog === "delete" ? (

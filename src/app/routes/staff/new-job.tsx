@@ -5,6 +5,7 @@ import { PageHeader } from "@/components/ui/page-header";
 import { Spinner } from "@/components/ui/spinner";
 import { toast } from "@/components/ui/toast/toast-store";
 import { paths } from "@/config/paths";
+import { canGoBack } from "@/utils/can-go-back";
 import { AccessGate } from "@/features/auth/components/access-gate";
 import { customerQueries } from "@/features/customers/api/customers.queries";
 import { useCreateJob } from "@/features/jobs/api/jobs.queries";
@@ -40,7 +41,7 @@ function NewJobPage() {
             painters={painters.data ?? []}
             defaultValues={{ customerId: preselected }}
             submitLabel="Create job"
-            onCancel={() => navigate(-1)}
+            onCancel={() => (canGoBack() ? navigate(-1) : navigate(paths.jobs))}
             onSubmit={async (values) => {
               const job = await createJob.mutateAsync(values);
               toast.success(`Created job #${job.id}`);

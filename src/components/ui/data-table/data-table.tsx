@@ -27,6 +27,8 @@ type DataTableProps<TData> = {
   isFetching?: boolean;
   /** Shown instead of rows when there are none. */
   empty?: ReactNode;
+  /** Below this width the table scrolls sideways instead of squeezing (e.g. "min-w-[40rem]"). */
+  minWidthClassName?: string;
 };
 
 const ARIA_SORT = { asc: "ascending", desc: "descending" } as const;
@@ -42,6 +44,7 @@ export function DataTable<TData>({
   pagination,
   isFetching = false,
   empty,
+  minWidthClassName = "min-w-[36rem]",
 }: DataTableProps<TData>) {
   const table = useReactTable({
     data,
@@ -64,8 +67,8 @@ export function DataTable<TData>({
 
   return (
     <div className="overflow-hidden rounded-xl border border-primer-200 bg-white shadow-card">
-      <div className="scrollbar-thin overflow-x-auto">
-        <table aria-label={label} aria-busy={isFetching || undefined} className="w-full min-w-[40rem] border-collapse text-left text-sm">
+      <div className="scrollbar-thin relative overflow-x-auto">
+        <table aria-label={label} aria-busy={isFetching || undefined} className={cn("w-full border-collapse text-left text-sm", minWidthClassName)}>
           <thead className="bg-primer-100 text-ink-900">
             {table.getHeaderGroups().map((group) => (
               <tr key={group.id}>
@@ -78,7 +81,7 @@ export function DataTable<TData>({
                       key={header.id}
                       scope="col"
                       aria-sort={sorted ? ARIA_SORT[sorted] : canSort ? "none" : undefined}
-                      className={cn("border-b border-primer-200 px-3 py-2 font-semibold whitespace-nowrap", header.column.columnDef.meta?.className)}
+                      className={cn("border-b border-primer-200 px-2 py-2 font-semibold whitespace-nowrap sm:px-3", header.column.columnDef.meta?.className)}
                     >
                       {canSort ? (
                         <button
@@ -124,7 +127,7 @@ export function DataTable<TData>({
                       <Cell
                         key={cell.id}
                         {...(meta?.rowHeader ? { scope: "row" } : {})}
-                        className={cn("px-3 py-2.5 align-middle", meta?.rowHeader && "font-normal", meta?.className)}
+                        className={cn("px-2 py-2.5 align-middle sm:px-3", meta?.rowHeader && "font-normal", meta?.className)}
                       >
                         {flexRender(cell.column.columnDef.cell, cell.getContext())}
                       </Cell>

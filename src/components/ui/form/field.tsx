@@ -32,14 +32,16 @@ export function Field({
   const describedBy = [errorId, hintId].filter(Boolean).join(" ") || undefined;
   return (
     <div className={cn("flex flex-col gap-1.5", className)}>
-      <label htmlFor={id} className={cn("text-sm font-semibold text-ink-950", labelClassName)}>
-        {label}
+      <div className="flex items-baseline gap-1">
+        <label htmlFor={id} className={cn("text-sm font-semibold text-ink-950", labelClassName)}>
+          {label}
+        </label>
         {required ? (
-          <span aria-hidden className="ml-0.5 text-candy-700">
+          <span aria-hidden className="text-sm font-semibold text-candy-700" title="Required">
             *
           </span>
         ) : null}
-      </label>
+      </div>
       {children({ id, "aria-invalid": error ? true : undefined, "aria-describedby": describedBy, "aria-required": required || undefined })}
       {hint ? (
         <p id={hintId} className="text-sm text-primer-700">

@@ -5,14 +5,14 @@ import { formatDateTime } from "@/utils/format-date";
 
 function Line({ icon, term, children }: { icon: ReactNode; term: string; children: ReactNode }) {
   return (
-    <div className="flex gap-3">
-      <span aria-hidden className="mt-0.5 text-primer-600 [&_svg]:size-5">
-        {icon}
-      </span>
-      <div>
-        <dt className="text-xs font-semibold tracking-wide text-primer-700 uppercase">{term}</dt>
-        <dd className="text-ink-950">{children}</dd>
-      </div>
+    <div className="flex flex-col gap-0.5">
+      <dt className="flex items-center gap-2 text-xs font-semibold tracking-wide text-primer-700 uppercase">
+        <span aria-hidden className="text-primer-600 [&_svg]:size-4">
+          {icon}
+        </span>
+        {term}
+      </dt>
+      <dd className="pl-6 text-ink-950">{children}</dd>
     </div>
   );
 }

@@ -2,7 +2,7 @@ import { Link } from "react-router";
 import { createColumnHelper } from "@tanstack/react-table";
 import type { CustomerDto } from "@shared/schemas/customer.schema";
 import { paths } from "@/config/paths";
-import { formatDateTime } from "@/utils/format-date";
+import { formatDay } from "@/utils/format-date";
 
 const column = createColumnHelper<CustomerDto>();
 
@@ -22,6 +22,7 @@ export const customersColumns = [
     id: "email",
     header: "Email",
     cell: (info) => info.getValue() ?? <span className="text-primer-600">None</span>,
+    meta: { className: "hidden md:table-cell" },
   }),
   column.accessor("phone", {
     id: "phone",
@@ -40,6 +41,7 @@ export const customersColumns = [
     id: "createdAt",
     header: "Added",
     sortDescFirst: true,
-    cell: (info) => <span className="whitespace-nowrap text-primer-700">{formatDateTime(info.getValue())}</span>,
+    cell: (info) => <span className="whitespace-nowrap text-primer-700">{formatDay(info.getValue())}</span>,
+    meta: { className: "hidden lg:table-cell" },
   }),
 ];

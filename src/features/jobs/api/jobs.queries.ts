@@ -90,22 +90,17 @@ export function useDeleteJob() {
 
 export type StageMove = ChangeStageInput & { jobId: number };
 
-/** Moves a job; the board shows the move at once and rolls back if the server refuses it. */
+/** Moves a job. The board shows the move as soon as the server accepts it, then refetches. */
 export function useChangeStage() {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: ({ jobId, ...input }: StageMove) => api.post<JobDetailDto>(`/jobs/${jobId}/stage`, input),
-    onMutate: async ({ jobId, stage }) => {
+    onSuccess: (job) => {
       const boardKey = jobQueries.board().queryKey;
-      await queryClient.cancelQueries({ queryKey: boardKey });
-      const previous = queryClient.getQueryData(boardKey);
-      if (previous) queryClient.setQueryData(boardKey, moveOnBoard(previous, jobId, stage));
-      return { previous };
+      const board = queryClient.getQueryData(boardKey);
+      if (board) queryClient.setQueryData(boardKey, moveOnBoard(board, job.id, job.stage));
+      return afterJobWrite(queryClient, job);
     },
-    onError: (_error, _move, context) => {
-      if (context?.previous) queryClient.setQueryData(jobQueries.board().queryKey, context.previous);
-    },
-    onSuccess: (job) => afterJobWrite(queryClient, job),
   });
 }
 

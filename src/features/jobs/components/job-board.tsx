@@ -1,6 +1,6 @@
 import { useQuery } from "@tanstack/react-query";
 import { Columns3 } from "lucide-react";
-import { OPEN_STAGES } from "@shared/domain/stages";
+import { OPEN_STAGES, PRODUCTION_STAGES } from "@shared/domain/stages";
 import type { Role } from "@shared/domain/roles";
 import { EmptyState } from "@/components/ui/empty-state";
 import { Spinner } from "@/components/ui/spinner";
@@ -14,7 +14,12 @@ export function JobBoard({ role, showClosed }: { role: Role; showClosed: boolean
   if (isPending) return <Spinner label="Loading the board…" />;
   if (!data) return null;
 
-  const columns = data.columns.filter((c) => showClosed || OPEN_STAGES.includes(c.stage));
+  // Painters work the production stages; other open stages show only when one of their jobs is there.
+  const columns = data.columns.filter((c) => {
+    if (!OPEN_STAGES.includes(c.stage)) return showClosed;
+    if (role === "painter") return PRODUCTION_STAGES.includes(c.stage) || c.total > 0;
+    return true;
+  });
   const open = data.columns.filter((c) => OPEN_STAGES.includes(c.stage));
   const openCount = open.reduce((n, c) => n + c.total, 0);
   const overdue = open.flatMap((c) => c.jobs).filter((j) => dueStatus(j.dueDate, j.stage) === "overdue").length;
@@ -38,7 +43,7 @@ export function JobBoard({ role, showClosed }: { role: Role; showClosed: boolean
         ) : null}
       </p>
       <div
-        className="scrollbar-thin -mx-4 flex snap-x snap-mandatory items-start gap-3 overflow-x-auto px-4 pb-4 sm:-mx-6 sm:px-6 lg:-mx-8 lg:px-8"
+        className="scrollbar-thin relative -mx-4 flex snap-x snap-mandatory scroll-px-4 items-start gap-3 overflow-x-auto px-4 pb-4 sm:-mx-6 sm:scroll-px-6 sm:px-6 lg:-mx-8 lg:scroll-px-8 lg:px-8"
         tabIndex={0}
         aria-label="Board columns (scroll sideways)"
         role="region"

@@ -3,7 +3,7 @@ import { Link } from "react-router";
 import type { JobDetailDto } from "@shared/schemas/job.schema";
 import { paths } from "@/config/paths";
 import { formatDate, formatDateTime } from "@/utils/format-date";
-import { DueDate } from "./due-date";
+import { DueDate, dueStatus } from "./due-date";
 
 function Fact({ term, children }: { term: string; children: ReactNode }) {
   return (
@@ -29,9 +29,9 @@ export function JobFacts({ job, linkCustomer }: { job: JobDetailDto; linkCustome
       </Fact>
       <Fact term="Due">
         {job.dueDate ? (
-          <span className="flex flex-col items-start gap-0.5">
-            <DueDate dueDate={job.dueDate} stage={job.stage} className="text-sm" />
-            <span className="text-sm text-primer-700">{formatDate(job.dueDate)}</span>
+          <span className="flex flex-col items-start gap-1">
+            {formatDate(job.dueDate)}
+            {dueStatus(job.dueDate, job.stage) !== "later" ? <DueDate dueDate={job.dueDate} stage={job.stage} className="text-sm" /> : null}
           </span>
         ) : (
           <span className="text-primer-700">No due date</span>

@@ -34,7 +34,7 @@ export function JobItemsPanel({ jobId, items, canEdit }: { jobId: number; items:
           </Button>
         ) : null
       }
-      bodyClassName="p-0 sm:p-0"
+      flush
     >
       {items.length === 0 ? (
         <div className="p-4">
@@ -43,8 +43,8 @@ export function JobItemsPanel({ jobId, items, canEdit }: { jobId: number; items:
           </EmptyState>
         </div>
       ) : (
-        <div className="scrollbar-thin overflow-x-auto">
-          <table className="w-full min-w-[32rem] text-left text-sm" aria-labelledby="job-items-heading">
+        <div className="scrollbar-thin relative overflow-x-auto">
+          <table className="w-full text-left text-sm" aria-labelledby="job-items-heading">
             <thead className="bg-primer-100">
               <tr>
                 <th scope="col" className="px-4 py-2 font-semibold">Item</th>
@@ -60,7 +60,7 @@ export function JobItemsPanel({ jobId, items, canEdit }: { jobId: number; items:
             <tbody>
               {items.map((item) => (
                 <tr key={item.id} className="border-t border-primer-100 align-top">
-                  <th scope="row" className="px-4 py-3 font-semibold text-ink-950">
+                  <th scope="row" className="px-3 py-3 font-semibold text-ink-950 sm:px-4">
                     {item.name}
                     {item.notes ? <p className="mt-0.5 font-normal text-primer-700">{item.notes}</p> : null}
                   </th>
@@ -74,10 +74,12 @@ export function JobItemsPanel({ jobId, items, canEdit }: { jobId: number; items:
                   {canEdit ? (
                     <td className="px-2 py-1.5 text-right whitespace-nowrap">
                       <Button variant="ghost" size="sm" onClick={() => setEditing({ mode: "edit", item })} icon={<Pencil aria-hidden className="size-4" />}>
-                        Edit<span className="sr-only"> {item.name}</span>
+                        <span className="sr-only sm:not-sr-only">Edit</span>
+                        <span className="sr-only"> {item.name}</span>
                       </Button>
                       <Button variant="ghost" size="sm" onClick={() => setEditing({ mode: "delete", item })} icon={<Trash2 aria-hidden className="size-4" />}>
-                        Delete<span className="sr-only"> {item.name}</span>
+                        <span className="sr-only sm:not-sr-only">Delete</span>
+                        <span className="sr-only"> {item.name}</span>
                       </Button>
                     </td>
                   ) : null}

@@ -34,7 +34,7 @@ export function CustomerJobList({ customerId }: { customerId: number }) {
         ))}
       </ul>
       {data.total > data.items.length ? (
-        <Link to={`${paths.jobs}?customer=${customerId}`} className="text-sm font-semibold text-candy-700 hover:underline">
+        <Link to={`${paths.jobs}?customer=${customerId}&stage=all`} className="text-sm font-semibold text-candy-700 hover:underline">
           All {data.total} jobs in the jobs table
         </Link>
       ) : null}

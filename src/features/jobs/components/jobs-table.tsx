@@ -40,6 +40,7 @@ export function JobsTable({ painters, emptyAction }: { painters?: PainterDto[]; 
       ) : (
         <DataTable
           label="Jobs"
+          minWidthClassName="min-w-0"
           columns={jobsColumns}
           data={data?.items ?? []}
           getRowId={(job) => String(job.id)}

@@ -5,9 +5,9 @@ import { formatDateTime } from "@/utils/format-date";
 import { StageBadge } from "./stage-badge";
 
 /** Every stage change, newest first: from → to, who, when, and the note left with it. */
-export function StageHistory({ events }: { events: StageEventDto[] }) {
+export function StageHistory({ events, className }: { events: StageEventDto[]; className?: string }) {
   return (
-    <Panel title="Stage history" titleId="stage-history-heading">
+    <Panel title="Stage history" titleId="stage-history-heading" className={className}>
       {events.length === 0 ? (
         <p className="text-sm text-primer-700">No stage changes recorded.</p>
       ) : (

@@ -77,11 +77,6 @@ export function StageMoveOptions({
   return (
     <div className="flex flex-col gap-3">
       {problem ? <Alert tone="error">{problem}</Alert> : null}
-      <div className={cn("flex gap-2", layout === "stack" ? "flex-col" : "flex-wrap")}>
-        {forward.map((s, i) => button(s, i === 0 ? "primary" : "secondary", <ArrowRight aria-hidden className="size-5" />))}
-        {back.map((s) => button(s, "secondary", <ArrowLeft aria-hidden className="size-5" />))}
-        {cancel.map((s) => button(s, "danger", <Ban aria-hidden className="size-5" />))}
-      </div>
       <div className="flex flex-col gap-1.5">
         <label htmlFor={noteId} className="text-sm font-semibold text-ink-950">
           Note for the history <span className="font-normal text-primer-700">(optional)</span>
@@ -94,6 +89,11 @@ export function StageMoveOptions({
           placeholder="e.g. Second candy coat down, flash looked even"
           className={controlClasses}
         />
+      </div>
+      <div className={cn("flex gap-2", layout === "stack" ? "flex-col" : "flex-wrap")}>
+        {forward.map((s, i) => button(s, i === 0 ? "primary" : "secondary", <ArrowRight aria-hidden className="size-5" />))}
+        {back.map((s) => button(s, "secondary", <ArrowLeft aria-hidden className="size-5" />))}
+        {cancel.map((s) => button(s, "danger", <Ban aria-hidden className="size-5" />))}
       </div>
     </div>
   );

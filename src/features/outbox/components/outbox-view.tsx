@@ -35,7 +35,7 @@ export function OutboxView() {
 
   return (
     <div className="grid gap-4 lg:grid-cols-[minmax(18rem,24rem)_1fr]">
-      <section aria-labelledby="outbox-list-heading" className={cn("rounded-xl border border-primer-200 bg-white shadow-card", open && "hidden lg:block")}>
+      <section aria-labelledby="outbox-list-heading" className={cn("self-start overflow-hidden rounded-xl border border-primer-200 bg-white shadow-card", open && "hidden lg:block")}>
         <h2 id="outbox-list-heading" className="border-b border-primer-200 px-4 py-3 text-lg font-semibold">
           Messages <span className="text-sm font-medium text-primer-700">({messages.length})</span>
         </h2>
@@ -73,9 +73,23 @@ export function OutboxView() {
   );
 }
 
+/** Plain text with its web addresses made into links (so a demo reset link can be followed). */
+function LinkedText({ text }: { text: string }) {
+  const parts = text.split(/(https?:\/\/[^\s<>"]+)/g);
+  return parts.map((part, i) =>
+    i % 2 === 1 ? (
+      <a key={i} href={part} className="font-medium break-all text-candy-700 underline underline-offset-2">
+        {part}
+      </a>
+    ) : (
+      part
+    ),
+  );
+}
+
 function OutboxMessageView({ message }: { message: OutboxMessage }) {
   return (
-    <article aria-labelledby="outbox-message-heading" className="rounded-xl border border-primer-200 bg-white shadow-card">
+    <article aria-labelledby="outbox-message-heading" className="self-start rounded-xl border border-primer-200 bg-white shadow-card">
       <header className="border-b border-primer-200 px-5 py-4">
         <Link to="?" className="mb-2 inline-flex min-h-11 items-center text-sm font-semibold text-candy-700 hover:underline lg:hidden">
           ← All messages
@@ -93,7 +107,7 @@ function OutboxMessageView({ message }: { message: OutboxMessage }) {
         </dl>
       </header>
       <div className="px-5 py-4">
-        <pre className="font-sans text-sm leading-relaxed break-words whitespace-pre-wrap text-ink-950">{message.text || "(no text part)"}</pre>
+        <pre className="font-sans text-sm leading-relaxed break-words whitespace-pre-wrap text-ink-950">{message.text ? <LinkedText text={message.text} /> : "(no text part)"}</pre>
       </div>
       {message.attachments.length ? (
         <footer className="border-t border-primer-200 px-5 py-4">

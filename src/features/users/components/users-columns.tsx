@@ -2,7 +2,7 @@ import { createColumnHelper } from "@tanstack/react-table";
 import { Pencil, Power, PowerOff } from "lucide-react";
 import type { UserDto } from "@shared/schemas/user.schema";
 import { Button } from "@/components/ui/button";
-import { formatDateTime } from "@/utils/format-date";
+import { formatDay } from "@/utils/format-date";
 import { RoleBadge } from "./role-badge";
 
 const column = createColumnHelper<UserDto>();
@@ -53,7 +53,8 @@ export function usersColumns({ currentUserId, onEdit, onToggleActive }: Actions)
       id: "createdAt",
       header: "Added",
       sortDescFirst: true,
-      cell: (info) => <span className="whitespace-nowrap text-primer-700">{formatDateTime(info.getValue())}</span>,
+      cell: (info) => <span className="whitespace-nowrap text-primer-700">{formatDay(info.getValue())}</span>,
+      meta: { className: "hidden lg:table-cell" },
     }),
     column.display({
       id: "actions",

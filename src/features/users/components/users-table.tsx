@@ -10,7 +10,7 @@ import { Button } from "@/components/ui/button";
 import { DataTable } from "@/components/ui/data-table/data-table";
 import { Dialog } from "@/components/ui/dialog";
 import { EmptyState } from "@/components/ui/empty-state";
-import { controlClasses } from "@/components/ui/form/field";
+import { Select } from "@/components/ui/form/select";
 import { SearchInput } from "@/components/ui/search-input";
 import { Spinner } from "@/components/ui/spinner";
 import { toast } from "@/components/ui/toast/toast-store";
@@ -60,14 +60,14 @@ export function UsersTable({ currentUserId, customers }: { currentUserId: string
           <label htmlFor={roleSelectId} className="text-sm font-semibold text-ink-950">
             Role filter
           </label>
-          <select id={roleSelectId} value={role ?? ""} onChange={(e) => params.update({ role: e.target.value })} className={controlClasses}>
+          <Select id={roleSelectId} value={role ?? ""} onChange={(e) => params.update({ role: e.target.value })}>
             <option value="">All roles</option>
             {ROLES.map((r) => (
               <option key={r} value={r}>
                 {ROLE_LABELS[r]}
               </option>
             ))}
-          </select>
+          </Select>
         </div>
       </div>
       {isPending ? (

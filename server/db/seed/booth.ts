@@ -1,0 +1,342 @@
+import { and, asc, desc, eq } from "drizzle-orm";
+import sharp from "sharp";
+import { converter } from "culori";
+import { coatLogs, jobItems, jobs, jobStageEvents, materials, mixSheets, planVersions, prepRecords, testPanels, uploads } from "../schema";
+import { storeFile } from "../../modules/uploads/storage";
+import { freezePlanVersion, jobPlanRow, loadPlanVersion } from "../../modules/plans/plans.service";
+import { needsAdhesionPromoter } from "../../../shared/domain/substrates";
+import { coatCount } from "../../../shared/domain/booth";
+import type { Stage } from "../../../shared/domain/stages";
+import type { SeedContext } from "./core";
+
+/*
+ * Demo prep records, coat logs, test panels and photos. Everything is invented: the L*a*b* readings come from a
+ * simple made-up model (ground colour seen through n coats of dye, twice), not from any meter or maker.
+ */
+
+const MIN = 60_000;
+const HOUR = 60 * MIN;
+const SPRAYED: Stage[] = ["in_booth", "curing", "finishing", "ready", "delivered"];
+
+type Rgb = [number, number, number];
+/** Invented linear-RGB reflectance of each ground, and absorbance per coat of each candy at 6:1. */
+const GROUNDS: { name: string; code: string; rgb: Rgb }[] = [
+  { name: "Fine silver", code: "HC-GC-10", rgb: [0.62, 0.63, 0.66] },
+  { name: "Bright gold", code: "HC-GC-11", rgb: [0.66, 0.5, 0.2] },
+  { name: "Bright white", code: "HC-GC-01", rgb: [0.82, 0.82, 0.8] },
+  { name: "Jet black", code: "HC-GC-02", rgb: [0.035, 0.035, 0.04] },
+];
+const CANDIES: { name: string; code: string; absorb: Rgb }[] = [
+  { name: "Apple red", code: "HC-TN-21", absorb: [0.012, 0.2, 0.13] },
+  { name: "Cobalt", code: "HC-TN-22", absorb: [0.19, 0.09, 0.012] },
+  { name: "Tangerine", code: "HC-TN-23", absorb: [0.008, 0.06, 0.21] },
+  { name: "Emerald", code: "HC-TN-24", absorb: [0.17, 0.015, 0.11] },
+  { name: "Root beer", code: "HC-TN-26", absorb: [0.06, 0.11, 0.16] },
+  { name: "Violet", code: "HC-TN-25", absorb: [0.07, 0.2, 0.03] },
+];
+
+const toLab = converter("lab65");
+const toRgb = converter("rgb");
+
+/** Colour of `coats` coats of candy at clear:toner over a ground: T = 10^(−2·A·n·f/f₆) per channel (light crosses twice). */
+function panelColour(ground: Rgb, absorb: Rgb, coats: number, clear: number, toner: number) {
+  const strength = (toner / (clear + toner)) / (1 / 7);
+  const lin = ground.map((g, i) => g * 10 ** (-2 * absorb[i]! * coats * strength)) as Rgb;
+  const lab = toLab({ mode: "lrgb", r: lin[0], g: lin[1], b: lin[2] });
+  return { L: lab.l, a: lab.a, b: lab.b };
+}
+
+/** sRGB 0–255 for a Lab reading (for the swatch photo). */
+function swatchRgb(lab: { L: number; a: number; b: number }) {
+  const c = toRgb({ mode: "lab65", l: lab.L, a: lab.a, b: lab.b });
+  const ch = (v: number) => Math.max(0, Math.min(255, Math.round(v * 255)));
+  return { r: ch(c.r), g: ch(c.g), b: ch(c.b) };
+}
+
+const round2 = (n: number) => Math.round(n * 100) / 100;
+
+async function photo(ctx: SeedContext, rgb: { r: number; g: number; b: number }, name: string, ribbon = false) {
+  if (!ctx.uploadsDir) return null;
+  // A panel swatch: the colour with a lighter band, as a sprayed panel catches the light.
+  const size = 160;
+  const band = Buffer.from(
+    `<svg width="${size}" height="${size}"><defs><linearGradient id="g" x1="0" y1="0" x2="1" y2="1"><stop offset="0" stop-color="#fff" stop-opacity="0.35"/><stop offset="0.45" stop-color="#fff" stop-opacity="0"/><stop offset="1" stop-color="#000" stop-opacity="0.25"/></linearGradient></defs><rect width="${size}" height="${size}" fill="url(#g)"/>${ribbon ? `<rect y="${size - 22}" width="${size}" height="22" fill="#000" fill-opacity="0.35"/>` : ""}</svg>`,
+  );
+  const buffer = await sharp({ create: { width: size, height: size, channels: 3, background: rgb } })
+    .composite([{ input: band }])
+    .jpeg({ quality: 82 })
+    .toBuffer();
+  return storeFile(ctx.uploadsDir, { buffer, size: buffer.length, originalname: name } as Express.Multer.File, "photo");
+}
+
+async function addPhoto(ctx: SeedContext, owner: { ownerType: "job" | "prep_record" | "panel"; ownerId: number; jobId: number | null }, rgb: { r: number; g: number; b: number }, name: string, extra: { caption?: string; shareable?: boolean; by?: string | null; at: number }) {
+  const stored = await photo(ctx, rgb, name, owner.ownerType === "job");
+  if (!stored) return;
+  ctx.db
+    .insert(uploads)
+    .values({ ...owner, kind: "photo", ...stored, caption: extra.caption ?? null, shareable: extra.shareable ?? false, uploadedBy: extra.by ?? null, createdAt: extra.at })
+    .run();
+}
+
+function stageAt(ctx: SeedContext, jobId: number, stage: Stage) {
+  return ctx.db
+    .select({ at: jobStageEvents.at })
+    .from(jobStageEvents)
+    .where(and(eq(jobStageEvents.jobId, jobId), eq(jobStageEvents.toStage, stage)))
+    .orderBy(asc(jobStageEvents.at))
+    .get()?.at;
+}
+
+export async function seedBooth(ctx: SeedContext) {
+  const materialId = (code: string) => ctx.db.select({ id: materials.id }).from(materials).where(eq(materials.code, code)).get()?.id ?? null;
+  const jobsInOrder = [...ctx.jobs].sort((a, b) => a.createdAt - b.createdAt);
+
+  // ---- Prep records: signed off on every job that reached the booth; part-done on jobs in prep.
+  let prepIndex = 0;
+  for (const job of jobsInOrder) {
+    const sprayed = SPRAYED.includes(job.stage);
+    if (!sprayed && job.stage !== "in_prep") continue;
+    const by = job.painterId ?? ctx.userIds.painter;
+    const boothAt = stageAt(ctx, job.id, "in_booth");
+    const prepAt = stageAt(ctx, job.id, "in_prep") ?? job.createdAt;
+    const items = ctx.db.select().from(jobItems).where(eq(jobItems.jobId, job.id)).orderBy(asc(jobItems.id)).all();
+    for (const [i, item] of items.entries()) {
+      const plastic = needsAdhesionPromoter(item.substrate);
+      const at = sprayed ? (boothAt ?? ctx.now) - 3 * HOUR + i * 10 * MIN : Math.min(ctx.now - HOUR, prepAt + 2 * HOUR + i * 20 * MIN);
+      // Jobs in prep: the first item finished and signed off on every other job, the rest part-done.
+      const complete = sprayed || (prepIndex % 2 === 0 && i === 0);
+      const record = ctx.db
+        .insert(prepRecords)
+        .values({
+          jobId: job.id,
+          itemId: item.id,
+          substrate: item.substrate,
+          scuffMedium: item.substrate === "existing_finish" ? "scuff_pad" : i % 2 ? "hand_sanding" : "da_sanding",
+          scuffGrit: item.substrate === "existing_finish" ? 800 : 400 + (i % 3) * 100,
+          cleaner: complete || i === 0 ? "Wax and grease remover (HC-CN-01), then waterborne final wipe" : null,
+          tackCloth: complete,
+          adhesionPromoter: plastic && complete,
+          adhesionPromoterProduct: plastic && complete ? "Plastic adhesion promoter, clear (HC-AP-01)" : null,
+          notes: i === 0 && prepIndex % 3 === 0 ? "Feathered two chips on the edge before the final scuff." : null,
+          preparedBy: by,
+          preparedAt: at,
+          signedOffBy: complete ? by : null,
+          signedOffAt: complete ? at + 5 * MIN : null,
+          createdAt: at - HOUR,
+          updatedAt: at,
+        })
+        .returning({ id: prepRecords.id })
+        .get();
+      if (i === 0 && prepIndex % 2 === 0) {
+        await addPhoto(ctx, { ownerType: "prep_record", ownerId: record.id, jobId: job.id }, { r: 170, g: 168, b: 160 }, "prep.jpg", { caption: "Scuffed and cleaned, ready to tack", by, at });
+      }
+    }
+    prepIndex++;
+  }
+
+  // ---- Coat logs: every layer of jobs past the booth; jobs in the booth stop before the clear (one mid-candy).
+  let boothIndex = 0;
+  const conditions = [
+    { t: 21, u: "C" as const, h: 48 },
+    { t: 70, u: "F" as const, h: 52 },
+    { t: 22.5, u: "C" as const, h: 44 },
+    { t: 68, u: "F" as const, h: 57 },
+  ];
+  for (const job of jobsInOrder) {
+    if (!SPRAYED.includes(job.stage)) continue;
+    const row = ctx.db.select().from(jobs).where(eq(jobs.id, job.id)).get()!;
+    let versionId = row.sprayedPlanVersionId;
+    if (versionId == null) {
+      const plan = jobPlanRow(ctx.db, job.id);
+      if (!plan) continue;
+      versionId = ctx.db.select({ id: planVersions.id }).from(planVersions).where(eq(planVersions.planId, plan.id)).orderBy(desc(planVersions.version)).limit(1).get()?.id ?? null;
+      if (versionId == null) continue;
+    }
+    const version = loadPlanVersion({ db: ctx.db }, versionId);
+    const layers = version.layers.filter((l) => l.kind !== "prep");
+    const painter = job.painterId ?? ctx.userIds.painter;
+    const boothAt = stageAt(ctx, job.id, "in_booth") ?? ctx.now - 2 * HOUR;
+    const cond = conditions[boothIndex % conditions.length]!;
+    const inBooth = job.stage === "in_booth";
+    const midCandy = inBooth && boothIndex % 2 === 0;
+    let t = boothAt + 15 * MIN;
+    let first: number | null = null;
+    let lastCoatId: number | null = null;
+    for (const [li, layer] of layers.entries()) {
+      if (inBooth && li === layers.length - 1) break;
+      const sheet = ctx.db
+        .select()
+        .from(mixSheets)
+        .where(and(eq(mixSheets.jobId, job.id), eq(mixSheets.layerId, layer.id), eq(mixSheets.status, "mixed")))
+        .orderBy(desc(mixSheets.mixedAt))
+        .get();
+      if (sheet?.mixedAt) t = Math.max(t, sheet.mixedAt + 5 * MIN);
+      const total = coatCount(layer.coats);
+      const stopAt = midCandy && layer.kind === "candy" ? Math.min(2, total) : total;
+      for (let c = 1; c <= stopAt; c++) {
+        t += layer.minutesPerCoat * MIN;
+        const at = Math.min(t, ctx.now - 10 * MIN);
+        first ??= at;
+        lastCoatId = ctx.db
+          .insert(coatLogs)
+          .values({
+            jobId: job.id,
+            planVersionId: versionId,
+            layerId: layer.id,
+            coatNumber: c,
+            at,
+            painterId: painter,
+            boothTemp: cond.t,
+            tempUnit: cond.u,
+            humidityPct: cond.h + (c % 2),
+            note: layer.kind === "candy" && c === stopAt ? "Checked depth against the approved panel under the booth lights." : null,
+            mixSheetId: sheet?.id ?? null,
+            createdAt: at,
+          })
+          .returning({ id: coatLogs.id })
+          .get().id;
+        if (c < total) t += layer.flashMinutes * MIN;
+      }
+      if (stopAt < total) break;
+      t += layer.dryMinutes * MIN;
+    }
+    if (first != null) freezePlanVersion(ctx.db, versionId, job.id, first);
+    // One correction on an older job: a temperature read in the wrong unit.
+    if (job.stage === "delivered" && lastCoatId != null && boothIndex % 3 === 0) {
+      const orig = ctx.db.select().from(coatLogs).where(eq(coatLogs.id, lastCoatId)).get()!;
+      ctx.db
+        .insert(coatLogs)
+        .values({ ...orig, id: undefined, boothTemp: orig.tempUnit === "C" ? 69 : 21, tempUnit: orig.tempUnit === "C" ? "F" : "C", correctsId: orig.id, correctionReason: "Read the wall thermometer's other scale", createdAt: orig.createdAt + 20 * MIN })
+        .run();
+    }
+    boothIndex++;
+  }
+
+  // ---- The panel library: several candies over several grounds, 2 to 6 coats, most with meter readings.
+  let n = 0;
+  const library: { ground: string; candy: string; coats: number; lab: { L: number; a: number; b: number } | null; id: number }[] = [];
+  const libraryAt = ctx.now - 150 * 86_400_000;
+  for (const candy of CANDIES) {
+    for (const ground of GROUNDS) {
+      if (ground.name === "Jet black" && candy.name !== "Emerald") continue;
+      if ((candy.name === "Root beer" || candy.name === "Violet") && ground.name === "Bright white") continue;
+      const coatsList = candy.name === "Apple red" && ground.name === "Fine silver" ? [2, 3, 4, 5, 6] : [3, 4, 5];
+      for (const coats of coatsList) {
+        n++;
+        const clear = candy.name === "Apple red" && ground.name === "Fine silver" && coats === 6 ? 8 : 6;
+        const exact = panelColour(ground.rgb, candy.absorb, coats, clear, 1);
+        const noise = ((n * 37) % 11) / 25 - 0.2;
+        const lab = n % 7 === 3 ? null : { L: round2(exact.L + noise), a: round2(exact.a - noise), b: round2(exact.b + noise / 2) };
+        const at = libraryAt + n * 86_400_000;
+        const id = ctx.db
+          .insert(testPanels)
+          .values({
+            groundName: ground.name,
+            groundMaterialId: materialId(ground.code),
+            candyName: candy.name,
+            candyMaterialId: materialId(candy.code),
+            letDownClear: clear,
+            letDownToner: 1,
+            coats,
+            labL: lab?.L ?? null,
+            labA: lab?.a ?? null,
+            labB: lab?.b ?? null,
+            sprayedOn: new Date(at).toISOString().slice(0, 10),
+            notes: clear === 8 ? "Let down 8:1 to see how far the extra coats take it." : null,
+            createdBy: n % 2 ? ctx.userIds.painter : ctx.userIds.painter2,
+            createdAt: at,
+            updatedAt: at,
+          })
+          .returning({ id: testPanels.id })
+          .get().id;
+        library.push({ ground: ground.name, candy: candy.name, coats, lab, id });
+        await addPhoto(ctx, { ownerType: "panel", ownerId: id, jobId: null }, swatchRgb(exact), `panel-${id}.jpg`, { by: ctx.userIds.painter, at });
+      }
+    }
+  }
+
+  // ---- Approved colours: candy jobs booked or later get a panel sprayed for them and approved by the customer.
+  let approvedCount = 0;
+  for (const job of jobsInOrder) {
+    const t = job.title.toLowerCase();
+    if (!t.includes("candy") || !["booked", "in_prep", ...SPRAYED].includes(job.stage)) continue;
+    const candy = CANDIES.find((c) => t.includes(c.name.toLowerCase()));
+    if (!candy) continue;
+    const ground = t.includes("gold") ? GROUNDS[1]! : t.includes("black") ? GROUNDS[3]! : t.includes("white") ? GROUNDS[2]! : GROUNDS[0]!;
+    const coats = 4 + (approvedCount % 2);
+    const exact = panelColour(ground.rgb, candy.absorb, coats, 6, 1);
+    const lab = { L: round2(exact.L), a: round2(exact.a), b: round2(exact.b) };
+    const at = job.createdAt + 2 * 86_400_000;
+    const id = ctx.db
+      .insert(testPanels)
+      .values({
+        groundName: ground.name,
+        groundMaterialId: materialId(ground.code),
+        candyName: candy.name,
+        candyMaterialId: materialId(candy.code),
+        letDownClear: 6,
+        letDownToner: 1,
+        coats,
+        jobId: job.id,
+        labL: lab.L,
+        labA: lab.a,
+        labB: lab.b,
+        sprayedOn: new Date(at).toISOString().slice(0, 10),
+        notes: "Customer chose this one in daylight at the shop door.",
+        createdBy: job.painterId ?? ctx.userIds.painter,
+        createdAt: at,
+        updatedAt: at,
+      })
+      .returning({ id: testPanels.id })
+      .get().id;
+    ctx.db.update(jobs).set({ approvedPanelId: id }).where(eq(jobs.id, job.id)).run();
+    await addPhoto(ctx, { ownerType: "panel", ownerId: id, jobId: job.id }, swatchRgb(exact), `approved-${job.id}.jpg`, { caption: "Approved colour panel", shareable: true, by: job.painterId, at });
+    // Jobs at the booth also have a check panel sprayed with the batch: one a match, one only close.
+    if (["in_booth", "curing"].includes(job.stage)) {
+      const drift = approvedCount % 2 ? 0.5 : 1.6;
+      const checkAt = (stageAt(ctx, job.id, "in_booth") ?? ctx.now - 86_400_000) + 2 * HOUR;
+      const checkId = ctx.db
+        .insert(testPanels)
+        .values({
+          groundName: ground.name,
+          groundMaterialId: materialId(ground.code),
+          candyName: candy.name,
+          candyMaterialId: materialId(candy.code),
+          letDownClear: 6,
+          letDownToner: 1,
+          coats,
+          jobId: job.id,
+          labL: round2(lab.L - drift),
+          labA: round2(lab.a + drift / 2),
+          labB: round2(lab.b - drift / 3),
+          sprayedOn: new Date(checkAt).toISOString().slice(0, 10),
+          notes: "Check panel sprayed alongside the job with the same batch.",
+          createdBy: job.painterId ?? ctx.userIds.painter,
+          createdAt: checkAt,
+          updatedAt: checkAt,
+        })
+        .returning({ id: testPanels.id })
+        .get().id;
+      await addPhoto(ctx, { ownerType: "panel", ownerId: checkId, jobId: job.id }, swatchRgb({ L: lab.L - drift, a: lab.a + drift / 2, b: lab.b - drift / 3 }), `check-${job.id}.jpg`, { by: job.painterId, at: checkAt });
+    }
+    approvedCount++;
+  }
+
+  // ---- Progress photos on jobs that went through the booth; about half are shared with the customer.
+  let photoIndex = 0;
+  for (const job of jobsInOrder) {
+    if (!SPRAYED.includes(job.stage)) continue;
+    const t = job.title.toLowerCase();
+    const candy = CANDIES.find((c) => t.includes(c.name.toLowerCase()));
+    const colour = candy ? swatchRgb(panelColour(GROUNDS[0]!.rgb, candy.absorb, 4, 6, 1)) : t.includes("black") ? { r: 20, g: 20, b: 24 } : t.includes("white") ? { r: 236, g: 234, b: 226 } : { r: 40, g: 120, b: 124 };
+    const at = (stageAt(ctx, job.id, "curing") ?? stageAt(ctx, job.id, "in_booth") ?? ctx.now - HOUR) + 30 * MIN;
+    await addPhoto(ctx, { ownerType: "job", ownerId: job.id, jobId: job.id }, colour, `job-${job.id}.jpg`, {
+      caption: job.stage === "in_booth" ? "In the booth" : "Out of the booth, clear coat curing",
+      shareable: photoIndex % 2 === 0,
+      by: job.painterId,
+      at: Math.min(at, ctx.now - MIN),
+    });
+    photoIndex++;
+  }
+  return { panels: library.length };
+}

@@ -1,0 +1,119 @@
+import { index, integer, real, sqliteTable, text, uniqueIndex, type AnySQLiteColumn } from "drizzle-orm/sqlite-core";
+import { SUBSTRATES } from "../../../shared/domain/substrates";
+import { SCUFF_MEDIA } from "../../../shared/domain/prep";
+import { TEMP_UNITS } from "../../../shared/domain/booth";
+import { jobItems, jobs, users } from "./core";
+import { materials } from "./materials";
+import { planLayers, planVersions } from "./plans";
+import { mixSheets } from "./mix-sheets";
+import { createdAt, updatedAt } from "./columns";
+
+/**
+ * Prep of one job item before it goes in the booth: one record per item. Editable until signed off;
+ * after sign-off only the office can reopen it (with a note).
+ */
+export const prepRecords = sqliteTable(
+  "prep_records",
+  {
+    id: integer("id").primaryKey({ autoIncrement: true }),
+    jobId: integer("job_id")
+      .notNull()
+      .references(() => jobs.id, { onDelete: "cascade" }),
+    itemId: integer("item_id")
+      .notNull()
+      .references(() => jobItems.id, { onDelete: "cascade" }),
+    /** The item's substrate when the prep was done. */
+    substrate: text("substrate", { enum: SUBSTRATES }).notNull(),
+    scuffMedium: text("scuff_medium", { enum: SCUFF_MEDIA }),
+    scuffGrit: integer("scuff_grit"),
+    cleaner: text("cleaner"),
+    tackCloth: integer("tack_cloth", { mode: "boolean" }).notNull().default(false),
+    adhesionPromoter: integer("adhesion_promoter", { mode: "boolean" }).notNull().default(false),
+    adhesionPromoterProduct: text("adhesion_promoter_product"),
+    notes: text("notes"),
+    /** Who last recorded prep steps, and when. */
+    preparedBy: text("prepared_by").references(() => users.id, { onDelete: "set null" }),
+    preparedAt: integer("prepared_at").notNull(),
+    signedOffBy: text("signed_off_by").references(() => users.id, { onDelete: "set null" }),
+    signedOffAt: integer("signed_off_at"),
+    /** Why a sign-off was taken back (kept so the history shows it). */
+    reopenedNote: text("reopened_note"),
+    createdAt: createdAt(),
+    updatedAt: updatedAt(),
+  },
+  (t) => [uniqueIndex("prep_records_item_idx").on(t.itemId), index("prep_records_job_idx").on(t.jobId)],
+);
+
+/**
+ * Coats sprayed at the booth. Append-only: a mistake is fixed by a new row naming the row it corrects
+ * (correctsId) with a reason; `voids` says the coat did not happen.
+ */
+export const coatLogs = sqliteTable(
+  "coat_logs",
+  {
+    id: integer("id").primaryKey({ autoIncrement: true }),
+    jobId: integer("job_id")
+      .notNull()
+      .references(() => jobs.id, { onDelete: "cascade" }),
+    planVersionId: integer("plan_version_id")
+      .notNull()
+      .references(() => planVersions.id, { onDelete: "restrict" }),
+    layerId: integer("layer_id")
+      .notNull()
+      .references(() => planLayers.id, { onDelete: "restrict" }),
+    coatNumber: integer("coat_number").notNull(),
+    /** When the coat was sprayed (server time of the tap, or the corrected time). */
+    at: integer("at").notNull(),
+    painterId: text("painter_id").references(() => users.id, { onDelete: "set null" }),
+    /** As entered, with its unit. */
+    boothTemp: real("booth_temp"),
+    tempUnit: text("temp_unit", { enum: TEMP_UNITS }),
+    humidityPct: real("humidity_pct"),
+    note: text("note"),
+    /** The open batch when the coat was logged. */
+    mixSheetId: integer("mix_sheet_id").references(() => mixSheets.id, { onDelete: "set null" }),
+    /** Given when the first coat went on before every item's prep was signed off. */
+    prepOverrideReason: text("prep_override_reason"),
+    correctsId: integer("corrects_id").references((): AnySQLiteColumn => coatLogs.id, { onDelete: "restrict" }),
+    correctionReason: text("correction_reason"),
+    voids: integer("voids", { mode: "boolean" }).notNull().default(false),
+    createdAt: createdAt(),
+  },
+  (t) => [
+    index("coat_logs_job_idx").on(t.jobId, t.at),
+    index("coat_logs_layer_idx").on(t.layerId),
+    index("coat_logs_corrects_idx").on(t.correctsId),
+    index("coat_logs_created_idx").on(t.createdAt),
+  ],
+);
+
+/** Sprayed test panels: how each was made, optional colour-meter reading (CIELAB). Photos are uploads (owner "panel"). */
+export const testPanels = sqliteTable(
+  "test_panels",
+  {
+    id: integer("id").primaryKey({ autoIncrement: true }),
+    groundName: text("ground_name").notNull(),
+    groundMaterialId: integer("ground_material_id").references(() => materials.id, { onDelete: "set null" }),
+    candyName: text("candy_name").notNull(),
+    candyMaterialId: integer("candy_material_id").references(() => materials.id, { onDelete: "set null" }),
+    letDownClear: real("let_down_clear").notNull(),
+    letDownToner: real("let_down_toner").notNull(),
+    coats: integer("coats").notNull(),
+    jobId: integer("job_id").references(() => jobs.id, { onDelete: "set null" }),
+    planLayerId: integer("plan_layer_id").references(() => planLayers.id, { onDelete: "set null" }),
+    mixSheetId: integer("mix_sheet_id").references(() => mixSheets.id, { onDelete: "set null" }),
+    labL: real("lab_l"),
+    labA: real("lab_a"),
+    labB: real("lab_b"),
+    sprayedOn: text("sprayed_on"),
+    notes: text("notes"),
+    createdBy: text("created_by").references(() => users.id, { onDelete: "set null" }),
+    createdAt: createdAt(),
+    updatedAt: updatedAt(),
+  },
+  (t) => [
+    index("test_panels_ground_candy_idx").on(t.groundName, t.candyName, t.coats),
+    index("test_panels_candy_idx").on(t.candyName),
+    index("test_panels_job_idx").on(t.jobId),
+  ],
+);

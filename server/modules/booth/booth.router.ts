@@ -1,0 +1,35 @@
+import { Router } from "express";
+import type { AppDeps } from "../../deps";
+import { actorOf, allow } from "../../http/guard";
+import { ctxOf } from "../../http/context";
+import { body, params, query } from "../../http/validate";
+import { idParamsSchema } from "../../../shared/schemas/common.schema";
+import { correctCoatLogInputSchema, createCoatLogInputSchema, listCoatLogsQuerySchema } from "../../../shared/schemas/booth.schema";
+import { correctCoatLog, getBooth, jobTicket, listCoatLogs, logCoat } from "./booth.service";
+
+/** The booth card and the job ticket, under /api/jobs. Staff only; painters reach their assigned jobs. */
+export function boothRouter(deps: AppDeps) {
+  const r = Router();
+  r.get("/:id/booth", allow("staff"), (req, res) => {
+    res.json(getBooth(deps, actorOf(res), params(req, idParamsSchema).id));
+  });
+  r.get("/:id/ticket", allow("staff"), async (req, res) => {
+    res.json(await jobTicket(deps, actorOf(res), params(req, idParamsSchema).id));
+  });
+  return r;
+}
+
+/** Coat logs: append-only. A tap adds a coat; a correction is a new entry naming the one it corrects. */
+export function coatLogsRouter(deps: AppDeps) {
+  const r = Router();
+  r.get("/", allow("staff"), (req, res) => {
+    res.json(listCoatLogs(deps, actorOf(res), query(req, listCoatLogsQuerySchema).jobId));
+  });
+  r.post("/", allow("staff"), (req, res) => {
+    res.status(201).json(logCoat(deps, ctxOf(req, res), body(req, createCoatLogInputSchema)));
+  });
+  r.post("/:id/corrections", allow("staff"), (req, res) => {
+    res.status(201).json(correctCoatLog(deps, ctxOf(req, res), params(req, idParamsSchema).id, body(req, correctCoatLogInputSchema)));
+  });
+  return r;
+}

@@ -1,0 +1,436 @@
+import { aliasedTable, and, asc, desc, eq, inArray, isNotNull } from "drizzle-orm";
+import QRCode from "qrcode";
+import type { z } from "zod";
+import type { AppDeps } from "../../deps";
+import type { Actor } from "../../auth/session";
+import type { RequestContext } from "../../http/context";
+import { coatLogs, customers, jobItems, jobs, jobStageEvents, mixSheetLines, mixSheets, planVersions, plans, prepRecords, testPanels, uploads, users } from "../../db/schema";
+import { badRequest, conflict, forbidden, notFound } from "../../http/http-error";
+import { iso, isoOrNull } from "../../http/dates";
+import { findJobFor } from "../jobs/jobs.access";
+import { freezePlanVersion, jobPlanRow, loadPlanVersion, type LoadedPlanVersion } from "../plans/plans.service";
+import { panelLabel } from "../panels/panels.service";
+import { prepStatusOf } from "../prep/prep.service";
+import { convertVolume, isVolumeUnit, potLifeEnds } from "../../../shared/mix/index";
+import { coatCount, effectiveCoats, nextBoothStep, type CoatEntry, type TempUnit } from "../../../shared/domain/booth";
+import { needsAdhesionPromoter } from "../../../shared/domain/substrates";
+import { STAGE_LABELS, type Stage } from "../../../shared/domain/stages";
+import type {
+  BoothDto,
+  BoothLayerDto,
+  BoothMixSheetDto,
+  BoothNextDto,
+  CoatLogDto,
+  correctCoatLogInputSchema,
+  createCoatLogInputSchema,
+  JobTicketDto,
+} from "../../../shared/schemas/booth.schema";
+
+type CoatRow = typeof coatLogs.$inferSelect;
+type JobRow = typeof jobs.$inferSelect;
+
+/** Stages in which coats may be logged: prep (the first coat moves the job to the booth), booth, and curing (re-logging a voided last coat). */
+const LOGGING_STAGES: readonly Stage[] = ["in_prep", "in_booth", "curing"];
+
+/**
+ * Booth card access: painters their assigned jobs, the owner every job; estimators read the card but do not log
+ * coats (they are not at the booth); customers never reach it (route guard).
+ */
+export function canLogCoats(actor: Actor, job: Pick<JobRow, "assignedPainterId">) {
+  return actor.role === "owner" || (actor.role === "painter" && job.assignedPainterId === actor.id);
+}
+
+/** The plan version the booth works from: the one already sprayed, else the latest version of the job's plan. */
+function boothVersion(deps: AppDeps, job: JobRow): { planId: number; planName: string; version: LoadedPlanVersion } | null {
+  let versionId = job.sprayedPlanVersionId;
+  if (versionId == null) {
+    const plan = jobPlanRow(deps.db, job.id);
+    if (!plan) return null;
+    const latest = deps.db.select({ id: planVersions.id }).from(planVersions).where(eq(planVersions.planId, plan.id)).orderBy(desc(planVersions.version)).limit(1).get();
+    if (!latest) return null;
+    versionId = latest.id;
+  }
+  const version = loadPlanVersion(deps, versionId);
+  const plan = deps.db.select({ id: plans.id, name: plans.name }).from(plans).where(eq(plans.id, version.planId)).get();
+  return plan ? { planId: plan.id, planName: plan.name, version } : null;
+}
+
+const painterOf = aliasedTable(users, "coat_painter");
+
+function coatRows(deps: AppDeps, jobId: number) {
+  return deps.db
+    .select({ c: coatLogs, painterName: painterOf.name })
+    .from(coatLogs)
+    .leftJoin(painterOf, eq(coatLogs.painterId, painterOf.id))
+    .where(eq(coatLogs.jobId, jobId))
+    .orderBy(asc(coatLogs.id))
+    .all();
+}
+
+const asEntry = (c: CoatRow): CoatEntry => ({ id: c.id, layerId: c.layerId, coatNumber: c.coatNumber, at: c.at, correctsId: c.correctsId, voids: c.voids });
+
+function coatDtos(rows: { c: CoatRow; painterName: string | null }[], layerNames: Map<number, string>): CoatLogDto[] {
+  const effective = new Map(effectiveCoats(rows.map((r) => asEntry(r.c))).map((e) => [e.id, e]));
+  const voided = new Set(rows.filter((r) => r.c.voids && r.c.correctsId != null).map((r) => r.c.correctsId!));
+  return rows.map(({ c, painterName }) => ({
+    id: c.id,
+    jobId: c.jobId,
+    layerId: c.layerId,
+    layerName: layerNames.get(c.layerId) ?? "Layer of an earlier plan version",
+    coatNumber: c.coatNumber,
+    at: iso(c.at),
+    loggedAt: iso(c.createdAt),
+    painterName,
+    boothTemp: c.boothTemp,
+    tempUnit: c.tempUnit,
+    humidityPct: c.humidityPct,
+    note: c.note,
+    mixSheetId: c.mixSheetId,
+    prepOverrideReason: c.prepOverrideReason,
+    correctsId: c.correctsId,
+    correctionReason: c.correctionReason,
+    voids: c.voids,
+    status: c.correctsId != null ? "correction" : voided.has(c.id) ? "voided" : effective.get(c.id)?.correctedBy ? "corrected" : "counts",
+  }));
+}
+
+function mixSheetDtos(deps: AppDeps, jobId: number): BoothMixSheetDto[] {
+  const mixer = aliasedTable(users, "mixer");
+  const sheets = deps.db
+    .select({ s: mixSheets, mixedByName: mixer.name })
+    .from(mixSheets)
+    .leftJoin(mixer, eq(mixSheets.mixedBy, mixer.id))
+    .where(eq(mixSheets.jobId, jobId))
+    .orderBy(desc(mixSheets.createdAt), desc(mixSheets.id))
+    .all();
+  const lines = sheets.length
+    ? deps.db
+        .select({ sheetId: mixSheetLines.mixSheetId, position: mixSheetLines.position, label: mixSheetLines.label, plannedMl: mixSheetLines.plannedMl, actualMl: mixSheetLines.actualMl, lotNumber: mixSheetLines.lotNumber })
+        .from(mixSheetLines)
+        .where(inArray(mixSheetLines.mixSheetId, sheets.map((s) => s.s.id)))
+        .orderBy(asc(mixSheetLines.position))
+        .all()
+    : [];
+  return sheets.map(({ s, mixedByName }) => {
+    const unit = s.unit;
+    const potEnd = s.mixedAt != null && s.potLifeMinutes != null && s.potLifeMinutes > 0 ? potLifeEnds(new Date(s.mixedAt), s.potLifeMinutes).toISOString() : null;
+    return {
+      id: s.id,
+      layerId: s.layerId,
+      status: s.status,
+      volumeMl: s.totalMl,
+      unit,
+      mixedAt: isoOrNull(s.mixedAt),
+      mixedByName: s.mixedAt ? mixedByName : null,
+      potLifeMinutes: s.potLifeMinutes,
+      potLifeEndsAt: potEnd,
+      lines: lines
+        .filter((l) => l.sheetId === s.id)
+        .map((l) => ({
+          label: l.label,
+          plannedMl: l.plannedMl,
+          plannedInUnit: isVolumeUnit(unit) ? convertVolume(l.plannedMl, "mL", unit) : l.plannedMl,
+          actualMl: l.actualMl,
+          lotNumber: l.lotNumber,
+        })),
+    };
+  });
+}
+
+/** Everything the booth card shows, in one response; computed from stored times only. No money anywhere. */
+export function getBooth(deps: AppDeps, actor: Actor, jobId: number): BoothDto {
+  const job = findJobFor(deps, actor, jobId);
+  const now = deps.now();
+  const head = deps.db
+    .select({ customerName: customers.name, painterName: users.name })
+    .from(jobs)
+    .innerJoin(customers, eq(jobs.customerId, customers.id))
+    .leftJoin(users, eq(jobs.assignedPainterId, users.id))
+    .where(eq(jobs.id, jobId))
+    .get()!;
+  const items = deps.db
+    .select({ i: jobItems, prepId: prepRecords.id, signedOffAt: prepRecords.signedOffAt })
+    .from(jobItems)
+    .leftJoin(prepRecords, eq(prepRecords.itemId, jobItems.id))
+    .where(eq(jobItems.jobId, jobId))
+    .orderBy(asc(jobItems.id))
+    .all()
+    .map(({ i, prepId, signedOffAt }) => ({
+      id: i.id,
+      name: i.name,
+      substrate: i.substrate,
+      needsAdhesionPromoter: needsAdhesionPromoter(i.substrate),
+      prepStatus: prepStatusOf(prepId == null ? null : { signedOffAt }),
+      prepRecordId: prepId,
+    }));
+  const prepReady = items.every((i) => i.prepStatus === "signed_off");
+
+  let approvedPanel: BoothDto["job"]["approvedPanel"] = null;
+  if (job.approvedPanelId != null) {
+    const p = deps.db.select().from(testPanels).where(eq(testPanels.id, job.approvedPanelId)).get();
+    if (p) {
+      const photo = deps.db
+        .select({ id: uploads.id, thumb: uploads.thumbName })
+        .from(uploads)
+        .where(and(eq(uploads.ownerType, "panel"), eq(uploads.ownerId, p.id), eq(uploads.kind, "photo")))
+        .orderBy(asc(uploads.id))
+        .limit(1)
+        .get();
+      approvedPanel = { id: p.id, label: panelLabel(p), thumbUrl: photo?.thumb ? `/api/uploads/${photo.id}/thumb` : null };
+    }
+  }
+
+  const planned = boothVersion(deps, job);
+  const rows = coatRows(deps, jobId);
+  const layerNames = new Map((planned?.version.layers ?? []).map((l) => [l.id, l.name]));
+  const coatLogsDto = coatDtos(rows, layerNames);
+  const sheets = mixSheetDtos(deps, jobId);
+
+  let layers: BoothLayerDto[] = [];
+  let next: BoothNextDto = { state: "no_plan" };
+  let openBatch: BoothDto["openBatch"] = null;
+  if (planned) {
+    const versionLayers = planned.version.layers;
+    // A "prep" layer is done through the prep records, not sprayed: it is not part of the coat sequence.
+    const sprayLayers = versionLayers.filter((l) => l.kind !== "prep");
+    const layerIds = new Set(sprayLayers.map((l) => l.id));
+    const effective = effectiveCoats(rows.filter((r) => layerIds.has(r.c.layerId)).map((r) => asEntry(r.c)));
+    const step = nextBoothStep(sprayLayers, effective, now);
+    const progress = new Map(step.layers.map((p) => [p.layerId, p]));
+    layers = versionLayers.map((l) => {
+      const p = progress.get(l.id);
+      return {
+        id: l.id,
+        position: l.position,
+        kind: l.kind,
+        name: l.name,
+        coats: l.coats,
+        flashMinutes: l.flashMinutes,
+        minutesPerCoat: l.minutesPerCoat,
+        dryMinutes: l.dryMinutes,
+        gunTip: l.gunTip,
+        pressurePsi: l.pressurePsi,
+        overlapPct: l.overlapPct,
+        notes: l.notes,
+        components: l.components.map((c) => ({ label: c.label, materialCode: c.materialCode, materialName: c.materialName, parts: c.parts, percent: c.percent, percentOf: c.percentOf })),
+        cautions: l.cautions,
+        isPrep: !p,
+        coatsDone: p ? p.coatsDone : prepReady ? coatCount(l.coats) : 0,
+        status: p ? p.status : prepReady ? "done" : "current",
+      };
+    });
+    const timer = (t: { kind: "flash" | "dry"; startedAt: number; endsAt: number } | null) => (t ? { kind: t.kind, startedAt: iso(t.startedAt), endsAt: iso(t.endsAt) } : null);
+    if (step.state === "no_layers") next = { state: "no_layers" };
+    else if (step.state === "done") next = { state: "done", lastCoatAt: iso(step.lastCoatAt), timer: timer(step.timer)! };
+    else {
+      const layer = sprayLayers[step.layerIndex]!;
+      next = {
+        state: "spray",
+        layerId: layer.id,
+        layerName: layer.name,
+        layerKind: layer.kind,
+        coat: step.coat,
+        of: step.of,
+        isLastLayer: step.isLastLayer,
+        isFirstCoatOfJob: effective.length === 0,
+        timer: timer(step.timer),
+        layerDoneAt: iso(step.layerDoneAt),
+      };
+      const batch = sheets.find((s) => s.layerId === layer.id && s.status === "mixed" && s.mixedAt);
+      if (batch) openBatch = { mixSheetId: batch.id, layerId: batch.layerId, mixedAt: batch.mixedAt!, potLifeEndsAt: batch.potLifeEndsAt };
+    }
+  }
+
+  return {
+    serverNow: iso(now),
+    job: {
+      id: job.id,
+      title: job.title,
+      stage: job.stage,
+      customerName: head.customerName,
+      dueDate: job.dueDate,
+      assignedPainterName: head.painterName,
+      approvedPanel,
+    },
+    canLog: canLogCoats(actor, job),
+    items,
+    prepReady,
+    plan: planned
+      ? { planId: planned.planId, name: planned.planName, versionId: planned.version.id, version: planned.version.version, frozen: planned.version.frozenAt != null }
+      : null,
+    layers,
+    mixSheets: sheets.filter((s) => s.status !== "void"),
+    openBatch,
+    coatLogs: coatLogsDto,
+    next,
+    lastConditions: lastConditions(deps, jobId),
+    prepOverrides: rows
+      .filter((r) => r.c.prepOverrideReason)
+      .map((r) => ({ coatLogId: r.c.id, reason: r.c.prepOverrideReason!, byName: r.painterName, at: iso(r.c.createdAt) })),
+  };
+}
+
+/** The booth conditions of the latest entry on this job, else the shop's latest (same booth), to prefill the next tap. */
+function lastConditions(deps: AppDeps, jobId: number): BoothDto["lastConditions"] {
+  const pick = (where: ReturnType<typeof and>) =>
+    deps.db
+      .select({ boothTemp: coatLogs.boothTemp, tempUnit: coatLogs.tempUnit, humidityPct: coatLogs.humidityPct })
+      .from(coatLogs)
+      .where(where)
+      .orderBy(desc(coatLogs.createdAt), desc(coatLogs.id))
+      .limit(1)
+      .get();
+  const hasReading = isNotNull(coatLogs.tempUnit);
+  return pick(and(eq(coatLogs.jobId, jobId), hasReading)) ?? pick(and(hasReading)) ?? null;
+}
+
+export function listCoatLogs(deps: AppDeps, actor: Actor, jobId: number): CoatLogDto[] {
+  const job = findJobFor(deps, actor, jobId);
+  const planned = boothVersion(deps, job);
+  return coatDtos(coatRows(deps, jobId), new Map((planned?.version.layers ?? []).map((l) => [l.id, l.name])));
+}
+
+function assertCanLog(deps: AppDeps, actor: Actor, jobId: number): JobRow {
+  if (actor.role === "estimator") throw forbidden("Estimators can read the booth card; coats are logged by the painter or the owner");
+  const job = findJobFor(deps, actor, jobId);
+  if (!canLogCoats(actor, job)) throw forbidden("Only the job's painter or the owner logs coats");
+  return job;
+}
+
+function moveStage(tx: Pick<AppDeps["db"], "update" | "insert">, job: JobRow, to: Stage, note: string, actor: Actor, now: number) {
+  tx.update(jobs).set({ stage: to, stageChangedAt: now, updatedAt: now }).where(eq(jobs.id, job.id)).run();
+  tx.insert(jobStageEvents).values({ jobId: job.id, fromStage: job.stage, toStage: to, note, userId: actor.id, at: now }).run();
+}
+
+/**
+ * One tap: the coat just sprayed. The server sets the time and painter; the coat must be the one the card shows
+ * next (a second tap on a stale card is refused, not double-counted). The first coat of a job needs every item's
+ * prep signed off, or the painter's reason for going ahead. Logging freezes the plan version; the first coat moves
+ * the job into the booth and the last coat of the last layer moves it to curing.
+ */
+export function logCoat(deps: AppDeps, ctx: RequestContext, input: z.output<typeof createCoatLogInputSchema>): BoothDto {
+  const { actor } = ctx;
+  const job = assertCanLog(deps, actor, input.jobId);
+  if (!LOGGING_STAGES.includes(job.stage))
+    throw conflict(`Coats are logged once the job is in prep or in the booth; this job is ${STAGE_LABELS[job.stage].toLowerCase()}`, { jobId: "Not at the booth" });
+  const booth = getBooth(deps, actor, job.id);
+  if (!booth.plan) throw conflict("This job has no finish plan yet; the office adds one before spraying", { jobId: "No finish plan" });
+  const next = booth.next;
+  if (next.state !== "spray") throw conflict("Every coat of every layer is already logged", { coatNumber: "Nothing left to log" });
+  if (next.layerId !== input.layerId || next.coat !== input.coatNumber) {
+    throw conflict(`The next coat is coat ${next.coat} of ${next.of} of ${next.layerName}; the card was out of date, so nothing was logged`, {
+      coatNumber: `Next is coat ${next.coat} of ${next.layerName}`,
+    });
+  }
+  let override: string | null = null;
+  if (next.isFirstCoatOfJob && !booth.prepReady) {
+    const pending = booth.items.filter((i) => i.prepStatus !== "signed_off").map((i) => i.name);
+    if (!input.prepOverrideReason) {
+      throw conflict(`Prep is not signed off for ${pending.join(", ")}. Sign it off first, or give a reason to go ahead.`, {
+        prepOverrideReason: "Give a reason to spray before prep is signed off",
+      });
+    }
+    override = `${input.prepOverrideReason} (prep not signed off: ${pending.join(", ")})`.slice(0, 800);
+  }
+  const now = deps.now();
+  deps.db.transaction((tx) => {
+    tx.insert(coatLogs)
+      .values({
+        jobId: job.id,
+        planVersionId: booth.plan!.versionId,
+        layerId: input.layerId,
+        coatNumber: input.coatNumber,
+        at: now,
+        painterId: actor.id,
+        boothTemp: input.boothTemp ?? null,
+        tempUnit: input.boothTemp != null ? (input.tempUnit ?? null) : null,
+        humidityPct: input.humidityPct ?? null,
+        note: input.note ?? null,
+        mixSheetId: booth.openBatch?.mixSheetId ?? null,
+        prepOverrideReason: override,
+        createdAt: now,
+      })
+      .run();
+    freezePlanVersion(tx, booth.plan!.versionId, job.id, now, ctx);
+    let stage = job.stage;
+    if (stage === "in_prep") {
+      moveStage(tx, job, "in_booth", "First coat logged at the booth", actor, now);
+      stage = "in_booth";
+    }
+    const finished = next.isLastLayer && next.coat === next.of;
+    if (finished && stage !== "curing") moveStage(tx, { ...job, stage }, "curing", "Last coat of the last layer logged", actor, now);
+  });
+  return getBooth(deps, actor, job.id);
+}
+
+/**
+ * A correction is a new entry naming the entry it corrects. Values not given carry over from the entry as it
+ * stands. Only the latest coat of the job can be voided, so the coat count never has a hole in it.
+ */
+export function correctCoatLog(deps: AppDeps, ctx: RequestContext, id: number, input: z.output<typeof correctCoatLogInputSchema>): BoothDto {
+  const { actor } = ctx;
+  const original = deps.db.select().from(coatLogs).where(eq(coatLogs.id, id)).get();
+  if (!original) throw notFound("Coat log");
+  try {
+    findJobFor(deps, actor, original.jobId);
+  } catch {
+    throw notFound("Coat log");
+  }
+  const job = assertCanLog(deps, actor, original.jobId);
+  if (original.correctsId != null) throw conflict(`This entry is itself a correction; correct the original entry #${original.correctsId}`, { id: "A correction" });
+  const all = deps.db.select().from(coatLogs).where(eq(coatLogs.jobId, job.id)).orderBy(asc(coatLogs.id)).all();
+  const fixes = all.filter((c) => c.correctsId === id);
+  if (fixes.some((f) => f.voids)) throw conflict("This coat was already marked as not sprayed", { id: "Voided" });
+  const current = fixes[fixes.length - 1] ?? original;
+  const now = deps.now();
+  if (input.void) {
+    const effective = effectiveCoats(all.map(asEntry));
+    const latest = effective[effective.length - 1];
+    if (latest?.id !== id) throw conflict("Only the latest coat can be marked as not sprayed; correct the details of earlier coats instead", { void: "Not the latest coat" });
+  }
+  let at = current.at;
+  if (input.at !== undefined) {
+    at = Date.parse(input.at);
+    if (at > now + 60_000) throw badRequest("The coat's time cannot be in the future", { at: "In the future" });
+    if (at < job.createdAt) throw badRequest("The coat's time is before the job was created", { at: "Before the job" });
+  }
+  const tempUnit: TempUnit | null = input.boothTemp !== undefined ? (input.boothTemp == null ? null : (input.tempUnit ?? null)) : current.tempUnit;
+  deps.db
+    .insert(coatLogs)
+    .values({
+      jobId: original.jobId,
+      planVersionId: original.planVersionId,
+      layerId: original.layerId,
+      coatNumber: original.coatNumber,
+      at,
+      painterId: actor.id,
+      boothTemp: input.boothTemp !== undefined ? input.boothTemp : current.boothTemp,
+      tempUnit,
+      humidityPct: input.humidityPct !== undefined ? input.humidityPct : current.humidityPct,
+      note: input.note !== undefined ? input.note : current.note,
+      mixSheetId: original.mixSheetId,
+      correctsId: id,
+      correctionReason: input.reason,
+      voids: input.void,
+      createdAt: now,
+    })
+    .run();
+  return getBooth(deps, actor, job.id);
+}
+
+/** The printable ticket: the job, its items and layers, and a QR code that opens the booth card. */
+export async function jobTicket(deps: AppDeps, actor: Actor, jobId: number): Promise<JobTicketDto> {
+  const booth = getBooth(deps, actor, jobId);
+  const items = deps.db.select().from(jobItems).where(eq(jobItems.jobId, jobId)).orderBy(asc(jobItems.id)).all();
+  const boothUrl = `${deps.publicUrl}/booth/${jobId}`;
+  const qrDataUrl = await QRCode.toDataURL(boothUrl, { errorCorrectionLevel: "M", margin: 2, width: 320 });
+  const { approvedPanel: _panel, ...job } = booth.job;
+  return {
+    job,
+    items: items.map((i) => ({ name: i.name, substrate: i.substrate, surfaceArea: i.surfaceArea, areaUnit: i.areaUnit })),
+    layers: booth.layers.map((l) => ({ position: l.position, kind: l.kind, name: l.name, coats: l.coats, flashMinutes: l.flashMinutes, dryMinutes: l.dryMinutes, cautions: l.cautions.length > 0 })),
+    boothUrl,
+    qrDataUrl,
+    printedAt: iso(deps.now()),
+  };
+}

@@ -1,0 +1,364 @@
+import { and, asc, desc, eq, inArray, isNull, or, type SQL } from "drizzle-orm";
+import type Stripe from "stripe";
+import type { AppDeps } from "../../deps";
+import { checkoutSessions, customers, jobStageEvents, jobs, payments, quoteVersions, refunds, users, webhookEvents } from "../../db/schema";
+import { badRequest, conflict, HttpError, notFound } from "../../http/http-error";
+import type { RequestContext } from "../../http/context";
+import { iso, isoOrNull } from "../../http/dates";
+import { recordAudit } from "../audit/audit.service";
+import { getSettings } from "../settings/settings.service";
+import { sendAndLog } from "../messages/messages.service";
+import { composeReceiptMail } from "../messages/compose";
+import { getPortalQuote, type PortalViewer } from "../portal/portal.service";
+import { portalLinkPath } from "../portal/portal-link";
+import { offeredVersion, paidCentsFor, totalsOf } from "../quotes/quotes.service";
+import { formatCents } from "../../../shared/quote/index";
+import type { CheckoutDto, PaymentDto, PaymentStatus } from "../../../shared/schemas/payment.schema";
+
+/*
+ * Deposits through the card-payment provider's hosted checkout.
+ *
+ * The product never records a payment because a browser came back to a "success" page: a payment (and a
+ * refund) is written only when the provider's webhook says so, after its signature is checked against the
+ * webhook secret (constructEvent on the exact request bytes). Each event id is applied once (webhook_events),
+ * and a checkout session / payment intent can carry one payment only (unique indexes), so a redelivered or
+ * duplicated event changes nothing. A refund event that arrives before its payment is answered 409, so the
+ * provider delivers it again later (out-of-order delivery).
+ */
+
+function requirePayments(deps: AppDeps) {
+  if (!deps.payments) throw new HttpError(503, "upstream_failed", "Online card payments are not set up for this shop. Please contact the shop to pay the deposit.");
+  return deps.payments;
+}
+
+function upstream(err: unknown, doing: string): never {
+  const message = err instanceof Error ? err.message : String(err);
+  console.error(`[payments] ${doing} failed:`, message);
+  throw new HttpError(502, "upstream_failed", `The payment provider could not ${doing}: ${message}`);
+}
+
+/** Starts a hosted checkout for the deposit of an approved quote and returns where to send the customer. */
+export async function createCheckout(deps: AppDeps, viewer: PortalViewer, quoteId: number): Promise<CheckoutDto> {
+  const pay = requirePayments(deps);
+  const quote = getPortalQuote(deps, viewer, quoteId);
+  if (quote.status !== "approved") throw conflict("Approve the quote before paying the deposit", { status: quote.status });
+  if (quote.paymentUnderReview) throw conflict("A payment for this quote is being checked by the shop; they will be in touch", { status: "under_review" });
+  if (quote.paidCents >= quote.depositCents) throw conflict("The deposit for this quote is already paid. Thank you!", { status: "paid" });
+  if (!quote.canPay) throw conflict("This quote cannot be paid online; please contact the shop");
+  const v = offeredVersion(deps.db, quoteId)!;
+  const amount = quote.depositCents - quote.paidCents;
+  const back = viewer.via === "link" ? `${deps.publicUrl}${portalLinkPath(viewer.token)}` : `${deps.publicUrl}/portal/quotes/${quoteId}`;
+  const email = deps.db.select({ email: customers.email }).from(customers).where(eq(customers.id, viewer.customerId)).get()?.email;
+  let session: Stripe.Checkout.Session;
+  try {
+    session = await pay.stripe.checkout.sessions.create({
+      mode: "payment",
+      line_items: [
+        {
+          quantity: 1,
+          price_data: {
+            currency: pay.currency,
+            unit_amount: amount,
+            product_data: { name: `Deposit: ${quote.jobTitle}`, description: `${quote.shop.name} · quote #${quoteId}, version ${v.version} · ${quote.depositPercent} % deposit` },
+          },
+        },
+      ],
+      client_reference_id: `quote-${quoteId}-v${v.version}`,
+      ...(email ? { customer_email: email } : {}),
+      metadata: { quoteId: String(quoteId), quoteVersionId: String(v.id), jobId: String(quote.jobId) },
+      success_url: `${back}?paid=1`,
+      cancel_url: `${back}?cancelled=1`,
+    });
+  } catch (err) {
+    upstream(err, "start the checkout");
+  }
+  if (!session.url) upstream(new Error("no checkout address was returned"), "start the checkout");
+  deps.db
+    .insert(checkoutSessions)
+    .values({
+      id: session.id,
+      quoteId,
+      quoteVersionId: v.id,
+      jobId: quote.jobId,
+      amountCents: amount,
+      currency: pay.currency,
+      url: session.url,
+      createdBy: viewer.userId,
+      via: viewer.via,
+      createdAt: deps.now(),
+    })
+    .run();
+  return { url: session.url, sessionId: session.id };
+}
+
+type WebhookOutcome = { received: true; duplicate?: true; outcome: string; paymentId?: number; receipt?: boolean };
+
+/** Verifies and applies one provider webhook delivery. */
+export async function handleWebhook(deps: AppDeps, raw: Buffer | undefined, signature: string | undefined): Promise<WebhookOutcome> {
+  const pay = requirePayments(deps);
+  if (!raw || !signature) throw badRequest("A signed webhook body is required");
+  let event: Stripe.Event;
+  try {
+    event = pay.stripe.webhooks.constructEvent(raw, signature, pay.webhookSecret);
+  } catch {
+    throw badRequest("The webhook signature does not match; nothing was recorded");
+  }
+  const now = deps.now();
+  let receiptFor: number | null = null;
+  const result = deps.db.transaction((tx): WebhookOutcome => {
+    if (tx.select({ id: webhookEvents.id }).from(webhookEvents).where(eq(webhookEvents.id, event.id)).get()) {
+      return { received: true, duplicate: true, outcome: "already applied" };
+    }
+    let outcome = "ignored";
+    let paymentId: number | undefined;
+    switch (event.type) {
+      case "checkout.session.completed":
+      case "checkout.session.async_payment_succeeded": {
+        const r = recordPayment(tx, deps, event.id, event.data.object as Stripe.Checkout.Session, now);
+        outcome = r.outcome;
+        paymentId = r.paymentId;
+        if (r.receipt) receiptFor = r.paymentId ?? null;
+        break;
+      }
+      case "refund.created":
+      case "refund.updated": {
+        outcome = recordRefund(tx, event.id, event.data.object as Stripe.Refund, now);
+        break;
+      }
+      case "charge.refunded": {
+        const charge = event.data.object as Stripe.Charge;
+        const list = (charge.refunds?.data ?? []) as Stripe.Refund[];
+        const outcomes = list.map((r) => recordRefund(tx, event.id, { ...r, payment_intent: r.payment_intent ?? charge.payment_intent }, now));
+        outcome = outcomes.join("; ") || "no refunds listed";
+        break;
+      }
+    }
+    tx.insert(webhookEvents).values({ id: event.id, type: event.type, outcome, receivedAt: now }).run();
+    return { received: true, outcome, ...(paymentId ? { paymentId } : {}) };
+  });
+  if (receiptFor) {
+    // In the background: the provider wants a quick answer, and a mail problem must not undo the payment.
+    sendDepositReceipt(deps, receiptFor).catch(() => undefined);
+  }
+  return { ...result, ...(receiptFor ? { receipt: true } : {}) };
+}
+
+type Tx = Parameters<Parameters<AppDeps["db"]["transaction"]>[0]>[0];
+
+function recordPayment(tx: Tx, deps: AppDeps, eventId: string, session: Stripe.Checkout.Session, now: number): { outcome: string; paymentId?: number; receipt?: boolean } {
+  if (session.payment_status !== "paid") return { outcome: "checkout not paid yet" };
+  const ours = tx.select().from(checkoutSessions).where(eq(checkoutSessions.id, session.id)).get();
+  if (!ours) return { outcome: "unknown checkout session (not started here)" };
+  const intent = typeof session.payment_intent === "string" ? session.payment_intent : (session.payment_intent?.id ?? `none:${session.id}`);
+  const existing = tx
+    .select({ id: payments.id })
+    .from(payments)
+    .where(or(eq(payments.sessionId, session.id), eq(payments.paymentIntentId, intent)))
+    .get();
+  if (existing) return { outcome: "payment already recorded", paymentId: existing.id };
+
+  const version = tx.select().from(quoteVersions).where(eq(quoteVersions.id, ours.quoteVersionId)).get()!;
+  const expected = ours.amountCents;
+  const amount = session.amount_total ?? 0;
+  const currency = (session.currency ?? "").toLowerCase();
+  const reasons: string[] = [];
+  if (amount !== expected) reasons.push(`paid ${formatCents(amount)} but the deposit asked was ${formatCents(expected)}`);
+  if (currency !== ours.currency) reasons.push(`paid in ${currency.toUpperCase() || "an unknown currency"}, expected ${ours.currency.toUpperCase()}`);
+  if (version.status !== "approved") reasons.push(`the quote version was ${version.status}, not approved, when the payment arrived`);
+  const flagged = reasons.length > 0;
+  const paymentId = tx
+    .insert(payments)
+    .values({
+      jobId: ours.jobId,
+      quoteId: ours.quoteId,
+      quoteVersionId: ours.quoteVersionId,
+      sessionId: session.id,
+      paymentIntentId: intent,
+      eventId,
+      amountCents: amount,
+      expectedCents: expected,
+      currency: currency || ours.currency,
+      flagged,
+      flagReason: flagged ? reasons.join("; ") : null,
+      paidAt: now,
+      createdAt: now,
+    })
+    .returning({ id: payments.id })
+    .get().id;
+  recordAudit(
+    tx,
+    null,
+    {
+      kind: "money",
+      entity: "payment",
+      entityId: paymentId,
+      action: flagged ? "received_flagged" : "received",
+      after: { quoteId: ours.quoteId, version: version.version, amountCents: amount, expectedCents: expected, currency, sessionId: session.id, paymentIntentId: intent, eventId, flagReason: flagged ? reasons.join("; ") : null },
+    },
+    now,
+  );
+  if (!flagged) bookJob(tx, ours.jobId, ours.createdBy, now, `Deposit of ${formatCents(amount)} paid online`);
+  return { outcome: flagged ? "payment recorded and flagged for the owner" : "payment recorded; job booked", paymentId, receipt: !flagged };
+}
+
+/** A paid deposit books the job (when it is still at inquiry or quoted), as a move by the customer/system. */
+function bookJob(tx: Tx, jobId: number, by: string | null, now: number, note: string) {
+  const job = tx.select({ stage: jobs.stage, customerId: jobs.customerId }).from(jobs).where(eq(jobs.id, jobId)).get();
+  if (!job || (job.stage !== "inquiry" && job.stage !== "quoted")) return;
+  // Attribute the move to the customer's own account when they have one (the payer), else to nobody (the system).
+  const customerUser =
+    by ??
+    tx
+      .select({ id: users.id })
+      .from(users)
+      .where(and(eq(users.customerId, job.customerId), eq(users.role, "customer"), eq(users.active, true)))
+      .orderBy(asc(users.createdAt))
+      .get()?.id ??
+    null;
+  tx.update(jobs).set({ stage: "booked", stageChangedAt: now, updatedAt: now }).where(eq(jobs.id, jobId)).run();
+  tx.insert(jobStageEvents).values({ jobId, fromStage: job.stage, toStage: "booked", userId: customerUser, note, at: now }).run();
+}
+
+function recordRefund(tx: Tx, eventId: string, refund: Pick<Stripe.Refund, "id" | "amount" | "status" | "metadata"> & { payment_intent: Stripe.Refund["payment_intent"] }, now: number): string {
+  if (refund.status !== "succeeded") return `refund ${refund.id} is ${refund.status}`;
+  if (tx.select({ id: refunds.id }).from(refunds).where(eq(refunds.providerRefundId, refund.id)).get()) return `refund ${refund.id} already recorded`;
+  const intent = typeof refund.payment_intent === "string" ? refund.payment_intent : refund.payment_intent?.id;
+  const payment = intent ? tx.select().from(payments).where(eq(payments.paymentIntentId, intent)).get() : undefined;
+  // Not ours, or its payment has not arrived yet: a 409 makes the provider deliver this event again later.
+  if (!payment) throw conflict(`No payment recorded yet for refund ${refund.id}; deliver again later`);
+  const requestedBy = refund.metadata?.requestedBy;
+  const requester = requestedBy ? tx.select({ id: users.id }).from(users).where(eq(users.id, requestedBy)).get()?.id ?? null : null;
+  tx.insert(refunds)
+    .values({ paymentId: payment.id, providerRefundId: refund.id, eventId, amountCents: refund.amount, reason: refund.metadata?.reason || null, requestedBy: requester, at: now })
+    .run();
+  const refunded = Math.min(payment.amountCents, payment.refundedCents + refund.amount);
+  tx.update(payments).set({ refundedCents: refunded }).where(eq(payments.id, payment.id)).run();
+  recordAudit(
+    tx,
+    null,
+    { kind: "money", entity: "payment", entityId: payment.id, action: "refunded", before: { refundedCents: payment.refundedCents }, after: { refundedCents: refunded, refundId: refund.id, amountCents: refund.amount, requestedBy: requester } },
+    now,
+  );
+  return `refund ${refund.id} recorded`;
+}
+
+/** E-mails the customer a receipt for a deposit and logs it on the job. */
+export async function sendDepositReceipt(deps: AppDeps, paymentId: number) {
+  const row = deps.db
+    .select({ p: payments, jobTitle: jobs.title, customerName: customers.name, email: customers.email, version: quoteVersions })
+    .from(payments)
+    .innerJoin(jobs, eq(payments.jobId, jobs.id))
+    .innerJoin(customers, eq(jobs.customerId, customers.id))
+    .innerJoin(quoteVersions, eq(payments.quoteVersionId, quoteVersions.id))
+    .where(eq(payments.id, paymentId))
+    .get();
+  if (!row?.email) return null;
+  const t = totalsOf(row.version);
+  const mail = composeReceiptMail({
+    shop: getSettings(deps),
+    customerName: row.customerName,
+    jobTitle: row.jobTitle,
+    jobId: row.p.jobId,
+    quoteId: row.p.quoteId,
+    version: row.version.version,
+    amountCents: row.p.amountCents,
+    balanceCents: t.totalCents - paidCentsFor(deps.db, row.p.quoteId),
+    paidAt: row.p.paidAt,
+    reference: row.p.paymentIntentId,
+  });
+  return sendAndLog(deps, { jobId: row.p.jobId, quoteVersionId: row.version.id, kind: "deposit_receipt", sentBy: null }, { to: row.email, ...mail });
+}
+
+function statusOf(p: { amountCents: number; refundedCents: number }): PaymentStatus {
+  if (p.refundedCents <= 0) return "paid";
+  return p.refundedCents >= p.amountCents ? "refunded" : "partially_refunded";
+}
+
+export function listPayments(deps: AppDeps, q: { jobId?: number; quoteId?: number; flagged?: "1" | "0" }): { items: PaymentDto[] } {
+  const where: (SQL | undefined)[] = [
+    q.jobId ? eq(payments.jobId, q.jobId) : undefined,
+    q.quoteId ? eq(payments.quoteId, q.quoteId) : undefined,
+    q.flagged === "1" ? and(eq(payments.flagged, true), isNull(payments.reviewedAt)) : undefined,
+  ];
+  const rows = deps.db
+    .select({ p: payments, jobTitle: jobs.title, customerName: customers.name, version: quoteVersions.version })
+    .from(payments)
+    .innerJoin(jobs, eq(payments.jobId, jobs.id))
+    .innerJoin(customers, eq(jobs.customerId, customers.id))
+    .innerJoin(quoteVersions, eq(payments.quoteVersionId, quoteVersions.id))
+    .where(and(...where))
+    .orderBy(desc(payments.paidAt), desc(payments.id))
+    .limit(200)
+    .all();
+  const ids = rows.map((r) => r.p.id);
+  const allRefunds = ids.length ? deps.db.select().from(refunds).where(inArray(refunds.paymentId, ids)).orderBy(asc(refunds.at)).all() : [];
+  return {
+    items: rows.map(({ p, jobTitle, customerName, version }) => ({
+      id: p.id,
+      jobId: p.jobId,
+      jobTitle,
+      customerName,
+      quoteId: p.quoteId,
+      version,
+      amountCents: p.amountCents,
+      expectedCents: p.expectedCents,
+      currency: p.currency,
+      status: statusOf(p),
+      refundedCents: p.refundedCents,
+      flagged: p.flagged,
+      flagReason: p.flagReason,
+      reviewedAt: isoOrNull(p.reviewedAt),
+      paidAt: iso(p.paidAt),
+      providerPaymentId: p.paymentIntentId,
+      refunds: allRefunds.filter((r) => r.paymentId === p.id).map((r) => ({ id: r.id, amountCents: r.amountCents, reason: r.reason, at: iso(r.at), providerId: r.providerRefundId })),
+    })),
+  };
+}
+
+function findPayment(deps: AppDeps, id: number) {
+  const p = deps.db.select().from(payments).where(eq(payments.id, id)).get();
+  if (!p) throw notFound("Payment");
+  return p;
+}
+
+/**
+ * Asks the provider to refund all or part of a payment. The refund is recorded when the provider's webhook
+ * confirms it, like the payment itself; this answers 202 with what was requested.
+ */
+export async function requestRefund(deps: AppDeps, ctx: RequestContext, id: number, input: { amountCents?: number; reason?: string | null }) {
+  const pay = requirePayments(deps);
+  const p = findPayment(deps, id);
+  const left = p.amountCents - p.refundedCents;
+  if (left <= 0) throw conflict("This payment is already refunded in full", { amountCents: "Nothing left to refund" });
+  const amount = input.amountCents ?? left;
+  if (amount > left) throw badRequest(`At most ${formatCents(left)} is left to refund`, { amountCents: `At most ${formatCents(left)}` });
+  let refund: Stripe.Refund;
+  try {
+    refund = await pay.stripe.refunds.create({
+      payment_intent: p.paymentIntentId,
+      amount,
+      reason: "requested_by_customer",
+      metadata: { paymentId: String(p.id), requestedBy: ctx.actor.id, reason: input.reason ?? "" },
+    });
+  } catch (err) {
+    upstream(err, "make the refund");
+  }
+  deps.db.transaction((tx) =>
+    recordAudit(tx, ctx, { kind: "money", entity: "payment", entityId: p.id, action: "refund_requested", after: { amountCents: amount, refundId: refund.id, reason: input.reason ?? null } }, deps.now()),
+  );
+  return { status: "requested" as const, providerRefundId: refund.id, amountCents: amount, message: `Refund of ${formatCents(amount)} requested; it shows here once the provider confirms it.` };
+}
+
+/** The owner accepts a flagged payment after checking it: the flag is cleared and the job is booked. */
+export function acceptPayment(deps: AppDeps, ctx: RequestContext, id: number, note: string | null | undefined) {
+  const p = findPayment(deps, id);
+  if (!p.flagged) throw conflict("This payment was not flagged; there is nothing to accept");
+  if (p.reviewedAt) throw conflict("This payment was already accepted");
+  const now = deps.now();
+  deps.db.transaction((tx) => {
+    tx.update(payments).set({ reviewedAt: now, reviewedBy: ctx.actor.id }).where(eq(payments.id, id)).run();
+    recordAudit(tx, ctx, { kind: "money", entity: "payment", entityId: id, action: "accepted", before: { flagReason: p.flagReason }, after: { reviewedBy: ctx.actor.name, note: note ?? null } }, now);
+    bookJob(tx, p.jobId, ctx.actor.id, now, `Deposit of ${formatCents(p.amountCents)} accepted by ${ctx.actor.name}`);
+  });
+  return listPayments(deps, { quoteId: p.quoteId }).items.find((x) => x.id === id)!;
+}

@@ -1,0 +1,581 @@
+import { and, asc, count, desc, eq, inArray, isNotNull, like, max, type SQL } from "drizzle-orm";
+import type { AppDeps } from "../../deps";
+import type { Db } from "../../db/client";
+import type { Actor } from "../../auth/session";
+import { jobs, layerComponents, materials, mixSheets, planLayers, planVersions, plans, users } from "../../db/schema";
+import { badRequest, conflict, notFound } from "../../http/http-error";
+import { iso, isoOrNull } from "../../http/dates";
+import type { RequestContext } from "../../http/context";
+import { recordAudit } from "../audit/audit.service";
+import { findJobFor, jobScope } from "../jobs/jobs.access";
+import { seesCost } from "../materials/materials.service";
+import { cautionsFor } from "../../../shared/domain/safety";
+import { layerMixProblem } from "../../../shared/domain/layer-mix";
+import type {
+  LayerComponentDto,
+  ListPlansQuery,
+  PlanDocument,
+  PlanDto,
+  PlanLayerDto,
+  PlanSummaryDto,
+  PlanVersionDto,
+  PlanVersionSummaryDto,
+  StartJobPlanValues,
+} from "../../../shared/schemas/plan.schema";
+
+/*
+ * Finish plans. Exported for other areas (keep these signatures stable):
+ *
+ *   loadPlanVersion(deps, versionId): LoadedPlanVersion
+ *     One version with its layers in order (position), each with its components in order and the
+ *     catalogue figures of each component's material (code, name, category, density, VOC, water/exempt %,
+ *     volume solids, pot life, isocyanate and flammable flags, cost cents per purchase unit), the layer's
+ *     safety `cautions` (cautionsFor) and shortest pot life. Throws a 404 HttpError when the version does not
+ *     exist. Includes costs: strip them (toVersionDto) before sending to anyone outside the office.
+ *
+ *   getJobPlan(deps, actor, jobId): PlanDto | null
+ *     The job's current plan with its latest version, as the actor may see it (painters: assigned jobs only,
+ *     no cost fields; anything outside the actor's reach is a 404), or null when the job has no plan.
+ *
+ *   freezePlanVersion(tx, versionId, jobId, now, ctx?): boolean
+ *     Marks a version used at the booth (frozenAt, once) and points jobs.sprayedPlanVersionId at it. Call it
+ *     inside the transaction that records the use (a mix sheet recorded as mixed, a coat logged). Returns true
+ *     when the version was frozen by this call; then an audit entry (kind "plan") is written too.
+ *
+ * Editing model: the editor sends the whole plan (PUT /api/plans/:id). It is saved into the latest version
+ * unless that version is locked (frozen, or referenced by a mix sheet), in which case version N+1 is made.
+ * Locked versions never change.
+ */
+
+/** A database handle or a transaction: what the helpers below need. */
+export type DbOrTx = Pick<Db, "select" | "insert" | "update" | "delete">;
+
+export type LoadedComponent = LayerComponentDto & { costCents: number };
+export type LoadedLayer = Omit<PlanLayerDto, "components"> & { components: LoadedComponent[] };
+export type LoadedPlanVersion = {
+  id: number;
+  planId: number;
+  version: number;
+  frozenAt: number | null;
+  note: string | null;
+  createdAt: number;
+  createdBy: string | null;
+  createdByName: string | null;
+  layers: LoadedLayer[];
+};
+
+type PlanRow = typeof plans.$inferSelect;
+
+export function loadPlanVersion(deps: { db: DbOrTx }, versionId: number): LoadedPlanVersion {
+  const v = deps.db
+    .select({ v: planVersions, by: users.name })
+    .from(planVersions)
+    .leftJoin(users, eq(planVersions.createdBy, users.id))
+    .where(eq(planVersions.id, versionId))
+    .get();
+  if (!v) throw notFound("Plan version");
+  const layers = deps.db.select().from(planLayers).where(eq(planLayers.versionId, versionId)).orderBy(asc(planLayers.position), asc(planLayers.id)).all();
+  const layerIds = layers.map((l) => l.id);
+  const comps = layerIds.length
+    ? deps.db
+        .select({ c: layerComponents, m: materials })
+        .from(layerComponents)
+        .innerJoin(materials, eq(layerComponents.materialId, materials.id))
+        .where(inArray(layerComponents.layerId, layerIds))
+        .orderBy(asc(layerComponents.position), asc(layerComponents.id))
+        .all()
+    : [];
+  return {
+    id: v.v.id,
+    planId: v.v.planId,
+    version: v.v.version,
+    frozenAt: v.v.frozenAt,
+    note: v.v.note,
+    createdAt: v.v.createdAt,
+    createdBy: v.v.createdBy,
+    createdByName: v.by,
+    layers: layers.map((l) => {
+      const components: LoadedComponent[] = comps
+        .filter((x) => x.c.layerId === l.id)
+        .map(({ c, m }) => ({
+          id: c.id,
+          position: c.position,
+          label: c.label,
+          parts: c.parts,
+          percent: c.percent,
+          percentOf: c.percentOf ?? null,
+          materialId: m.id,
+          materialCode: m.code,
+          materialName: m.name,
+          category: m.category,
+          purchaseUnit: m.purchaseUnit,
+          densityGPerMl: m.densityGPerMl,
+          vocGPerL: m.vocGPerL,
+          waterExemptPct: m.waterExemptPct,
+          volumeSolidsPct: m.volumeSolidsPct,
+          potLifeMinutes: m.potLifeMinutes,
+          containsIsocyanates: m.containsIsocyanates,
+          flammable: m.flammable,
+          costCents: m.costCents,
+        }));
+      const potLives = components.map((c) => c.potLifeMinutes).filter((p): p is number => p != null);
+      return {
+        id: l.id,
+        position: l.position,
+        kind: l.kind,
+        name: l.name,
+        coats: l.coats,
+        flashMinutes: l.flashMinutes,
+        minutesPerCoat: l.minutesPerCoat,
+        dryMinutes: l.dryMinutes,
+        gunTip: l.gunTip,
+        pressurePsi: l.pressurePsi,
+        overlapPct: l.overlapPct,
+        dryFilmPerCoat: l.dryFilmPerCoat,
+        dryFilmUnit: l.dryFilmUnit,
+        transferEfficiencyPct: l.transferEfficiencyPct,
+        notes: l.notes,
+        components,
+        cautions: cautionsFor(components),
+        potLifeMinutes: potLives.length ? Math.min(...potLives) : null,
+      };
+    }),
+  };
+}
+
+/** A version for the API: costs only for the office. */
+export function toVersionDto(v: LoadedPlanVersion, actor: Actor, locked: boolean): PlanVersionDto {
+  const office = seesCost(actor);
+  return {
+    id: v.id,
+    planId: v.planId,
+    version: v.version,
+    frozenAt: isoOrNull(v.frozenAt),
+    locked,
+    note: v.note,
+    createdAt: iso(v.createdAt),
+    createdByName: v.createdByName,
+    layers: v.layers.map((l) => ({
+      ...l,
+      components: l.components.map(({ costCents, ...c }) => (office ? { ...c, costCents } : c)),
+    })),
+  };
+}
+
+function versionLocked(db: DbOrTx, versionId: number, frozenAt: number | null): boolean {
+  if (frozenAt != null) return true;
+  return (db.select({ n: count() }).from(mixSheets).where(eq(mixSheets.planVersionId, versionId)).get()?.n ?? 0) > 0;
+}
+
+function latestVersionRow(db: DbOrTx, planId: number) {
+  const row = db.select().from(planVersions).where(eq(planVersions.planId, planId)).orderBy(desc(planVersions.version)).limit(1).get();
+  if (!row) throw notFound("Plan version");
+  return row;
+}
+
+function findPlanRow(db: DbOrTx, id: number): PlanRow {
+  const plan = db.select().from(plans).where(eq(plans.id, id)).get();
+  if (!plan) throw notFound("Plan");
+  return plan;
+}
+
+/** A plan the actor may reach: templates for all staff; a job's plan only for those who reach the job. */
+export function findPlanFor(deps: AppDeps, actor: Actor, id: number): PlanRow {
+  const plan = findPlanRow(deps.db, id);
+  if (plan.jobId != null) {
+    try {
+      findJobFor(deps, actor, plan.jobId);
+    } catch {
+      throw notFound("Plan");
+    }
+  }
+  return plan;
+}
+
+function planDto(deps: AppDeps, actor: Actor, plan: PlanRow): PlanDto {
+  const latest = latestVersionRow(deps.db, plan.id);
+  const loaded = loadPlanVersion(deps, latest.id);
+  const versionCount = deps.db.select({ n: count() }).from(planVersions).where(eq(planVersions.planId, plan.id)).get()?.n ?? 0;
+  const job = plan.jobId != null ? deps.db.select({ title: jobs.title, sprayed: jobs.sprayedPlanVersionId }).from(jobs).where(eq(jobs.id, plan.jobId)).get() : undefined;
+  const source = plan.copiedFromPlanId != null ? deps.db.select({ name: plans.name }).from(plans).where(eq(plans.id, plan.copiedFromPlanId)).get() : undefined;
+  return {
+    id: plan.id,
+    name: plan.name,
+    description: plan.description,
+    isTemplate: plan.isTemplate,
+    jobId: plan.jobId,
+    jobTitle: job?.title ?? null,
+    copiedFromPlanId: plan.copiedFromPlanId,
+    copiedFromName: source?.name ?? null,
+    sprayedVersionId: job?.sprayed ?? null,
+    createdAt: iso(plan.createdAt),
+    updatedAt: iso(plan.updatedAt),
+    versionCount,
+    latest: toVersionDto(loaded, actor, versionLocked(deps.db, latest.id, latest.frozenAt)),
+  };
+}
+
+export function getPlan(deps: AppDeps, actor: Actor, id: number): PlanDto {
+  return planDto(deps, actor, findPlanFor(deps, actor, id));
+}
+
+/** The plan row of a job (one plan per job), or undefined. */
+export function jobPlanRow(db: DbOrTx, jobId: number): PlanRow | undefined {
+  return db.select().from(plans).where(eq(plans.jobId, jobId)).orderBy(desc(plans.id)).limit(1).get();
+}
+
+export function getJobPlan(deps: AppDeps, actor: Actor, jobId: number): PlanDto | null {
+  findJobFor(deps, actor, jobId);
+  const plan = jobPlanRow(deps.db, jobId);
+  return plan ? planDto(deps, actor, plan) : null;
+}
+
+export function listPlans(deps: AppDeps, actor: Actor, q: ListPlansQuery): PlanSummaryDto[] {
+  const filters: (SQL | undefined)[] = [q.kind === "template" ? eq(plans.isTemplate, true) : and(eq(plans.isTemplate, false), isNotNull(plans.jobId))];
+  if (q.kind === "job") filters.push(jobScope(actor));
+  if (q.q) filters.push(like(plans.name, `%${q.q}%`));
+  const rows = deps.db
+    .select({ p: plans, jobTitle: jobs.title })
+    .from(plans)
+    .leftJoin(jobs, eq(plans.jobId, jobs.id))
+    .where(and(...filters))
+    .orderBy(q.kind === "template" ? asc(plans.name) : desc(plans.updatedAt), desc(plans.id))
+    .limit(200)
+    .all();
+  if (rows.length === 0) return [];
+  const ids = rows.map((r) => r.p.id);
+  const latest = new Map(
+    deps.db
+      .select({ planId: planVersions.planId, v: max(planVersions.version) })
+      .from(planVersions)
+      .where(inArray(planVersions.planId, ids))
+      .groupBy(planVersions.planId)
+      .all()
+      .map((r) => [r.planId, r.v ?? 1]),
+  );
+  const versionRows = deps.db
+    .select({ id: planVersions.id, planId: planVersions.planId, version: planVersions.version })
+    .from(planVersions)
+    .where(inArray(planVersions.planId, ids))
+    .all()
+    .filter((v) => latest.get(v.planId) === v.version);
+  const kindsByVersion = new Map<number, PlanLayerDto["kind"][]>();
+  if (versionRows.length) {
+    for (const l of deps.db
+      .select({ versionId: planLayers.versionId, kind: planLayers.kind })
+      .from(planLayers)
+      .where(inArray(planLayers.versionId, versionRows.map((v) => v.id)))
+      .orderBy(asc(planLayers.position))
+      .all()) {
+      kindsByVersion.set(l.versionId, [...(kindsByVersion.get(l.versionId) ?? []), l.kind]);
+    }
+  }
+  return rows.map(({ p, jobTitle }) => {
+    const v = versionRows.find((x) => x.planId === p.id);
+    const kinds = v ? (kindsByVersion.get(v.id) ?? []) : [];
+    return {
+      id: p.id,
+      name: p.name,
+      description: p.description,
+      isTemplate: p.isTemplate,
+      jobId: p.jobId,
+      jobTitle,
+      latestVersion: latest.get(p.id) ?? 1,
+      layerCount: kinds.length,
+      layerKinds: kinds,
+      updatedAt: iso(p.updatedAt),
+    };
+  });
+}
+
+export function listVersions(deps: AppDeps, actor: Actor, planId: number): PlanVersionSummaryDto[] {
+  const plan = findPlanFor(deps, actor, planId);
+  const sprayed = plan.jobId != null ? (deps.db.select({ s: jobs.sprayedPlanVersionId }).from(jobs).where(eq(jobs.id, plan.jobId)).get()?.s ?? null) : null;
+  const rows = deps.db
+    .select({ v: planVersions, by: users.name })
+    .from(planVersions)
+    .leftJoin(users, eq(planVersions.createdBy, users.id))
+    .where(eq(planVersions.planId, planId))
+    .orderBy(desc(planVersions.version))
+    .all();
+  const layerCounts = new Map(
+    deps.db
+      .select({ versionId: planLayers.versionId, n: count() })
+      .from(planLayers)
+      .where(inArray(planLayers.versionId, rows.map((r) => r.v.id)))
+      .groupBy(planLayers.versionId)
+      .all()
+      .map((r) => [r.versionId, r.n]),
+  );
+  return rows.map(({ v, by }) => ({
+    id: v.id,
+    version: v.version,
+    frozenAt: isoOrNull(v.frozenAt),
+    locked: versionLocked(deps.db, v.id, v.frozenAt),
+    note: v.note,
+    createdAt: iso(v.createdAt),
+    createdByName: by,
+    layerCount: layerCounts.get(v.id) ?? 0,
+    sprayed: sprayed === v.id,
+  }));
+}
+
+export function getVersion(deps: AppDeps, actor: Actor, planId: number, versionId: number): PlanVersionDto {
+  findPlanFor(deps, actor, planId);
+  const row = deps.db.select().from(planVersions).where(and(eq(planVersions.id, versionId), eq(planVersions.planId, planId))).get();
+  if (!row) throw notFound("Plan version");
+  return toVersionDto(loadPlanVersion(deps, versionId), actor, versionLocked(deps.db, row.id, row.frozenAt));
+}
+
+/**
+ * Checks a plan document against the catalogue and the mix engine. Problems are reported with the field path
+ * of the layer's component (`layers.2.components.1.percentOf`), so the editor shows them beside the field.
+ */
+export function validateDocument(deps: { db: DbOrTx }, doc: PlanDocument) {
+  const ids = doc.layers.flatMap((l) => l.components.map((c) => c.materialId));
+  const known = new Set(ids.length ? deps.db.select({ id: materials.id }).from(materials).where(inArray(materials.id, [...new Set(ids)])).all().map((m) => m.id) : []);
+  const fields: Record<string, string> = {};
+  doc.layers.forEach((layer, i) => {
+    layer.components.forEach((c, j) => {
+      if (!known.has(c.materialId)) fields[`layers.${i}.components.${j}.materialId`] = "No such material in the catalogue";
+    });
+    const problem = layerMixProblem(layer.components);
+    if (problem) fields[`layers.${i}.${problem.path}`] = problem.message;
+  });
+  const first = Object.entries(fields)[0];
+  if (first) {
+    const i = Number(first[0].split(".")[1]);
+    throw badRequest(`Layer ${i + 1} (${doc.layers[i]!.name}): ${first[1]}`, fields);
+  }
+}
+
+function insertLayers(tx: DbOrTx, versionId: number, layers: PlanDocument["layers"]) {
+  layers.forEach((l, i) => {
+    const layer = tx
+      .insert(planLayers)
+      .values({
+        versionId,
+        position: i + 1,
+        kind: l.kind,
+        name: l.name,
+        coats: l.coats,
+        flashMinutes: l.flashMinutes,
+        minutesPerCoat: l.minutesPerCoat ?? 5,
+        dryMinutes: l.dryMinutes,
+        gunTip: l.gunTip ?? null,
+        pressurePsi: l.pressurePsi ?? null,
+        overlapPct: l.overlapPct ?? null,
+        dryFilmPerCoat: l.dryFilmPerCoat ?? null,
+        dryFilmUnit: l.dryFilmUnit ?? "um",
+        transferEfficiencyPct: l.transferEfficiencyPct ?? 65,
+        notes: l.notes ?? null,
+      })
+      .returning({ id: planLayers.id })
+      .get();
+    l.components.forEach((c, j) => {
+      tx.insert(layerComponents)
+        .values({
+          layerId: layer.id,
+          position: j + 1,
+          materialId: c.materialId,
+          label: c.label,
+          parts: c.parts ?? null,
+          percent: c.percent ?? null,
+          percentOf: c.percent != null || (c.percentOf && c.percentOf.length) ? (c.percentOf ?? []) : null,
+        })
+        .run();
+    });
+  });
+}
+
+/** What the audit keeps of a version: enough to see what changed without the whole catalogue. */
+function auditSummary(name: string, version: number, layers: { kind: string; name: string; coats: number; components: { label: string; materialId: number; parts?: number | null; percent?: number | null }[] }[]) {
+  return {
+    name,
+    version,
+    layers: layers.map(
+      (l) =>
+        `${l.kind} "${l.name}" ×${l.coats}: ` +
+        l.components.map((c) => `${c.label}#${c.materialId} ${c.parts != null ? `${c.parts} parts` : `${c.percent}%`}`).join(", "),
+    ),
+  };
+}
+
+/** A loaded version as a plan document (for copies). */
+function documentOf(name: string, description: string | null, v: LoadedPlanVersion): PlanDocument {
+  return {
+    name,
+    description,
+    versionNote: null,
+    layers: v.layers.map((l) => ({
+      kind: l.kind,
+      name: l.name,
+      coats: l.coats,
+      flashMinutes: l.flashMinutes,
+      minutesPerCoat: l.minutesPerCoat,
+      dryMinutes: l.dryMinutes,
+      gunTip: l.gunTip,
+      pressurePsi: l.pressurePsi,
+      overlapPct: l.overlapPct,
+      dryFilmPerCoat: l.dryFilmPerCoat,
+      dryFilmUnit: l.dryFilmUnit,
+      transferEfficiencyPct: l.transferEfficiencyPct,
+      notes: l.notes,
+      components: l.components.map((c) => ({ materialId: c.materialId, label: c.label, parts: c.parts, percent: c.percent, percentOf: c.percentOf })),
+    })),
+  };
+}
+
+function insertPlan(tx: DbOrTx, ctx: RequestContext, doc: PlanDocument, opts: { jobId: number | null; isTemplate: boolean; copiedFromPlanId: number | null; now: number }) {
+  const plan = tx
+    .insert(plans)
+    .values({
+      name: doc.name,
+      description: doc.description ?? null,
+      jobId: opts.jobId,
+      isTemplate: opts.isTemplate,
+      copiedFromPlanId: opts.copiedFromPlanId,
+      createdBy: ctx.actor.id,
+      createdAt: opts.now,
+      updatedAt: opts.now,
+    })
+    .returning()
+    .get();
+  const version = tx
+    .insert(planVersions)
+    .values({ planId: plan.id, version: 1, note: doc.versionNote ?? null, createdBy: ctx.actor.id, createdAt: opts.now })
+    .returning({ id: planVersions.id })
+    .get();
+  insertLayers(tx, version.id, doc.layers);
+  recordAudit(
+    tx,
+    ctx,
+    {
+      kind: "plan",
+      entity: opts.isTemplate ? "plan_template" : "plan",
+      entityId: plan.id,
+      action: "created",
+      after: { ...auditSummary(doc.name, 1, doc.layers), jobId: opts.jobId, copiedFromPlanId: opts.copiedFromPlanId },
+    },
+    opts.now,
+  );
+  return plan;
+}
+
+export function createTemplate(deps: AppDeps, ctx: RequestContext, doc: PlanDocument): PlanDto {
+  validateDocument(deps, doc);
+  const now = deps.now();
+  const plan = deps.db.transaction((tx) => insertPlan(tx, ctx, doc, { jobId: null, isTemplate: true, copiedFromPlanId: null, now }));
+  return getPlan(deps, ctx.actor, plan.id);
+}
+
+/** Starts a job's plan from a template or plan, from another job's current plan, or empty. One plan per job. */
+export function startJobPlan(deps: AppDeps, ctx: RequestContext, jobId: number, input: StartJobPlanValues): PlanDto {
+  const job = findJobFor(deps, ctx.actor, jobId);
+  if (jobPlanRow(deps.db, jobId)) throw conflict("This job already has a finish plan; open it to change it", { fromPlanId: "The job has a plan" });
+  let source: PlanRow | undefined;
+  if (input.fromPlanId) {
+    source = deps.db.select().from(plans).where(eq(plans.id, input.fromPlanId)).get();
+    if (!source) throw badRequest("That plan or template does not exist", { fromPlanId: "No such plan" });
+  } else if (input.fromJobId) {
+    if (input.fromJobId === jobId) throw badRequest("Choose another job to copy from", { fromJobId: "Same job" });
+    const other = deps.db.select({ id: jobs.id }).from(jobs).where(eq(jobs.id, input.fromJobId)).get();
+    if (!other) throw badRequest("That job does not exist", { fromJobId: "No such job" });
+    source = jobPlanRow(deps.db, input.fromJobId);
+    if (!source) throw badRequest("That job has no finish plan to copy", { fromJobId: "No plan on that job" });
+  }
+  const name = input.name ?? (source ? (source.isTemplate ? source.name : `${source.name} (as job #${source.jobId})`) : `${job.title}: finish`);
+  let doc: PlanDocument = { name: name.slice(0, 120), description: source?.description ?? null, versionNote: null, layers: [] };
+  if (source) {
+    // A job's copy is taken from the version it was sprayed with when there is one, else the latest.
+    const sprayed = source.jobId != null ? deps.db.select({ s: jobs.sprayedPlanVersionId }).from(jobs).where(eq(jobs.id, source.jobId)).get()?.s : null;
+    const sprayedOk = sprayed != null && deps.db.select({ id: planVersions.id }).from(planVersions).where(and(eq(planVersions.id, sprayed), eq(planVersions.planId, source.id))).get();
+    const versionId = sprayedOk ? sprayed! : latestVersionRow(deps.db, source.id).id;
+    doc = { ...documentOf(doc.name, doc.description ?? null, loadPlanVersion(deps, versionId)), versionNote: `Copied from "${source.name}"` };
+  }
+  const now = deps.now();
+  const plan = deps.db.transaction((tx) => insertPlan(tx, ctx, doc, { jobId, isTemplate: false, copiedFromPlanId: source?.id ?? null, now }));
+  return getPlan(deps, ctx.actor, plan.id);
+}
+
+/**
+ * Saves the editor's whole document. The latest version is replaced in place unless it is locked (frozen at the
+ * booth, or a mix sheet refers to it): then version N+1 is made and the old one stays exactly as it was.
+ */
+export function savePlan(deps: AppDeps, ctx: RequestContext, planId: number, doc: PlanDocument): PlanDto {
+  const plan = findPlanFor(deps, ctx.actor, planId);
+  validateDocument(deps, doc);
+  const now = deps.now();
+  deps.db.transaction((tx) => {
+    const latest = latestVersionRow(tx, planId);
+    const before = loadPlanVersion({ db: tx }, latest.id);
+    const locked = versionLocked(tx, latest.id, latest.frozenAt);
+    let version = latest.version;
+    if (locked) {
+      version = latest.version + 1;
+      const v = tx
+        .insert(planVersions)
+        .values({ planId, version, note: doc.versionNote ?? null, createdBy: ctx.actor.id, createdAt: now })
+        .returning({ id: planVersions.id })
+        .get();
+      insertLayers(tx, v.id, doc.layers);
+    } else {
+      tx.delete(planLayers).where(eq(planLayers.versionId, latest.id)).run();
+      if (doc.versionNote !== undefined) tx.update(planVersions).set({ note: doc.versionNote }).where(eq(planVersions.id, latest.id)).run();
+      insertLayers(tx, latest.id, doc.layers);
+    }
+    tx.update(plans).set({ name: doc.name, description: doc.description ?? null, updatedAt: now }).where(eq(plans.id, planId)).run();
+    recordAudit(
+      tx,
+      ctx,
+      {
+        kind: "plan",
+        entity: plan.isTemplate ? "plan_template" : "plan",
+        entityId: planId,
+        action: locked ? "version_created" : "updated",
+        before: auditSummary(plan.name, before.version, before.layers),
+        after: auditSummary(doc.name, version, doc.layers),
+      },
+      now,
+    );
+  });
+  return getPlan(deps, ctx.actor, planId);
+}
+
+/** Only a plan that was never used (no frozen version, no mix sheet) can be deleted. */
+export function deletePlan(deps: AppDeps, ctx: RequestContext, planId: number) {
+  const plan = findPlanFor(deps, ctx.actor, planId);
+  const versions = deps.db.select().from(planVersions).where(eq(planVersions.planId, planId)).all();
+  if (versions.some((v) => versionLocked(deps.db, v.id, v.frozenAt))) {
+    throw conflict("This plan has been used at the booth or has mix sheets, so it is kept as the record", { plan: "In use" });
+  }
+  const now = deps.now();
+  deps.db.transaction((tx) => {
+    tx.delete(plans).where(eq(plans.id, planId)).run();
+    recordAudit(tx, ctx, { kind: "plan", entity: plan.isTemplate ? "plan_template" : "plan", entityId: planId, action: "deleted", before: { name: plan.name, jobId: plan.jobId } }, now);
+  });
+}
+
+/**
+ * Marks a plan version as used at the booth and points the job at it. Call inside the transaction that records
+ * the use. Returns true when this call froze the version (an audit entry of kind "plan" is then written).
+ */
+export function freezePlanVersion(tx: DbOrTx, versionId: number, jobId: number, now: number, ctx: RequestContext | null = null): boolean {
+  const v = tx.select({ frozenAt: planVersions.frozenAt, planId: planVersions.planId, version: planVersions.version }).from(planVersions).where(eq(planVersions.id, versionId)).get();
+  if (!v) throw notFound("Plan version");
+  tx.update(jobs).set({ sprayedPlanVersionId: versionId }).where(eq(jobs.id, jobId)).run();
+  if (v.frozenAt != null) return false;
+  tx.update(planVersions).set({ frozenAt: now }).where(eq(planVersions.id, versionId)).run();
+  recordAudit(tx, ctx, { kind: "plan", entity: "plan_version", entityId: versionId, action: "frozen", after: { planId: v.planId, version: v.version, jobId } }, now);
+  return true;
+}
+
+/** Saves a copy of a plan's latest version as a new template (e.g. a job's plan that turned out well). */
+export function copyAsTemplate(deps: AppDeps, ctx: RequestContext, planId: number, name: string | null | undefined): PlanDto {
+  const source = findPlanFor(deps, ctx.actor, planId);
+  const version = loadPlanVersion(deps, latestVersionRow(deps.db, planId).id);
+  const doc = { ...documentOf((name ?? `${source.name} (template)`).slice(0, 120), source.description, version), versionNote: `Copied from "${source.name}"` };
+  const now = deps.now();
+  const plan = deps.db.transaction((tx) => insertPlan(tx, ctx, doc, { jobId: null, isTemplate: true, copiedFromPlanId: source.id, now }));
+  return getPlan(deps, ctx.actor, plan.id);
+}

@@ -1,0 +1,56 @@
+import { Router, type RequestHandler } from "express";
+import multer from "multer";
+import type { AppDeps } from "../../deps";
+import { actorOf, allow } from "../../http/guard";
+import { body, params, query } from "../../http/validate";
+import { idParamsSchema } from "../../../shared/schemas/common.schema";
+import {
+  createUploadFieldsSchema,
+  listUploadsQuerySchema,
+  MAX_PHOTO_MB,
+  updateUploadInputSchema,
+} from "../../../shared/schemas/upload.schema";
+import { uploadMiddleware } from "./storage";
+import { createUpload, deleteUpload, listUploads, photoTooLarge, readUpload, updateUpload } from "./uploads.service";
+
+/** Multer in memory, with the size limit answered as a 413 that says what the limits are. */
+function receiveFile(): RequestHandler {
+  const receive = uploadMiddleware(MAX_PHOTO_MB * 1024 * 1024);
+  return (req, res, next) => {
+    receive(req, res, (err: unknown) => next(err instanceof multer.MulterError && err.code === "LIMIT_FILE_SIZE" ? photoTooLarge() : err));
+  };
+}
+
+export function uploadsRouter(deps: AppDeps) {
+  const r = Router();
+  /** multipart/form-data: file, ownerType, ownerId, caption, shareable. Photos only (JPEG, PNG, WebP). */
+  r.post("/", allow("staff"), receiveFile(), async (req, res) => {
+    res.status(201).json(await createUpload(deps, actorOf(res), body(req, createUploadFieldsSchema), req.file));
+  });
+  r.get("/", allow("signedIn"), (req, res) => {
+    res.json(listUploads(deps, actorOf(res), query(req, listUploadsQuerySchema)));
+  });
+  r.get("/:id", allow("signedIn"), (req, res) => {
+    sendFile(res, readUpload(deps, actorOf(res), params(req, idParamsSchema).id, "file"));
+  });
+  r.get("/:id/thumb", allow("signedIn"), (req, res) => {
+    sendFile(res, readUpload(deps, actorOf(res), params(req, idParamsSchema).id, "thumb"));
+  });
+  r.patch("/:id", allow("staff"), (req, res) => {
+    res.json(updateUpload(deps, actorOf(res), params(req, idParamsSchema).id, body(req, updateUploadInputSchema)));
+  });
+  r.delete("/:id", allow("staff"), (req, res) => {
+    deleteUpload(deps, actorOf(res), params(req, idParamsSchema).id);
+    res.status(204).end();
+  });
+  return r;
+}
+
+function sendFile(res: import("express").Response, file: { data: Buffer; mime: string; name: string }) {
+  res.set({
+    "Content-Type": file.mime,
+    "Cache-Control": "private, max-age=3600",
+    "Content-Disposition": `inline; filename="${file.name.replace(/"/g, "")}"`,
+  });
+  res.end(file.data);
+}

@@ -1,0 +1,189 @@
+import { z } from "zod";
+import { TEMP_UNITS, type TempUnit } from "../domain/booth";
+import type { LayerKind } from "../domain/layers";
+import type { PrepStatus } from "../domain/prep";
+import type { Caution } from "../domain/safety";
+import type { Stage } from "../domain/stages";
+import type { Substrate } from "../domain/substrates";
+import { idSchema, optionalText, requiredText } from "./common.schema";
+import { optionalNumber } from "./prep.schema";
+
+/** Booth air temperature limits by unit (a booth outside these is not one anyone sprays in). */
+export const TEMP_LIMITS: Record<TempUnit, { min: number; max: number }> = { C: { min: -10, max: 60 }, F: { min: 14, max: 140 } };
+
+const conditions = {
+  boothTemp: optionalNumber("Booth temperature", -10, 140),
+  tempUnit: z.enum(TEMP_UNITS, { error: "Temperature unit must be C or F" }).optional(),
+  humidityPct: optionalNumber("Humidity", 0, 100),
+  note: optionalText(500, "Note"),
+};
+
+function checkTemp(v: { boothTemp?: number | null; tempUnit?: TempUnit }, ctx: z.RefinementCtx) {
+  if (v.boothTemp == null) return;
+  if (!v.tempUnit) {
+    ctx.addIssue({ code: "custom", path: ["tempUnit"], message: "Say whether the temperature is °C or °F" });
+    return;
+  }
+  const { min, max } = TEMP_LIMITS[v.tempUnit];
+  if (v.boothTemp < min || v.boothTemp > max)
+    ctx.addIssue({ code: "custom", path: ["boothTemp"], message: `Booth temperature in °${v.tempUnit} must be between ${min} and ${max}` });
+}
+
+/** One tap on the booth card: the coat just sprayed. The time and painter come from the server. */
+export const createCoatLogInputSchema = z
+  .object({
+    jobId: idSchema,
+    layerId: idSchema,
+    coatNumber: z.coerce.number({ error: "Coat number must be a number" }).int("Coat number is a whole number").min(1, "Coats start at 1").max(50, "At most 50 coats"),
+    ...conditions,
+    /** Needed only when an item's prep is not signed off before the first coat. */
+    prepOverrideReason: optionalText(500, "Reason"),
+  })
+  .superRefine(checkTemp);
+export type CreateCoatLogInput = z.input<typeof createCoatLogInputSchema>;
+
+/** A correction is a new entry naming what it corrects; the original is never changed. */
+export const correctCoatLogInputSchema = z
+  .object({
+    reason: requiredText(500, "Reason"),
+    /** The coat was not sprayed (logged by mistake): it stops counting. */
+    void: z.boolean({ error: "void must be true or false" }).default(false),
+    /** The real time of the coat, when the tap came late. */
+    at: z.iso.datetime({ error: "Use a date and time like 2026-12-31T10:15:00Z", offset: true }).optional(),
+    ...conditions,
+  })
+  .superRefine(checkTemp)
+  .refine((v) => v.void || v.at !== undefined || v.boothTemp !== undefined || v.humidityPct !== undefined || v.note !== undefined, {
+    path: ["reason"],
+    message: "Say what is corrected: the time, the temperature, the humidity or the note, or that the coat did not happen",
+  });
+export type CorrectCoatLogInput = z.input<typeof correctCoatLogInputSchema>;
+
+export const listCoatLogsQuerySchema = z.object({ jobId: idSchema });
+
+export type CoatLogDto = {
+  id: number;
+  jobId: number;
+  layerId: number;
+  layerName: string;
+  coatNumber: number;
+  /** When the coat was sprayed. */
+  at: string;
+  /** When this entry was written. */
+  loggedAt: string;
+  painterName: string | null;
+  boothTemp: number | null;
+  tempUnit: TempUnit | null;
+  humidityPct: number | null;
+  note: string | null;
+  mixSheetId: number | null;
+  prepOverrideReason: string | null;
+  correctsId: number | null;
+  correctionReason: string | null;
+  voids: boolean;
+  /** counts: an original still in force; corrected: superseded by a later correction; voided; correction: the correcting entry. */
+  status: "counts" | "corrected" | "voided" | "correction";
+};
+
+export type BoothComponentDto = {
+  label: string;
+  materialCode: string;
+  materialName: string;
+  parts: number | null;
+  percent: number | null;
+  percentOf: string[] | null;
+};
+
+export type BoothLayerDto = {
+  id: number;
+  position: number;
+  kind: LayerKind;
+  name: string;
+  coats: number;
+  flashMinutes: number;
+  minutesPerCoat: number;
+  dryMinutes: number;
+  gunTip: string | null;
+  pressurePsi: number | null;
+  overlapPct: number | null;
+  notes: string | null;
+  components: BoothComponentDto[];
+  cautions: Caution[];
+  /** A prep layer is done through the item prep records, not logged coat by coat. */
+  isPrep: boolean;
+  coatsDone: number;
+  status: "done" | "current" | "upcoming";
+};
+
+export type BoothMixSheetDto = {
+  id: number;
+  layerId: number;
+  status: "draft" | "mixed" | "void";
+  /** Batch volume, mL, and the unit the painter measures in. */
+  volumeMl: number;
+  unit: string;
+  mixedAt: string | null;
+  mixedByName: string | null;
+  potLifeMinutes: number | null;
+  potLifeEndsAt: string | null;
+  /** Planned volume in mL and in the sheet's unit; what was really poured (mL). */
+  lines: { label: string; plannedMl: number; plannedInUnit: number; actualMl: number | null; lotNumber: string | null }[];
+};
+
+export type BoothTimerDto = { kind: "flash" | "dry"; startedAt: string; endsAt: string };
+
+export type BoothNextDto =
+  | { state: "no_plan" }
+  | { state: "no_layers" }
+  | {
+      state: "spray";
+      layerId: number;
+      layerName: string;
+      layerKind: LayerKind;
+      coat: number;
+      of: number;
+      isLastLayer: boolean;
+      isFirstCoatOfJob: boolean;
+      timer: BoothTimerDto | null;
+      layerDoneAt: string;
+    }
+  | { state: "done"; lastCoatAt: string; timer: BoothTimerDto };
+
+export type BoothDto = {
+  /** The server's clock when this was built, so a tablet with a wrong clock still counts down correctly. */
+  serverNow: string;
+  job: {
+    id: number;
+    title: string;
+    stage: Stage;
+    customerName: string;
+    dueDate: string | null;
+    assignedPainterName: string | null;
+    approvedPanel: { id: number; label: string; thumbUrl: string | null } | null;
+  };
+  /** Whether this user may log coats here (painters on their jobs and the owner; estimators read only). */
+  canLog: boolean;
+  items: { id: number; name: string; substrate: Substrate; needsAdhesionPromoter: boolean; prepStatus: PrepStatus; prepRecordId: number | null }[];
+  prepReady: boolean;
+  plan: { planId: number; name: string; versionId: number; version: number; frozen: boolean } | null;
+  layers: BoothLayerDto[];
+  mixSheets: BoothMixSheetDto[];
+  /** The latest batch recorded as mixed for the current layer, with its pot-life end. */
+  openBatch: { mixSheetId: number; layerId: number; mixedAt: string; potLifeEndsAt: string | null } | null;
+  coatLogs: CoatLogDto[];
+  next: BoothNextDto;
+  /** Booth conditions of the last entry (this job's, else the shop's), to prefill the next one. */
+  lastConditions: { boothTemp: number | null; tempUnit: TempUnit | null; humidityPct: number | null } | null;
+  prepOverrides: { coatLogId: number; reason: string; byName: string | null; at: string }[];
+};
+
+/** The printable job ticket: what the booth needs on paper, and a QR code that opens the booth card. */
+export type JobTicketDto = {
+  job: { id: number; title: string; stage: Stage; customerName: string; dueDate: string | null; assignedPainterName: string | null };
+  items: { name: string; substrate: Substrate; surfaceArea: number; areaUnit: "m2" | "ft2" }[];
+  layers: { position: number; kind: LayerKind; name: string; coats: number; flashMinutes: number; dryMinutes: number; cautions: boolean }[];
+  boothUrl: string;
+  /** PNG data URL of the QR code for boothUrl. */
+  qrDataUrl: string;
+  printedAt: string;
+};

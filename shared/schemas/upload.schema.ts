@@ -1,0 +1,66 @@
+import { z } from "zod";
+import { idSchema, optionalText } from "./common.schema";
+
+/** What an upload belongs to. Photos go on jobs, items, prep records, coat logs and test panels; data sheets on materials. */
+export const UPLOAD_OWNER_TYPES = ["job", "job_item", "prep_record", "coat_log", "panel", "material"] as const;
+export type UploadOwnerType = (typeof UPLOAD_OWNER_TYPES)[number];
+export const PHOTO_OWNER_TYPES = ["job", "job_item", "prep_record", "coat_log", "panel"] as const satisfies readonly UploadOwnerType[];
+
+export const UPLOAD_KINDS = ["photo", "tds", "sds"] as const;
+export type UploadKind = (typeof UPLOAD_KINDS)[number];
+
+/** Photo upload limit; the server answers 413 with it in the message. */
+export const MAX_PHOTO_MB = 15;
+
+/** Multipart fields arrive as strings: "true"/"false"/"on" → boolean. */
+const formBoolean = z.preprocess((v) => (v === "true" || v === "on" || v === "1" ? true : v === "false" || v === "0" || v === "" ? false : v), z.boolean({ error: "Must be true or false" }));
+
+/** Photos only: data sheets are added on the material's own page (/api/materials/:id/files). */
+export const createUploadFieldsSchema = z.object({
+  ownerType: z.enum(PHOTO_OWNER_TYPES, { error: `ownerType must be one of: ${PHOTO_OWNER_TYPES.join(", ")}` }),
+  ownerId: idSchema,
+  caption: optionalText(200, "Caption"),
+  shareable: formBoolean.optional(),
+});
+export type CreateUploadFields = z.input<typeof createUploadFieldsSchema>;
+
+export const listUploadsQuerySchema = z
+  .object({
+    jobId: idSchema.optional(),
+    ownerType: z.enum(UPLOAD_OWNER_TYPES, { error: `ownerType must be one of: ${UPLOAD_OWNER_TYPES.join(", ")}` }).optional(),
+    ownerId: idSchema.optional(),
+  })
+  .refine((q) => q.jobId !== undefined || (q.ownerType !== undefined && q.ownerId !== undefined), {
+    path: ["jobId"],
+    message: "Give jobId, or ownerType with ownerId",
+  });
+export type ListUploadsQuery = z.infer<typeof listUploadsQuerySchema>;
+
+export const updateUploadInputSchema = z
+  .object({
+    shareable: z.boolean({ error: "shareable must be true or false" }).optional(),
+    caption: optionalText(200, "Caption"),
+  })
+  .refine((v) => v.shareable !== undefined || v.caption !== undefined, { path: ["shareable"], message: "Nothing to change" });
+export type UpdateUploadInput = z.input<typeof updateUploadInputSchema>;
+
+export type UploadDto = {
+  id: number;
+  ownerType: UploadOwnerType;
+  ownerId: number;
+  jobId: number | null;
+  kind: UploadKind;
+  mime: string;
+  /** Bytes. */
+  size: number;
+  originalName: string;
+  width: number | null;
+  height: number | null;
+  caption: string | null;
+  shareable: boolean;
+  uploadedByName: string | null;
+  createdAt: string;
+  /** Same-origin addresses of the file and its thumbnail (null for documents). */
+  url: string;
+  thumbUrl: string | null;
+};

@@ -1,0 +1,240 @@
+import { useEffect, useState } from "react";
+import { Link } from "react-router";
+import { useForm } from "react-hook-form";
+import { zodResolver } from "@hookform/resolvers/zod";
+import type { z } from "zod";
+import { CheckCircle2, PaintBucket, TriangleAlert } from "lucide-react";
+import { LAYER_KIND_LABELS } from "@shared/domain/layers";
+import { createCoatLogInputSchema, type BoothDto } from "@shared/schemas/booth.schema";
+import { isApiError } from "@/lib/api-client";
+import { applyServerErrors } from "@/lib/form-errors";
+import { Alert } from "@/components/ui/alert";
+import { Button } from "@/components/ui/button";
+import { TextareaField } from "@/components/ui/form/textarea-field";
+import { TextField } from "@/components/ui/form/text-field";
+import { SafetyCautions } from "@/components/ui/safety-cautions";
+import { toast } from "@/components/ui/toast/toast-store";
+import { cn } from "@/utils/cn";
+import { useLogCoat } from "../api/booth.queries";
+import { formatMinutes } from "../hooks/use-server-now";
+import { ConditionInput } from "./condition-input";
+import { formatClock, PotLifeTimer, StepTimer } from "./booth-timers";
+
+type LogInput = z.input<typeof createCoatLogInputSchema>;
+type LogValues = z.output<typeof createCoatLogInputSchema>;
+const FIELDS = ["boothTemp", "tempUnit", "humidityPct", "note", "prepOverrideReason", "coatNumber"] as const;
+
+/** The top of the booth card: what to spray next in large type, its timers and cautions, and the one-tap log. */
+export function NextStepPanel({ card, now, prepPath }: { card: BoothDto; now: number; prepPath: string }) {
+  const next = card.next;
+  const current = next.state === "spray" ? card.layers.find((l) => l.id === next.layerId) : undefined;
+
+  if (next.state === "no_plan" || next.state === "no_layers") {
+    return (
+      <section aria-labelledby="next-step-heading" className="rounded-2xl border-2 border-ink-800 bg-white p-5 shadow-card">
+        <h2 id="next-step-heading" className="text-3xl font-bold text-ink-950">
+          {next.state === "no_plan" ? "No finish plan yet" : "The plan has no layers"}
+        </h2>
+        <p className="mt-2 text-lg text-primer-800">The office adds the finish plan before the job comes to the booth.</p>
+      </section>
+    );
+  }
+
+  if (next.state === "done") {
+    return (
+      <section aria-labelledby="next-step-heading" className="rounded-2xl border-2 border-emerald-700 bg-emerald-50 p-5 shadow-card">
+        <h2 id="next-step-heading" className="flex items-center gap-3 text-3xl font-bold text-emerald-950 sm:text-4xl">
+          <CheckCircle2 aria-hidden className="size-9 shrink-0" />
+          Every coat is logged
+        </h2>
+        <p className="mt-2 text-lg text-emerald-950">Last coat at {formatClock(next.lastCoatAt)}. The job is curing.</p>
+        <div className="mt-4 max-w-xl">
+          <StepTimer timer={next.timer} now={now} nextLabel="the finish can be handled" />
+        </div>
+      </section>
+    );
+  }
+
+  const nextLabel = `coat ${next.coat} of ${next.layerName}`;
+  const batch = card.openBatch;
+  return (
+    <section aria-labelledby="next-step-heading" className="rounded-2xl border-2 border-ink-900 bg-white shadow-raised">
+      <div className="rounded-t-2xl bg-ink-950 px-5 py-4 text-white">
+        <h2 id="next-step-heading" className="text-sm font-semibold tracking-wide text-ink-100 uppercase">
+          Next step
+        </h2>
+        <p className="mt-1 text-5xl leading-none font-bold tracking-tight sm:text-6xl" data-testid="next-coat">
+          Coat {next.coat} of {next.of}
+        </p>
+        <p className="mt-2 text-3xl font-semibold sm:text-4xl" data-testid="next-layer">
+          {next.layerName}
+        </p>
+        <p className="mt-1 text-lg text-ink-100">
+          {LAYER_KIND_LABELS[next.layerKind]}
+          {current ? (
+            <>
+              {" · "}
+              {[current.gunTip && `tip ${current.gunTip}`, current.pressurePsi != null && `${current.pressurePsi} psi`, current.overlapPct != null && `${current.overlapPct}% overlap`, `flash ${formatMinutes(current.flashMinutes)}`]
+                .filter(Boolean)
+                .join(" · ")}
+            </>
+          ) : null}
+        </p>
+      </div>
+      <div className="flex flex-col gap-4 p-4 sm:p-5">
+        {current && current.cautions.length > 0 ? <SafetyCautions cautions={current.cautions} className="text-base" /> : null}
+        <div className={cn("grid gap-3", batch ? "sm:grid-cols-2" : "")}>
+          <StepTimer timer={next.timer} now={now} nextLabel={nextLabel} />
+          {batch ? <PotLifeTimer endsAt={batch.potLifeEndsAt} mixedAt={batch.mixedAt} now={now} /> : null}
+        </div>
+        {!batch && current && current.components.length > 0 ? (
+          <Alert tone="warning" title="No batch recorded as mixed for this layer">
+            Mix it from the mix sheet first, so the pot life is timed and the batch is on the record.
+          </Alert>
+        ) : null}
+        {card.canLog ? (
+          <LogCoatForm key={`${next.layerId}-${next.coat}`} card={card} prepPath={prepPath} />
+        ) : (
+          <Alert tone="info" title="Read only">
+            Coats are logged by the job&apos;s painter or the owner.
+          </Alert>
+        )}
+      </div>
+    </section>
+  );
+}
+
+function LogCoatForm({ card, prepPath }: { card: BoothDto; prepPath: string }) {
+  const next = card.next;
+  if (next.state !== "spray") throw new Error("LogCoatForm needs a coat to log");
+  const log = useLogCoat(card.job.id);
+  const [problem, setProblem] = useState<string | null>(null);
+  const needsOverride = next.isFirstCoatOfJob && !card.prepReady;
+  const [overriding, setOverriding] = useState(false);
+  const last = card.lastConditions;
+  const {
+    register,
+    handleSubmit,
+    setError,
+    setValue,
+    getValues,
+    watch,
+    resetField,
+    formState: { errors, isSubmitting },
+  } = useForm<LogInput, unknown, LogValues>({
+    resolver: zodResolver(createCoatLogInputSchema),
+    defaultValues: {
+      jobId: card.job.id,
+      layerId: next.layerId,
+      coatNumber: next.coat,
+      boothTemp: last?.boothTemp != null ? String(last.boothTemp) : "",
+      tempUnit: last?.tempUnit ?? "C",
+      humidityPct: last?.humidityPct != null ? String(last.humidityPct) : "",
+      note: "",
+      prepOverrideReason: "",
+    },
+  });
+  const unit = watch("tempUnit");
+
+  // Conditions carry over from the latest entry when the card refreshes.
+  useEffect(() => {
+    if (last?.boothTemp != null && getValues("boothTemp") === "") setValue("boothTemp", String(last.boothTemp));
+  }, [last, getValues, setValue]);
+
+  const step = (field: "boothTemp" | "humidityPct", delta: number, fallback: number) => {
+    const raw = Number(getValues(field));
+    const value = Number.isFinite(raw) && String(getValues(field)).trim() !== "" ? raw + delta : fallback;
+    setValue(field, String(Math.round(value * 10) / 10), { shouldValidate: true });
+  };
+
+  const submit = handleSubmit(async (values) => {
+    setProblem(null);
+    try {
+      const { jobId: _jobId, ...rest } = values;
+      const saved = await log.mutateAsync({ ...rest, prepOverrideReason: needsOverride ? rest.prepOverrideReason : undefined });
+      const entry = saved.coatLogs.filter((c) => c.status !== "correction").at(-1);
+      toast.success(`Coat ${next.coat} of ${next.layerName} logged${entry ? ` at ${formatClock(entry.at)}` : ""}`);
+      resetField("note");
+    } catch (error) {
+      if (isApiError(error) && error.fields.prepOverrideReason) setOverriding(true);
+      setProblem(applyServerErrors(error, setError, FIELDS));
+    }
+  });
+
+  const blocked = needsOverride && !overriding;
+  return (
+    <form onSubmit={submit} noValidate className="flex flex-col gap-4" aria-label="Log a coat">
+      {problem ? <Alert tone="error">{problem}</Alert> : null}
+      {needsOverride ? (
+        <Alert tone="warning" title="Prep is not signed off">
+          <p>
+            {card.items
+              .filter((i) => i.prepStatus !== "signed_off")
+              .map((i) => i.name)
+              .join(", ")}{" "}
+            {card.items.filter((i) => i.prepStatus !== "signed_off").length === 1 ? "has" : "have"} no prep sign-off.{" "}
+            <Link to={prepPath} className="font-semibold underline underline-offset-2">
+              Open the prep records
+            </Link>
+            .
+          </p>
+          {!overriding ? (
+            <Button variant="secondary" size="lg" className="mt-3" icon={<TriangleAlert aria-hidden className="size-5" />} onClick={() => setOverriding(true)}>
+              Spray before sign-off…
+            </Button>
+          ) : null}
+        </Alert>
+      ) : null}
+      {needsOverride && overriding ? (
+        <TextareaField
+          label="Reason for spraying before prep sign-off"
+          hint="Kept on the job's record and shown to the office."
+          required
+          rows={2}
+          className="text-lg"
+          error={errors.prepOverrideReason?.message}
+          {...register("prepOverrideReason")}
+        />
+      ) : null}
+      <div className="grid gap-4 sm:grid-cols-2">
+        <div className="flex flex-col gap-2">
+          <ConditionInput
+            label="Booth temperature"
+            suffix={`°${unit ?? "C"}`}
+            error={errors.boothTemp?.message ?? errors.tempUnit?.message}
+            onStep={(d) => step("boothTemp", d, unit === "F" ? 70 : 21)}
+            {...register("boothTemp")}
+          />
+          <fieldset className="flex gap-2">
+            <legend className="sr-only">Temperature unit</legend>
+            {(["C", "F"] as const).map((u) => (
+              <label
+                key={u}
+                className={cn(
+                  "grid min-h-12 flex-1 cursor-pointer place-items-center rounded-xl border-2 text-lg font-semibold has-focus-visible:outline-3 has-focus-visible:outline-offset-2 has-focus-visible:outline-candy-600",
+                  unit === u ? "border-ink-900 bg-ink-900 text-white" : "border-primer-400 bg-white text-ink-950",
+                )}
+              >
+                <input type="radio" value={u} className="sr-only" {...register("tempUnit")} />°{u}
+              </label>
+            ))}
+          </fieldset>
+        </div>
+        <ConditionInput label="Humidity" suffix="%" error={errors.humidityPct?.message} onStep={(d) => step("humidityPct", d, 50)} {...register("humidityPct")} />
+      </div>
+      <TextField label="Note (optional)" placeholder="e.g. light orange peel on the left side" className="min-h-12 text-lg" error={errors.note?.message} {...register("note")} />
+      <Button
+        type="submit"
+        size="lg"
+        block
+        pending={isSubmitting}
+        disabled={blocked}
+        icon={<PaintBucket aria-hidden className="size-7" />}
+        className="min-h-20 rounded-2xl text-2xl"
+      >
+        Log coat {next.coat} of {next.of}
+      </Button>
+      <p className="text-center text-sm text-primer-700">The time and your name are recorded by the server when you tap.</p>
+    </form>
+  );
+}

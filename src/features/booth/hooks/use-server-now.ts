@@ -1,0 +1,34 @@
+import { useEffect, useState } from "react";
+
+/**
+ * The server's "now", ticking every `intervalMs`. The offset between the server clock (sent with the card) and
+ * this device is measured when the card arrives, so a tablet with a wrong clock still counts down correctly.
+ * Nothing here is kept beyond the page: timers are always recomputed from stored times.
+ */
+export function useServerNow(serverNowIso: string, receivedAt: number, intervalMs = 1000): number {
+  const offset = Date.parse(serverNowIso) - receivedAt;
+  const [local, setLocal] = useState(() => Date.now());
+  useEffect(() => {
+    const id = window.setInterval(() => setLocal(Date.now()), intervalMs);
+    return () => window.clearInterval(id);
+  }, [intervalMs]);
+  return local + offset;
+}
+
+/** "4:05", "1:02:09"; negative durations are shown as their size. */
+export function formatCountdown(ms: number): string {
+  const total = Math.floor(Math.abs(ms) / 1000);
+  const h = Math.floor(total / 3600);
+  const m = Math.floor((total % 3600) / 60);
+  const s = total % 60;
+  const pad = (n: number) => String(n).padStart(2, "0");
+  return h > 0 ? `${h}:${pad(m)}:${pad(s)}` : `${m}:${pad(s)}`;
+}
+
+/** "12 min", "1 h 5 min" for a plain duration in minutes. */
+export function formatMinutes(minutes: number): string {
+  if (minutes < 60) return `${Math.round(minutes * 10) / 10} min`;
+  const h = Math.floor(minutes / 60);
+  const m = Math.round(minutes % 60);
+  return m ? `${h} h ${m} min` : `${h} h`;
+}
