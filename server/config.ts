@@ -16,6 +16,9 @@ const envSchema = z.object({
   /** Demo mode shows the outbox to the owner. On by default with the local stand-ins. */
   DEMO_MODE: z.enum(["0", "1"]).optional(),
   TRUST_PROXY: z.enum(["0", "1"]).default("0"),
+  /** Sign-in attempts allowed per address and failed attempts per account in 15 minutes. */
+  SIGNIN_LIMIT_PER_ADDRESS: z.coerce.number().int().positive().default(30),
+  SIGNIN_LIMIT_PER_ACCOUNT: z.coerce.number().int().positive().default(8),
   /** Secret for signed links (at least 32 characters). When unset, one is generated once and kept in DATA_DIR/secret. */
   APP_SECRET: z.string().min(32, "APP_SECRET must be at least 32 characters").optional(),
   /** Card payments. Without STRIPE_SECRET_KEY the local payments stand-in is started and used instead. */

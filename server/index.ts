@@ -50,6 +50,7 @@ export async function main() {
     dataDir: env.dataDir,
     clientDir: fileURLToPath(new URL("../dist", import.meta.url)),
     trustProxy: env.TRUST_PROXY === "1",
+    rateLimits: { signIn: { perAddress: env.SIGNIN_LIMIT_PER_ADDRESS, perAccount: env.SIGNIN_LIMIT_PER_ACCOUNT, windowMs: 15 * 60_000 } },
   });
 
   const server = app.listen(env.PORT, () => {

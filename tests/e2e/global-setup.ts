@@ -42,7 +42,8 @@ export default async function setup(project: TestProject) {
   const port = 4300 + Math.floor(Math.random() * 500);
   server = spawn(path.join(root, "node_modules/.bin/tsx"), ["server/index.ts"], {
     cwd: root,
-    env: { ...process.env, PORT: String(port), DATA_DIR: dataDir, DEMO_MODE: "1" },
+    // Every spec signs in from 127.0.0.1, so the per-address sign-in limit is raised for the run.
+    env: { ...process.env, PORT: String(port), DATA_DIR: dataDir, DEMO_MODE: "1", SIGNIN_LIMIT_PER_ADDRESS: "10000" },
     stdio: ["ignore", "inherit", "inherit"],
     detached: true,
   });

@@ -7,7 +7,7 @@ export function healthRouter(deps: AppDeps) {
   const r = Router();
   r.get("/", allow("public"), (_req, res) => {
     const row = deps.db.get<{ ok: number }>(sql`select 1 as ok`);
-    res.json({ ok: row?.ok === 1, time: new Date(deps.now()).toISOString() });
+    res.json({ ok: row?.ok === 1, time: new Date(deps.now()).toISOString(), demoMode: deps.demoMode });
   });
   return r;
 }
