@@ -23,6 +23,7 @@ import { mixRouter } from "./modules/mix/mix.router";
 import { settingsRouter } from "./modules/settings/settings.router";
 import { auditRouter } from "./modules/audit/audit.router";
 import { complianceRouter } from "./modules/compliance/compliance.router";
+import { dashboardRouter } from "./modules/dashboard/dashboard.router";
 
 import { materialsRouter } from "./modules/materials/materials.router";
 import { jobPlanRouter, plansRouter } from "./modules/plans/plans.router";
@@ -116,6 +117,7 @@ export function createApp(options: CreateAppOptions) {
     ["/settings", settingsRouter(deps)],
     ["/audit", auditRouter(deps)],
     ["/compliance", complianceRouter(deps)],
+    ["/dashboard", dashboardRouter(deps)],
     ["/uploads", uploadsRouter(deps)],
     ["/prep-records", prepRouter(deps)],
     ["/panels", panelsRouter(deps)],
