@@ -406,6 +406,9 @@ export async function startPaymentsStandIn(options: PaymentsStandInOptions = {})
 </body></html>`;
   };
 
+  app.get("/favicon.ico", (_req, res) => {
+    res.status(204).end();
+  });
   app.get("/pay/:id", (req, res) => {
     const s = sessions.get(req.params.id);
     if (!s) return res.status(404).type("text/plain").send("This checkout does not exist.");
@@ -417,7 +420,8 @@ export async function startPaymentsStandIn(options: PaymentsStandInOptions = {})
     if (!s) return res.status(404).type("text/plain").send("This checkout does not exist.");
     const outcome = pay(s.id, String(req.body?.card ?? ""));
     if (outcome.result === "paid") return res.redirect(303, s.success_url.replace("{CHECKOUT_SESSION_ID}", s.id));
-    res.status(outcome.result === "declined" ? 402 : 400).type("html").send(page(s, { tone: "error", text: outcome.message ?? "Payment failed." }));
+    // Shown on the same page, as a hosted checkout does (a normal 200 page; the outcome is in the words).
+    res.status(200).type("html").send(page(s, { tone: "error", text: outcome.message ?? "Payment failed." }));
   });
 
   // ---- test controls ----
@@ -429,6 +433,7 @@ export async function startPaymentsStandIn(options: PaymentsStandInOptions = {})
     reset() {
       Object.assign(mode, { copies: 1, hold: false, reverse: false, paidAmountOverride: null });
       held.length = 0;
+      deliveries.length = 0;
     },
     pay,
     flush,

@@ -51,3 +51,17 @@ export const PURCHASE_UNIT_SYMBOLS: Record<PurchaseUnit, string> = {
   oz: "oz",
   lb: "lb",
 };
+
+/** Purchase units in words, for forms and facts ("US quart (qt)"). */
+export const PURCHASE_UNIT_NAMES: Record<PurchaseUnit, string> = {
+  mL: "millilitre (mL)",
+  L: "litre (L)",
+  floz: "US fluid ounce (fl oz)",
+  pint: "US pint (pt)",
+  quart: "US quart (qt)",
+  gallon: "US gallon (gal)",
+  g: "gram (g)",
+  kg: "kilogram (kg)",
+  oz: "ounce, by weight (oz)",
+  lb: "pound (lb)",
+};

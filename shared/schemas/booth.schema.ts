@@ -181,7 +181,8 @@ export type BoothDto = {
 export type JobTicketDto = {
   job: { id: number; title: string; stage: Stage; customerName: string; dueDate: string | null; assignedPainterName: string | null };
   items: { name: string; substrate: Substrate; surfaceArea: number; areaUnit: "m2" | "ft2" }[];
-  layers: { position: number; kind: LayerKind; name: string; coats: number; flashMinutes: number; dryMinutes: number; cautions: boolean }[];
+  /** `cautions`: titles of the layer's hazards (isocyanates, flammable solvents); empty when none. */
+  layers: { position: number; kind: LayerKind; name: string; coats: number; flashMinutes: number; dryMinutes: number; cautions: string[] }[];
   boothUrl: string;
   /** PNG data URL of the QR code for boothUrl. */
   qrDataUrl: string;

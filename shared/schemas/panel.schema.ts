@@ -108,6 +108,7 @@ export type PanelDto = {
   lab: Lab | null;
   sprayedOn: string | null;
   notes: string | null;
+  createdById: string | null;
   createdByName: string | null;
   createdAt: string;
   photo: UploadDto | null;

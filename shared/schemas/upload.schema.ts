@@ -58,6 +58,7 @@ export type UploadDto = {
   height: number | null;
   caption: string | null;
   shareable: boolean;
+  uploadedById: string | null;
   uploadedByName: string | null;
   createdAt: string;
   /** Same-origin addresses of the file and its thumbnail (null for documents). */

@@ -1,6 +1,6 @@
 import type { LucideIcon } from "lucide-react";
-import { CircleUserRound, Columns3, FlaskConical, Inbox, Layers, ListChecks, Package, ReceiptText, Users, Contact } from "lucide-react";
-import type { Access } from "@shared/domain/roles";
+import { CircleUserRound, Columns3, FlaskConical, Inbox, Layers, ListChecks, Package, ReceiptText, Users, Contact, SprayCan, Palette } from "lucide-react";
+import type { Access, Role } from "@shared/domain/roles";
 import { paths } from "./paths";
 
 export type NavItem = {
@@ -13,17 +13,21 @@ export type NavItem = {
   demoOnly?: boolean;
   /** Planned: listed here so the slot is obvious, hidden until its screen exists. */
   planned?: boolean;
+  /** Narrower than the access group: only these roles see the entry (the route itself may still allow more). */
+  roles?: readonly Role[];
 };
 
 /** The staff navigation, in order. A role sees the items its access group allows. */
 export const STAFF_NAV: NavItem[] = [
   { label: "Board", to: paths.board, icon: Columns3, access: "staff" },
   { label: "Jobs", to: paths.jobs, icon: ListChecks, access: "staff" },
+  { label: "Booth", to: paths.boothIndex, icon: SprayCan, access: "staff", roles: ["painter", "owner"] },
   { label: "Customers", to: paths.customers, icon: Contact, access: "office" },
-  { label: "Quotes", to: "/quotes", icon: ReceiptText, access: "office", planned: true },
+  { label: "Quotes", to: paths.quotes, icon: ReceiptText, access: "office" },
   { label: "Plans", to: paths.plans, icon: Layers, access: "staff" },
   { label: "Mix calculator", to: paths.mixCalculator, icon: FlaskConical, access: "staff" },
   { label: "Materials", to: paths.materials, icon: Package, access: "staff" },
+  { label: "Test panels", to: paths.panels, icon: Palette, access: "staff" },
   { label: "Users", to: paths.users, icon: Users, access: "owner" },
   { label: "Outbox", to: paths.outbox, icon: Inbox, access: "owner", demoOnly: true },
   { label: "Account", to: paths.account, icon: CircleUserRound, access: "staff" },
@@ -32,5 +36,6 @@ export const STAFF_NAV: NavItem[] = [
 /** The customer portal's navigation. */
 export const PORTAL_NAV: NavItem[] = [
   { label: "My jobs", to: paths.portal, icon: ListChecks, access: "customer" },
+  { label: "My quotes", to: paths.portalQuotes, icon: ReceiptText, access: "customer" },
   { label: "Account", to: paths.portalAccount, icon: CircleUserRound, access: "customer" },
 ];

@@ -26,8 +26,23 @@ export const paths = {
   jobPlan: (jobId: number) => `/jobs/${jobId}/plan`,
   mixSheet: (id: number) => `/mix-sheets/${id}`,
   mixCalculator: "/mix",
+  boothIndex: "/booth",
+  booth: (jobId: number) => `/booth/${jobId}`,
+  jobPrep: (jobId: number) => `/jobs/${jobId}/prep`,
+  jobTicket: (jobId: number) => `/jobs/${jobId}/ticket`,
+  panels: "/panels",
+  panel: (id: number) => `/panels/${id}`,
+  newPanel: (jobId?: number) => (jobId ? `/panels/new?jobId=${jobId}` : "/panels/new"),
+  panelsCompare: (ids: number[]) => `/panels/compare?ids=${ids.join(",")}`,
+  panelsLadder: (ground: string, candy: string) => `/panels/ladder?${new URLSearchParams({ ground, candy })}`,
+  quotes: "/quotes",
+  quote: (id: number) => `/quotes/${id}`,
   portal: "/portal",
   portalAccount: "/portal/account",
+  portalQuotes: "/portal/quotes",
+  portalQuote: (id: number) => `/portal/quotes/${id}`,
+  portalJob: (id: number) => `/portal/jobs/${id}`,
+  portalLink: (token: string) => `/portal/link/${token}`,
 } as const;
 
 /** Where each role lands after signing in. */

@@ -293,7 +293,8 @@ describe("GET /api/jobs/:id/ticket", () => {
     expect(res.status).toBe(200);
     expect(res.body.boothUrl).toBe(`http://coatwright.test/booth/${s.jobA.id}`);
     expect(res.body.layers.map((l: { name: string }) => l.name)).toEqual(["Grey sealer", "Candy garnet", "2K clear"]);
-    expect(res.body.layers[2].cautions).toBe(true);
+    expect(res.body.layers[2].cautions).toEqual(["Isocyanates (2K hardener)", "Flammable solvents"]);
+    expect(res.body.layers[0].cautions).toEqual([]);
     const png = Buffer.from(res.body.qrDataUrl.replace(/^data:image\/png;base64,/, ""), "base64");
     const meta = await sharp(png).metadata();
     expect(meta).toMatchObject({ format: "png", width: 320, height: 320 });

@@ -216,3 +216,17 @@ describe("listing and reach", () => {
     expect((await s.as("painter").get(`/api/mix-sheets/${f.sheet.id}`)).body).toMatchObject({ planChanged: true, planVersion: 1 });
   });
 });
+
+describe("a job with batches", () => {
+  it("cannot be deleted even when moved back to inquiry (409, not a server error); its records stay", async () => {
+    const s = await makeShop();
+    const f = finishFixtures(s);
+    expect((await s.as("painter").post(`/api/mix-sheets/${f.sheet.id}/record`).send({ lines: [] })).status).toBe(200);
+    await s.as("owner").post(`/api/jobs/${s.jobA.id}/stage`).send({ stage: "booked" });
+    await s.as("owner").post(`/api/jobs/${s.jobA.id}/stage`).send({ stage: "quoted" });
+    await s.as("owner").post(`/api/jobs/${s.jobA.id}/stage`).send({ stage: "inquiry" });
+    const res = await s.as("owner").delete(`/api/jobs/${s.jobA.id}`);
+    expect(res.status).toBe(409);
+    expect((await s.as("owner").get(`/api/mix-sheets/${f.sheet.id}`)).body.status).toBe("mixed");
+  });
+});

@@ -283,7 +283,8 @@ export function seedMaterials(ctx: SeedContext) {
     let plan = startJobPlan(deps, estimator, job.id, { fromPlanId: template.id });
     // Fit the copied recipe to the job's own colours: toner and ground, solid colour, flake in the ground.
     const fitted = fitLayers(m, template.id === candyMetallic.id ? 0 : template.id === solid.id ? 1 : template.id === candyPlastic.id ? 2 : 3, finish);
-    if (fitted) plan = savePlan(deps, estimator, plan.id, planDocumentSchema.parse({ name: plan.name, description: plan.description, layers: fitted }));
+    const finishWords = job.title.split(", ").slice(1).join(", ");
+    if (fitted) plan = savePlan(deps, estimator, plan.id, planDocumentSchema.parse({ name: plan.name, description: `Fitted for this job: ${finishWords}.`, layers: fitted }));
     if (!SPRAYED_STAGES.includes(job.stage) || !job.painterId) continue;
 
     // Batches: one per mixed layer, on the day the job went into the booth; the painter records them.

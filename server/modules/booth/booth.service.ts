@@ -428,7 +428,7 @@ export async function jobTicket(deps: AppDeps, actor: Actor, jobId: number): Pro
   return {
     job,
     items: items.map((i) => ({ name: i.name, substrate: i.substrate, surfaceArea: i.surfaceArea, areaUnit: i.areaUnit })),
-    layers: booth.layers.map((l) => ({ position: l.position, kind: l.kind, name: l.name, coats: l.coats, flashMinutes: l.flashMinutes, dryMinutes: l.dryMinutes, cautions: l.cautions.length > 0 })),
+    layers: booth.layers.map((l) => ({ position: l.position, kind: l.kind, name: l.name, coats: l.coats, flashMinutes: l.flashMinutes, dryMinutes: l.dryMinutes, cautions: l.cautions.filter((c) => c.id !== "defer").map((c) => c.title) })),
     boothUrl,
     qrDataUrl,
     printedAt: iso(deps.now()),

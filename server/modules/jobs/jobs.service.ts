@@ -260,5 +260,15 @@ export function changeStage(deps: AppDeps, actor: Actor, id: number, input: z.ou
 export function deleteJob(deps: AppDeps, actor: Actor, id: number) {
   const job = findJobFor(deps, actor, id);
   if (job.stage !== "inquiry") throw conflict("Only an inquiry can be deleted; move the job to Cancelled instead", { stage: job.stage });
-  deps.db.delete(jobs).where(eq(jobs.id, id)).run();
+  try {
+    deps.db.delete(jobs).where(eq(jobs.id, id)).run();
+  } catch (error) {
+    // A job that went further and came back (e.g. quoted → inquiry) may hold records that must be kept
+    // (recorded mix sheets, quotes, payments); the database refuses, and so do we.
+    const e = error as { code?: string; message?: string };
+    if (e.code?.startsWith("SQLITE_CONSTRAINT") && /FOREIGN KEY/i.test(e.message ?? "")) {
+      throw conflict("This job has records that must be kept (batches, quotes or payments); move it to Cancelled instead", { stage: job.stage });
+    }
+    throw error;
+  }
 }

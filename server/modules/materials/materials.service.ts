@@ -7,6 +7,7 @@ import { iso } from "../../http/dates";
 import type { RequestContext } from "../../http/context";
 import { recordAudit } from "../audit/audit.service";
 import { cautionsFor } from "../../../shared/domain/safety";
+import { MATERIAL_CATEGORIES } from "../../../shared/domain/materials";
 import type {
   CreateMaterialValues,
   ListMaterialsQuery,
@@ -73,7 +74,7 @@ export function listMaterials(deps: AppDeps, actor: Actor, q: ListMaterialsQuery
     .select({ m: materials, stock: stockSum })
     .from(materials)
     .where(and(...filters))
-    .orderBy(asc(materials.category), asc(materials.code))
+    .orderBy(sql`(case ${materials.category} ${sql.raw(MATERIAL_CATEGORIES.map((c, i) => `when '${c}' then ${i}`).join(" "))} end)`, asc(materials.code))
     .all()
     .map((r) => toMaterialDto(r.m, r.stock, actor));
 }

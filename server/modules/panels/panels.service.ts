@@ -88,6 +88,7 @@ function toDtos(deps: AppDeps, actor: Actor, rows: Selected[], t: Thresholds): P
       lab,
       sprayedOn: p.sprayedOn,
       notes: customer ? null : p.notes,
+      createdById: customer ? null : p.createdBy,
       createdByName: customer ? null : createdByName,
       createdAt: iso(p.createdAt),
       photo: photos.get(p.id)?.[0] ?? null,

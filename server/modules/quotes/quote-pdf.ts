@@ -179,7 +179,7 @@ export function renderQuotePdf(d: QuotePdfData): Promise<Buffer> {
     doc.font("body").fontSize(8.5).fillColor(MUTED).text("* Sales tax applies to this line.", left, doc.y, { width });
   }
   doc.font("body").fontSize(8.5).fillColor(MUTED).text(
-    "Material amounts come from the shop's finish plan estimate. Amounts are in US dollars; tax is rounded half-up to the cent.",
+    "Materials are priced from the shop's estimate of what the finish needs. Amounts are in US dollars; sales tax is rounded half-up to the cent.",
     left,
     doc.y + 2,
     { width },

@@ -89,6 +89,7 @@ export function toUploadDto(row: UploadRow & { uploadedByName?: string | null })
     height: row.height,
     caption: row.caption,
     shareable: row.shareable,
+    uploadedById: row.uploadedBy,
     uploadedByName: row.uploadedByName ?? null,
     createdAt: iso(row.createdAt),
     url: `/api/uploads/${row.id}`,

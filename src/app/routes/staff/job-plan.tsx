@@ -75,7 +75,7 @@ function PlanBody({ jobId, plan, estimate }: { jobId: number; plan: PlanDto; est
   const [mixing, setMixing] = useState<PlanLayerDto | null>(null);
   const v = plan.latest;
   return (
-    <div className="grid gap-6 xl:grid-cols-[minmax(0,1fr)_26rem]">
+    <div className="grid gap-6 xl:grid-cols-[minmax(0,1fr)_28rem]">
       <section aria-labelledby="layers-heading" className="flex min-w-0 flex-col gap-3">
         <h2 id="layers-heading" className="flex flex-wrap items-center gap-2 text-lg font-semibold">
           Layers · version {v.version}

@@ -19,10 +19,16 @@ import { DeleteJobDialog } from "@/features/jobs/components/delete-job-dialog";
 import { JobFacts } from "@/features/jobs/components/job-facts";
 import { JobForm } from "@/features/jobs/components/job-form";
 import { JobItemsPanel } from "@/features/jobs/components/job-items-panel";
+import { JobPlanSummary } from "@/features/plans/components/job-plan-summary";
 import { StageBadge } from "@/features/jobs/components/stage-badge";
 import { StageHistory } from "@/features/jobs/components/stage-history";
 import { StageMoveOptions } from "@/features/jobs/components/stage-move-options";
 import { userQueries } from "@/features/users/api/users.queries";
+import { JobBoothSummary } from "@/features/booth/components/job-booth-summary";
+import { JobColourPanel } from "@/features/panels/components/job-colour-panel";
+import { PhotoPanel } from "@/features/uploads/components/photo-panel";
+import { JobMessagesPanel } from "@/features/quotes/components/job-messages-panel";
+import { JobQuotesPanel } from "@/features/quotes/components/job-quotes-panel";
 import { InPageNotFound } from "../in-page-not-found";
 
 export default function JobRoute() {
@@ -79,8 +85,18 @@ function JobPage({ job }: { job: JobDetailDto }) {
             ) : null}
           </Panel>
           <JobItemsPanel jobId={job.id} items={job.items} canEdit={office} />
+          {job.stage !== "inquiry" || office ? <JobPlanSummary jobId={job.id} /> : null}
+          <JobBoothSummary jobId={job.id} paths={{ booth: paths.booth(job.id), prep: paths.jobPrep(job.id), ticket: paths.jobTicket(job.id) }} />
+          <JobColourPanel jobId={job.id} canApprove={office} panelHref={paths.panel} newPanelHref={paths.newPanel(job.id)} />
+          <Panel>
+            <PhotoPanel owner={{ ownerType: "job", ownerId: job.id }} title="Job photos" canShare canDeleteAll={office} currentUserId={user.id} />
+          </Panel>
         </div>
-        <StageHistory events={job.events} className="self-start" />
+        <div className="flex flex-col gap-6 self-start">
+          {office ? <JobQuotesPanel jobId={job.id} canCreate={job.stage !== "cancelled"} /> : null}
+          {office ? <JobMessagesPanel jobId={job.id} stage={job.stage} /> : null}
+          <StageHistory events={job.events} />
+        </div>
       </div>
       {dialog === "edit" ? <EditJobDialog job={job} onClose={() => setDialog(null)} /> : null}
       {dialog === "delete" ? (

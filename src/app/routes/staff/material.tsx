@@ -16,7 +16,8 @@ import { SafetyCautions } from "@/components/ui/safety-cautions";
 import { Spinner } from "@/components/ui/spinner";
 import { toast } from "@/components/ui/toast/toast-store";
 import { paths } from "@/config/paths";
-import { formatAmount, formatNumber, unitSymbol } from "@/utils/format-quantity";
+import { formatAmount, formatNumber } from "@/utils/format-quantity";
+import { PURCHASE_UNIT_NAMES } from "@shared/domain/material-units";
 import { useCurrentUser } from "@/features/auth/hooks/use-current-user";
 import { materialQueries, useDeleteMaterial, useUpdateMaterial } from "@/features/materials/api/materials.queries";
 import { DataSheetsPanel } from "@/features/materials/components/data-sheets-panel";
@@ -81,7 +82,7 @@ function MaterialPage({ material: m }: { material: MaterialDetailDto }) {
         <div className="flex min-w-0 flex-col gap-6">
           <Panel>
             <dl className="grid grid-cols-2 gap-x-6 gap-y-4 sm:grid-cols-3">
-              <Fact label="Bought by the">{unitSymbol(m.purchaseUnit)}</Fact>
+              <Fact label="Bought by the">{PURCHASE_UNIT_NAMES[m.purchaseUnit]}</Fact>
               {office ? <Fact label="Cost per unit">{m.costCents == null ? "—" : formatCents(m.costCents)}</Fact> : null}
               <Fact label="On hand">
                 <span className={m.lowStock ? "font-semibold text-red-800" : undefined}>

@@ -101,7 +101,7 @@ function MixSheetPage({ sheet }: { sheet: MixSheetDto }) {
           ) : null}
         </div>
         <SheetCautions sheet={sheet} />
-        <p className="print-only text-sm">Mixed by ____________________ at ________ · Booth °F/°C ______ · RH ______ %</p>
+        {sheet.status === "draft" ? <p className="print-only text-sm">Mixed by ____________________ at ________ · Booth °F/°C ______ · RH ______ %</p> : null}
       </section>
       {sheet.status === "draft" ? (
         <Panel title="Record as mixed" titleId="record-heading" className="print-hidden">

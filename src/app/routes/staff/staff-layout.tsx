@@ -18,7 +18,7 @@ export default function StaffLayout() {
 function StaffFrame() {
   const user = useCurrentUser();
   const { signOut, signingOut } = useSignOutAction();
-  const nav = STAFF_NAV.filter((item) => !item.planned && roleCan(user.role, item.access));
+  const nav = STAFF_NAV.filter((item) => !item.planned && roleCan(user.role, item.access) && (!item.roles || item.roles.includes(user.role)));
   return (
     <AppShell nav={nav} userName={user.name} roleLabel={ROLE_LABELS[user.role]} onSignOut={signOut} signingOut={signingOut}>
       <ScreenBoundary>

@@ -1,10 +1,15 @@
 import { Hourglass, Timer, FlaskConical } from "lucide-react";
 import type { BoothTimerDto } from "@shared/schemas/booth.schema";
 import { cn } from "@/utils/cn";
-import { formatCountdown } from "../hooks/use-server-now";
+import { formatAgo, formatCountdown } from "../hooks/use-server-now";
 
 const clock = new Intl.DateTimeFormat(undefined, { hour: "numeric", minute: "2-digit" });
-export const formatClock = (iso: string) => clock.format(new Date(iso));
+const dayClock = new Intl.DateTimeFormat(undefined, { day: "numeric", month: "short", hour: "numeric", minute: "2-digit" });
+/** "10:42 AM" today, "28 Nov, 10:42 AM" on another day. */
+export const formatClock = (iso: string) => {
+  const d = new Date(iso);
+  return d.toDateString() === new Date().toDateString() ? clock.format(d) : dayClock.format(d);
+};
 
 /**
  * The flash (between coats) or dry (before the next layer) timer. Counts down to the end computed by the server
@@ -13,7 +18,7 @@ export const formatClock = (iso: string) => clock.format(new Date(iso));
 export function StepTimer({ timer, now, nextLabel }: { timer: BoothTimerDto | null; now: number; nextLabel: string }) {
   if (!timer) {
     return (
-      <TimerBox tone="ready" icon={<Timer aria-hidden />} label="Timer" big="Ready" detail={`Nothing to wait for: ${nextLabel}.`} testId="step-timer" />
+      <TimerBox tone="ready" icon={<Timer aria-hidden />} label="Timer" big="Ready" detail={`Nothing to wait for: ${nextLabel}.`} testId="step-timer" compact />
     );
   }
   const end = Date.parse(timer.endsAt);
@@ -40,7 +45,7 @@ export function StepTimer({ timer, now, nextLabel }: { timer: BoothTimerDto | nu
       icon={<Timer aria-hidden />}
       label={`${what} time over`}
       big="Ready"
-      detail={`${what} ended ${formatCountdown(left)} ago (${formatClock(timer.endsAt)}): ${nextLabel}.`}
+      detail={`${what} ended ${formatAgo(left)} ago (${formatClock(timer.endsAt)}): ${nextLabel}.`}
       testId="step-timer"
     />
   );
@@ -83,6 +88,7 @@ function TimerBox({
   detail,
   progress,
   testId,
+  compact = false,
 }: {
   tone: keyof typeof TONES;
   icon: React.ReactNode;
@@ -91,7 +97,19 @@ function TimerBox({
   detail: string;
   progress?: number;
   testId: string;
+  compact?: boolean;
 }) {
+  if (compact) {
+    return (
+      <div role="timer" aria-label={label} data-testid={testId} className={cn("flex flex-wrap items-center gap-x-3 gap-y-1 rounded-xl border-2 px-4 py-2", TONES[tone])}>
+        <span className="[&_svg]:size-5">{icon}</span>
+        <span className="text-2xl font-bold" data-testid={`${testId}-value`}>
+          {big}
+        </span>
+        <span className="text-sm font-medium">{detail}</span>
+      </div>
+    );
+  }
   return (
     <div role="timer" aria-label={label} data-testid={testId} className={cn("flex min-w-0 flex-col gap-1 rounded-xl border-2 px-4 py-3", TONES[tone])}>
       <p className="flex items-center gap-2 text-base font-semibold [&_svg]:size-5">

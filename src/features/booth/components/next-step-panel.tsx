@@ -13,7 +13,6 @@ import { Button } from "@/components/ui/button";
 import { TextareaField } from "@/components/ui/form/textarea-field";
 import { TextField } from "@/components/ui/form/text-field";
 import { SafetyCautions } from "@/components/ui/safety-cautions";
-import { toast } from "@/components/ui/toast/toast-store";
 import { cn } from "@/utils/cn";
 import { useLogCoat } from "../api/booth.queries";
 import { formatMinutes } from "../hooks/use-server-now";
@@ -58,40 +57,55 @@ export function NextStepPanel({ card, now, prepPath }: { card: BoothDto; now: nu
   const nextLabel = `coat ${next.coat} of ${next.layerName}`;
   const batch = card.openBatch;
   return (
-    <section aria-labelledby="next-step-heading" className="rounded-2xl border-2 border-ink-900 bg-white shadow-raised">
-      <div className="rounded-t-2xl bg-ink-950 px-5 py-4 text-white">
-        <h2 id="next-step-heading" className="text-sm font-semibold tracking-wide text-ink-100 uppercase">
-          Next step
-        </h2>
-        <p className="mt-1 text-5xl leading-none font-bold tracking-tight sm:text-6xl" data-testid="next-coat">
-          Coat {next.coat} of {next.of}
-        </p>
-        <p className="mt-2 text-3xl font-semibold sm:text-4xl" data-testid="next-layer">
-          {next.layerName}
-        </p>
-        <p className="mt-1 text-lg text-ink-100">
-          {LAYER_KIND_LABELS[next.layerKind]}
-          {current ? (
-            <>
-              {" · "}
-              {[current.gunTip && `tip ${current.gunTip}`, current.pressurePsi != null && `${current.pressurePsi} psi`, current.overlapPct != null && `${current.overlapPct}% overlap`, `flash ${formatMinutes(current.flashMinutes)}`]
-                .filter(Boolean)
-                .join(" · ")}
-            </>
-          ) : null}
-        </p>
+    <section aria-labelledby="next-step-heading" className="@container/next rounded-2xl border-2 border-ink-900 bg-white shadow-raised">
+      <div className="rounded-t-2xl bg-ink-950 px-5 py-4 text-white @[52rem]/next:flex @[52rem]/next:items-end @[52rem]/next:gap-8">
+        <div>
+          <h2 id="next-step-heading" className="text-sm font-semibold tracking-wide text-ink-100 uppercase">
+            Next step
+          </h2>
+          <p className="mt-1 text-5xl leading-none font-bold tracking-tight whitespace-nowrap sm:text-6xl" data-testid="next-coat" aria-live="polite">
+            Coat {next.coat} of {next.of}
+          </p>
+        </div>
+        <div className="min-w-0">
+          <p className="mt-2 text-3xl font-semibold sm:text-4xl" data-testid="next-layer">
+            {next.layerName}
+          </p>
+          <p className="mt-1 text-lg text-ink-100">
+            {current
+              ? [
+                  next.layerName.toLowerCase() !== LAYER_KIND_LABELS[next.layerKind].toLowerCase() && LAYER_KIND_LABELS[next.layerKind],
+                  current.gunTip && `tip ${current.gunTip}`,
+                  current.pressurePsi != null && `${current.pressurePsi} psi`,
+                  current.overlapPct != null && `${current.overlapPct}% overlap`,
+                  `flash ${formatMinutes(current.flashMinutes)}`,
+                ]
+                  .filter(Boolean)
+                  .join(" · ")
+              : null}
+          </p>
+        </div>
       </div>
       <div className="flex flex-col gap-4 p-4 sm:p-5">
-        {current && current.cautions.length > 0 ? <SafetyCautions cautions={current.cautions} className="text-base" /> : null}
-        <div className={cn("grid gap-3", batch ? "sm:grid-cols-2" : "")}>
-          <StepTimer timer={next.timer} now={now} nextLabel={nextLabel} />
-          {batch ? <PotLifeTimer endsAt={batch.potLifeEndsAt} mixedAt={batch.mixedAt} now={now} /> : null}
+        {/* Wide cards (landscape) put the cautions beside the timers, so the log button stays on screen. */}
+        <div className="grid gap-4 @[52rem]/next:grid-cols-2">
+          {current && current.cautions.length > 0 ? (
+            <div data-booth-cautions>
+              <SafetyCautions cautions={current.cautions} className="text-base" />
+            </div>
+          ) : null}
+          <div className="flex flex-col gap-3">
+            <div className={cn("grid gap-3", batch ? "@[40rem]/next:grid-cols-2 @[52rem]/next:grid-cols-1" : "")}>
+              <StepTimer timer={next.timer} now={now} nextLabel={nextLabel} />
+              {batch ? <PotLifeTimer endsAt={batch.potLifeEndsAt} mixedAt={batch.mixedAt} now={now} /> : null}
+            </div>
+            {!batch && current && current.components.length > 0 ? (
+              <Alert tone="warning" title="No batch recorded as mixed for this layer">
+                Mix it from the mix sheet first, so the pot life is timed and the batch is on the record.
+              </Alert>
+            ) : null}
+          </div>
         </div>
-        {!batch && current && current.components.length > 0 ? (
-          <Alert tone="warning" title="No batch recorded as mixed for this layer">
-            Mix it from the mix sheet first, so the pot life is timed and the batch is on the record.
-          </Alert>
-        ) : null}
         {card.canLog ? (
           <LogCoatForm key={`${next.layerId}-${next.coat}`} card={card} prepPath={prepPath} />
         ) : (
@@ -111,6 +125,7 @@ function LogCoatForm({ card, prepPath }: { card: BoothDto; prepPath: string }) {
   const [problem, setProblem] = useState<string | null>(null);
   const needsOverride = next.isFirstCoatOfJob && !card.prepReady;
   const [overriding, setOverriding] = useState(false);
+  const [noting, setNoting] = useState(false);
   const last = card.lastConditions;
   const {
     register,
@@ -151,10 +166,10 @@ function LogCoatForm({ card, prepPath }: { card: BoothDto; prepPath: string }) {
     setProblem(null);
     try {
       const { jobId: _jobId, ...rest } = values;
-      const saved = await log.mutateAsync({ ...rest, prepOverrideReason: needsOverride ? rest.prepOverrideReason : undefined });
-      const entry = saved.coatLogs.filter((c) => c.status !== "correction").at(-1);
-      toast.success(`Coat ${next.coat} of ${next.layerName} logged${entry ? ` at ${formatClock(entry.at)}` : ""}`);
+      // No toast here: it would cover the log button. The "last logged" line below the button confirms it.
+      await log.mutateAsync({ ...rest, prepOverrideReason: needsOverride ? rest.prepOverrideReason : undefined });
       resetField("note");
+      setNoting(false);
     } catch (error) {
       if (isApiError(error) && error.fields.prepOverrideReason) setOverriding(true);
       setProblem(applyServerErrors(error, setError, FIELDS));
@@ -163,7 +178,7 @@ function LogCoatForm({ card, prepPath }: { card: BoothDto; prepPath: string }) {
 
   const blocked = needsOverride && !overriding;
   return (
-    <form onSubmit={submit} noValidate className="flex flex-col gap-4" aria-label="Log a coat">
+    <form onSubmit={submit} noValidate className="@container flex flex-col gap-4" aria-label="Log a coat">
       {problem ? <Alert tone="error">{problem}</Alert> : null}
       {needsOverride ? (
         <Alert tone="warning" title="Prep is not signed off">
@@ -196,33 +211,41 @@ function LogCoatForm({ card, prepPath }: { card: BoothDto; prepPath: string }) {
           {...register("prepOverrideReason")}
         />
       ) : null}
-      <div className="grid gap-4 sm:grid-cols-2">
+      <div className="grid gap-4 @[44rem]:grid-cols-2">
         <div className="flex flex-col gap-2">
           <ConditionInput
             label="Booth temperature"
-            suffix={`°${unit ?? "C"}`}
+            suffix=""
             error={errors.boothTemp?.message ?? errors.tempUnit?.message}
             onStep={(d) => step("boothTemp", d, unit === "F" ? 70 : 21)}
+            labelAside={
+              <fieldset className="flex gap-1.5">
+                <legend className="sr-only">Temperature unit</legend>
+                {(["C", "F"] as const).map((u) => (
+                  <label
+                    key={u}
+                    className={cn(
+                      "grid min-h-12 w-14 cursor-pointer place-items-center rounded-lg border-2 text-base font-semibold has-focus-visible:outline-3 has-focus-visible:outline-offset-2 has-focus-visible:outline-candy-600",
+                      unit === u ? "border-ink-900 bg-ink-900 text-white" : "border-primer-400 bg-white text-ink-950",
+                    )}
+                  >
+                    <input type="radio" value={u} className="sr-only" {...register("tempUnit")} />°{u}
+                  </label>
+                ))}
+              </fieldset>
+            }
             {...register("boothTemp")}
           />
-          <fieldset className="flex gap-2">
-            <legend className="sr-only">Temperature unit</legend>
-            {(["C", "F"] as const).map((u) => (
-              <label
-                key={u}
-                className={cn(
-                  "grid min-h-12 flex-1 cursor-pointer place-items-center rounded-xl border-2 text-lg font-semibold has-focus-visible:outline-3 has-focus-visible:outline-offset-2 has-focus-visible:outline-candy-600",
-                  unit === u ? "border-ink-900 bg-ink-900 text-white" : "border-primer-400 bg-white text-ink-950",
-                )}
-              >
-                <input type="radio" value={u} className="sr-only" {...register("tempUnit")} />°{u}
-              </label>
-            ))}
-          </fieldset>
         </div>
         <ConditionInput label="Humidity" suffix="%" error={errors.humidityPct?.message} onStep={(d) => step("humidityPct", d, 50)} {...register("humidityPct")} />
       </div>
-      <TextField label="Note (optional)" placeholder="e.g. light orange peel on the left side" className="min-h-12 text-lg" error={errors.note?.message} {...register("note")} />
+      {noting || errors.note ? (
+        <TextField label="Note (optional)" placeholder="e.g. light orange peel on the left side" className="min-h-12 text-lg" error={errors.note?.message} autoFocus {...register("note")} />
+      ) : (
+        <Button variant="ghost" size="lg" className="self-start" onClick={() => setNoting(true)}>
+          + Add a note to this coat
+        </Button>
+      )}
       <Button
         type="submit"
         size="lg"
@@ -234,7 +257,25 @@ function LogCoatForm({ card, prepPath }: { card: BoothDto; prepPath: string }) {
       >
         Log coat {next.coat} of {next.of}
       </Button>
-      <p className="text-center text-sm text-primer-700">The time and your name are recorded by the server when you tap.</p>
+      <LastLogged card={card} />
     </form>
+  );
+}
+
+/** Confirms the latest tap from the stored log (so it is still there after a reload). */
+function LastLogged({ card }: { card: BoothDto }) {
+  const last = card.coatLogs.filter((c) => c.status === "counts" || c.status === "corrected").at(-1);
+  return (
+    <p role="status" className="text-center text-base text-ink-950">
+      {last ? (
+        <>
+          <CheckCircle2 aria-hidden className="mr-1.5 inline size-5 align-text-bottom text-emerald-700" />
+          Last logged: coat {last.coatNumber} of {last.layerName} at {formatClock(last.at)}
+          {last.painterName ? ` by ${last.painterName}` : ""}.
+        </>
+      ) : (
+        "The time and your name are recorded by the server when you tap."
+      )}
+    </p>
   );
 }

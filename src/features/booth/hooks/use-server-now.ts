@@ -32,3 +32,15 @@ export function formatMinutes(minutes: number): string {
   const m = Math.round(minutes % 60);
   return m ? `${h} h ${m} min` : `${h} h`;
 }
+
+/** How long ago, for people: "45 s", "12 min", "3 h 5 min", "4 days". */
+export function formatAgo(ms: number): string {
+  const s = Math.abs(ms) / 1000;
+  if (s < 60) return `${Math.floor(s)} s`;
+  const min = s / 60;
+  if (min < 60) return `${Math.floor(min)} min`;
+  const h = min / 60;
+  if (h < 24) return `${Math.floor(h)} h ${Math.floor(min % 60)} min`;
+  const days = Math.floor(h / 24);
+  return `${days} ${days === 1 ? "day" : "days"}`;
+}

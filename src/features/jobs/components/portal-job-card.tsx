@@ -1,9 +1,11 @@
+import { Link } from "react-router";
 import { useQuery } from "@tanstack/react-query";
 import { Check } from "lucide-react";
 import { STAGE_LABELS, STAGES, type Stage } from "@shared/domain/stages";
 import { SUBSTRATE_LABELS, type Substrate } from "@shared/domain/substrates";
 import type { JobDto } from "@shared/schemas/job.schema";
 import { cn } from "@/utils/cn";
+import { paths } from "@/config/paths";
 import { formatDate } from "@/utils/format-date";
 import { jobQueries } from "../api/jobs.queries";
 import { formatArea } from "./item-area";
@@ -86,6 +88,9 @@ export function PortalJobCard({ job }: { job: JobDto }) {
           <p className="text-sm text-primer-700">The shop has not listed the parts yet.</p>
         )}
       </div>
+      <Link to={paths.portalJob(job.id)} className="inline-flex min-h-11 items-center font-semibold text-candy-700 underline-offset-2 hover:underline">
+        Photos, the finish and quotes<span className="sr-only"> for job #{job.id}</span>
+      </Link>
     </article>
   );
 }

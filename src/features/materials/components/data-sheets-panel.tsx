@@ -79,8 +79,8 @@ export function DataSheetsPanel({ materialId, files, canEdit }: { materialId: nu
         )}
         {problem ? <Alert tone="error">{problem}</Alert> : null}
         {canEdit ? (
-          <div className="grid gap-3 border-t border-primer-200 pt-4 sm:grid-cols-[minmax(0,14rem)_auto] sm:items-end">
-            <SelectField label="Sheet" value={kind} onChange={(e) => setKind(e.target.value as MaterialFileKind)}>
+          <div className="flex flex-col gap-3 border-t border-primer-200 pt-4">
+            <SelectField label="Which sheet" value={kind} onChange={(e) => setKind(e.target.value as MaterialFileKind)}>
               {MATERIAL_FILE_KINDS.map((k) => (
                 <option key={k} value={k}>
                   {MATERIAL_FILE_KIND_LABELS[k]}
@@ -102,7 +102,7 @@ export function DataSheetsPanel({ materialId, files, canEdit }: { materialId: nu
               </Button>
             </div>
             {progress !== null ? (
-              <div className="sm:col-span-2">
+              <div>
                 <progress className="h-2 w-full accent-candy-600" max={1} value={progress} aria-label="Upload progress" />
                 <p className="mt-1 text-xs text-primer-700 tabular-nums" aria-live="polite">
                   Uploading… {Math.round(progress * 100)} %

@@ -30,7 +30,7 @@ export function LotsPanel({ materialId, unit, lots, canEdit }: { materialId: num
     <Panel
       title="Stock by lot"
       titleId="lots-heading"
-      bodyClassName="p-0 sm:p-0"
+      flush
       actions={
         canEdit ? (
           <Button variant="secondary" onClick={() => setEditing({ mode: "add" })} icon={<Plus aria-hidden className="size-4" />}>
@@ -64,11 +64,11 @@ export function LotsPanel({ materialId, unit, lots, canEdit }: { materialId: num
             <tbody>
               {lots.map((lot) => (
                 <tr key={lot.id} className="border-t border-primer-100">
-                  <th scope="row" className="px-4 py-2.5 font-mono text-sm font-semibold">{lot.lotNumber}</th>
+                  <th scope="row" className="px-4 py-2.5 font-mono text-sm font-semibold whitespace-nowrap">{lot.lotNumber}</th>
                   <td className="px-4 py-2.5 text-right tabular-nums" data-testid={`lot-qty-${lot.lotNumber}`}>
                     {formatAmount(lot.quantityOnHand, unit, 3)}
                   </td>
-                  <td className="px-4 py-2.5">{formatDate(lot.receivedOn) || "—"}</td>
+                  <td className="px-4 py-2.5 whitespace-nowrap">{formatDate(lot.receivedOn) || "—"}</td>
                   <td className="px-4 py-2.5">
                     {formatDate(lot.expiresOn) || "—"}
                     {lot.expired ? <span className="ml-2 rounded bg-red-100 px-1.5 py-0.5 text-xs font-semibold text-red-900">Expired</span> : null}

@@ -2,7 +2,7 @@ import { useState, type ComponentProps } from "react";
 import { useForm } from "react-hook-form";
 import { zodResolver } from "@hookform/resolvers/zod";
 import { MATERIAL_CATEGORIES, MATERIAL_CATEGORY_LABELS, PURCHASE_UNITS } from "@shared/domain/materials";
-import { PURCHASE_UNIT_SYMBOLS } from "@shared/domain/material-units";
+import { PURCHASE_UNIT_NAMES } from "@shared/domain/material-units";
 import { materialFormSchema, type MaterialFormInput, type MaterialFormValues } from "@shared/schemas/material.schema";
 import type { CreateMaterialInput } from "@shared/schemas/material.schema";
 import { isApiError } from "@/lib/api-client";
@@ -31,8 +31,6 @@ const FIELDS = [
   "notes",
   "active",
 ] as const;
-
-const UNIT_NAMES: Record<string, string> = { floz: "US fluid ounce", pint: "US pint", quart: "US quart", gallon: "US gallon", oz: "ounce (weight)", lb: "pound", g: "gram", kg: "kilogram", mL: "millilitre", L: "litre" };
 
 /** The catalogue entry form. Figures come from the maker's data sheets; this app never supplies them. */
 export function MaterialForm({
@@ -88,7 +86,7 @@ export function MaterialForm({
         <SelectField label="Bought by the" required error={errors.purchaseUnit?.message} {...register("purchaseUnit")}>
           {PURCHASE_UNITS.map((u) => (
             <option key={u} value={u}>
-              {UNIT_NAMES[u]} ({PURCHASE_UNIT_SYMBOLS[u]})
+              {PURCHASE_UNIT_NAMES[u]}
             </option>
           ))}
         </SelectField>

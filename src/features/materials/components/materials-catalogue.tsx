@@ -121,7 +121,7 @@ export function MaterialsCatalogue({ showCost }: { showCost: boolean }) {
                     <span className={m.lowStock ? "font-semibold text-red-800" : undefined}>{formatAmount(m.stockOnHand, m.purchaseUnit)}</span>
                     {m.lowStock ? <span className="sr-only"> (low stock)</span> : null}
                   </td>
-                  <td className="px-3 py-2.5 text-right tabular-nums">{m.volumeSolidsPct == null ? "—" : `${formatNumber(m.volumeSolidsPct, 1)} %`}</td>
+                  <td className="px-3 py-2.5 text-right whitespace-nowrap tabular-nums">{m.volumeSolidsPct == null ? "—" : `${formatNumber(m.volumeSolidsPct, 1)} %`}</td>
                   <td className="px-3 py-2.5 text-right tabular-nums">{m.vocGPerL == null ? "—" : formatNumber(m.vocGPerL, 0)}</td>
                   {showCost ? (
                     <td className="px-3 py-2.5 text-right whitespace-nowrap tabular-nums">

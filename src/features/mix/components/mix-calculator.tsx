@@ -86,40 +86,52 @@ export function MixCalculator() {
               const row = v.rows?.[i];
               const others = names.filter((n) => n !== row?.name.trim());
               return (
-                <li key={f.id} className="grid gap-3 rounded-lg border border-primer-200 p-3 sm:grid-cols-[minmax(0,1fr)_auto_minmax(0,1.4fr)_7rem_auto] sm:items-start">
-                  <TextField label={`Component ${i + 1}`} autoComplete="off" error={rowError(i, "name")} {...register(`rows.${i}.name`)} />
-                  <fieldset>
-                    <legend className="mb-1.5 text-sm font-semibold">Given as</legend>
-                    <div className="flex gap-1">
-                      {(["parts", "percent"] as const).map((k) => (
-                        <label key={k} className={cn("inline-flex min-h-11 cursor-pointer items-center rounded-lg border px-3 text-sm font-semibold", row?.kind === k ? "border-ink-900 bg-ink-900 text-white" : "border-primer-300 bg-white")}>
-                          <input type="radio" value={k} className="sr-only" {...register(`rows.${i}.kind`)} />
-                          {k === "parts" ? "Parts" : "Percent"}
-                        </label>
-                      ))}
-                    </div>
-                  </fieldset>
-                  {row?.kind === "percent" ? (
-                    <div className="grid gap-2 sm:grid-cols-[6rem_minmax(0,1fr)]">
-                      <TextField label="Percent" inputMode="decimal" error={rowError(i, "percent")} {...register(`rows.${i}.percent`)} />
-                      <fieldset>
-                        <legend className="mb-1 text-sm font-semibold">of</legend>
-                        <div className="flex flex-wrap gap-x-3">
-                          {others.map((o) => (
-                            <label key={o} className="inline-flex min-h-10 items-center gap-2 text-sm">
-                              <input type="checkbox" value={o} className="size-5 accent-candy-600" {...register(`rows.${i}.percentOf`)} />
-                              {o}
-                            </label>
-                          ))}
-                        </div>
-                        {rowError(i, "percentOf") ? <p className="text-sm font-medium text-red-800">{rowError(i, "percentOf")}</p> : null}
-                      </fieldset>
-                    </div>
-                  ) : (
-                    <TextField label="Parts" inputMode="decimal" error={rowError(i, "parts")} {...register(`rows.${i}.parts`)} />
-                  )}
-                  <TextField label="Density g/mL" inputMode="decimal" placeholder="optional" error={rowError(i, "densityGPerMl")} {...register(`rows.${i}.density`)} />
-                  <Button variant="ghost" size="sm" className="sm:mt-7" disabled={rows.fields.length <= 1} onClick={() => rows.remove(i)} aria-label={`Remove component ${i + 1}`} icon={<Trash2 aria-hidden className="size-4" />} />
+                <li key={f.id} className="flex flex-col gap-3 rounded-lg border border-primer-200 p-3">
+                  <div className="flex items-start gap-2">
+                    <TextField label={`Component ${i + 1}`} fieldClassName="min-w-0 flex-1" autoComplete="off" error={rowError(i, "name")} {...register(`rows.${i}.name`)} />
+                    <TextField label="Density g/mL" fieldClassName="w-32" inputMode="decimal" placeholder="optional" error={rowError(i, "densityGPerMl")} {...register(`rows.${i}.density`)} />
+                    <Button variant="ghost" size="sm" className="mt-7" disabled={rows.fields.length <= 1} onClick={() => rows.remove(i)} aria-label={`Remove component ${i + 1}`} icon={<Trash2 aria-hidden className="size-4" />} />
+                  </div>
+                  <div className="grid gap-3 sm:grid-cols-[auto_minmax(0,1fr)] sm:items-start">
+                    <fieldset>
+                      <legend className="mb-1.5 text-sm font-semibold">Given as</legend>
+                      <div className="flex gap-1">
+                        {(["parts", "percent"] as const).map((k) => (
+                          <label key={k} className={cn("inline-flex min-h-11 cursor-pointer items-center rounded-lg border px-3 text-sm font-semibold", row?.kind === k ? "border-ink-900 bg-ink-900 text-white" : "border-primer-300 bg-white")}>
+                            <input type="radio" value={k} className="sr-only" {...register(`rows.${i}.kind`)} />
+                            {k === "parts" ? "Parts" : "Percent"}
+                          </label>
+                        ))}
+                      </div>
+                    </fieldset>
+                    {row?.kind === "percent" ? (
+                      <div className="grid gap-2 sm:grid-cols-[7rem_minmax(0,1fr)]">
+                        <TextField label="Percent" inputMode="decimal" error={rowError(i, "percent")} {...register(`rows.${i}.percent`)} />
+                        <fieldset>
+                          <legend className="mb-1 text-sm font-semibold">of</legend>
+                          <div className="flex flex-wrap gap-x-3">
+                            {others.map((o) => (
+                              <label key={o} className="inline-flex min-h-10 items-center gap-2 text-sm">
+                                <input
+                                  type="checkbox"
+                                  className="size-5 accent-candy-600"
+                                  checked={(row?.percentOf ?? []).includes(o)}
+                                  onChange={(ev) => {
+                                    const now = (row?.percentOf ?? []).filter((x) => x !== o && others.includes(x));
+                                    setValue(`rows.${i}.percentOf`, ev.target.checked ? [...now, o] : now);
+                                  }}
+                                />
+                                {o}
+                              </label>
+                            ))}
+                          </div>
+                          {rowError(i, "percentOf") ? <p className="text-sm font-medium text-red-800">{rowError(i, "percentOf")}</p> : null}
+                        </fieldset>
+                      </div>
+                    ) : (
+                      <TextField label="Parts" fieldClassName="max-w-40" inputMode="decimal" error={rowError(i, "parts")} {...register(`rows.${i}.parts`)} />
+                    )}
+                  </div>
                 </li>
               );
             })}
@@ -140,13 +152,13 @@ export function MixCalculator() {
             value={v.mode ?? "total"}
             onChange={(mode) => setValue("mode", mode)}
             options={[
-              { value: "total", label: "Wanted total" },
-              { value: "component", label: "A component on hand" },
+              { value: "total", label: "Make a set amount" },
+              { value: "component", label: "Scale to what is on hand" },
             ]}
           />
           <div className="grid gap-4 sm:grid-cols-3">
             {v.mode === "component" ? (
-              <SelectField label="Component on hand" error={topError("knownName")} {...register("knownName")}>
+              <SelectField label="Which component" error={topError("knownName")} {...register("knownName")}>
                 {names.map((n) => (
                   <option key={n} value={n}>
                     {n}

@@ -34,7 +34,7 @@ export function MixPreview({ result, labels, caption }: { result: MixResult; lab
                   {labels?.[l.name] ? <span className="block text-xs font-normal text-primer-700">{labels[l.name]}</span> : null}
                 </th>
                 <td className="px-3 py-2 text-right text-base font-semibold tabular-nums">{formatAmount(l.volume, l.unit)}</td>
-                <td className="px-3 py-2 text-right tabular-nums">{formatNumber(l.share * 100, 1)} %</td>
+                <td className="px-3 py-2 text-right whitespace-nowrap tabular-nums">{formatNumber(l.share * 100, 1)} %</td>
                 {result.lines.some((x) => x.grams !== undefined) ? <td className="px-3 py-2 text-right tabular-nums">{l.grams === undefined ? "—" : `${formatNumber(l.grams, 1)} g`}</td> : null}
                 {scale ? <td className="px-3 py-2 text-right tabular-nums">{formatNumber(scale[i]!.cumulativeGrams, 1)} g</td> : null}
                 {rounded ? (

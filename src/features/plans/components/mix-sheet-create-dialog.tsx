@@ -94,13 +94,13 @@ export function MixSheetCreateDialog({
           value={(v.mode as "total" | "component") ?? "total"}
           onChange={(mode) => setValue("mode", mode, { shouldValidate: false })}
           options={[
-            { value: "total", label: "Batch size" },
-            { value: "component", label: "From a component on hand" },
+            { value: "total", label: "Make a set amount" },
+            { value: "component", label: "Scale to what is on hand" },
           ]}
         />
         <div className="grid gap-4 sm:grid-cols-3">
           {v.mode === "component" ? (
-            <SelectField label="Component on hand" error={fieldError("knownLabel")} {...register("knownLabel")}>
+            <SelectField label="Which component" error={fieldError("knownLabel")} {...register("knownLabel")}>
               {layer.components.map((c) => (
                 <option key={c.id} value={c.label}>
                   {c.label}

@@ -14,19 +14,23 @@ import { SelectField } from "@/components/ui/form/select-field";
 import { SafetyCautions } from "@/components/ui/safety-cautions";
 import { cn } from "@/utils/cn";
 import { formatDateTime } from "@/utils/format-date";
-import { formatAmount, formatNumber, unitSymbol } from "@/utils/format-quantity";
+import { formatAmount, formatNumber, formatVolume, unitSymbol } from "@/utils/format-quantity";
 
 /** Rules for the printed sheet: only the sheet, on one page. */
 export const MIX_SHEET_PRINT_CSS = `
 @media print {
   @page { size: auto; margin: 10mm; }
   html, body { background: #fff !important; }
-  body header, body nav, .print-hidden { display: none !important; }
-  main { padding: 0 !important; }
-  .mix-sheet { font-size: 10.5pt; gap: 8px !important; }
+  body header, body nav, .print-hidden, [aria-live].fixed, a[href="#main"] { display: none !important; }
+  div:has(> main#main) { display: block !important; background: #fff !important; min-height: 0 !important; }
+  main#main { padding: 0 !important; width: 100% !important; }
+  .mix-sheet { font-size: 10pt; gap: 6px !important; color: #000; }
+  .mix-sheet h1 { font-size: 16pt !important; }
   .mix-sheet table { min-width: 0 !important; }
-  .mix-sheet th, .mix-sheet td { padding: 3px 6px !important; }
+  .mix-sheet th, .mix-sheet td { padding: 2px 6px !important; }
+  .mix-sheet [role="note"] { padding: 4px 8px !important; font-size: 8.5pt; }
   .print-only { display: block !important; }
+  th.print-only, td.print-only { display: table-cell !important; }
   .mix-sheet section, .mix-sheet table { break-inside: avoid; box-shadow: none !important; }
 }
 .print-only { display: none; }
@@ -93,8 +97,8 @@ export function MixSheetTable({ sheet }: { sheet: MixSheetDto }) {
                   <span className="font-mono">{l.materialCode}</span> {l.materialName}
                 </span>
               </th>
-              <td className="px-3 py-2 text-right text-base font-semibold tabular-nums">{formatAmount(l.amount, sheet.unit)}</td>
-              {showGrams ? <td className="px-3 py-2 text-right tabular-nums">{l.grams == null ? "—" : `${formatNumber(l.grams, 1)} g`}</td> : null}
+              <td className="px-3 py-2 text-right text-base font-semibold whitespace-nowrap tabular-nums">{formatAmount(l.amount, sheet.unit)}</td>
+              {showGrams ? <td className="px-3 py-2 text-right whitespace-nowrap tabular-nums">{l.grams == null ? "—" : `${formatNumber(l.grams, 1)} g`}</td> : null}
               {showScale ? <td className="px-3 py-2 text-right text-base font-semibold tabular-nums">{formatNumber(l.cumulativeGrams!, 1)} g</td> : null}
               {showRounded ? (
                 <td className={cn("px-3 py-2 text-right text-base font-semibold tabular-nums", (l.ratioErrorPct ?? 0) > RATIO_WARNING_PCT && "text-flake-800")}>
@@ -102,7 +106,7 @@ export function MixSheetTable({ sheet }: { sheet: MixSheetDto }) {
                 </td>
               ) : null}
               <td className="px-3 py-2 font-mono text-sm">{recorded ? (l.lotNumber ?? "—") : (lotLabel(l) ?? "—")}</td>
-              {recorded ? <td className="px-3 py-2 text-right tabular-nums">{l.actualMl == null ? "—" : formatAmount(l.actualMl, "mL")}</td> : null}
+              {recorded ? <td className="px-3 py-2 text-right tabular-nums">{l.actualMl == null ? "—" : formatVolume(l.actualMl, sheet.unit)}</td> : null}
               {showCost ? <td className="px-3 py-2 text-right tabular-nums">{l.costCents == null ? "—" : formatCents(l.costCents)}</td> : null}
               {!recorded ? <td className="print-only px-3 py-2">☐</td> : null}
             </tr>
@@ -116,7 +120,7 @@ export function MixSheetTable({ sheet }: { sheet: MixSheetDto }) {
             {showScale ? <td /> : null}
             {showRounded ? <td className="px-3 py-2 text-right tabular-nums">{formatAmount(sheet.roundedTotal ?? 0, sheet.roundingUnit ?? sheet.unit, 4)}</td> : null}
             <td />
-            {recorded ? <td className="px-3 py-2 text-right tabular-nums">{formatAmount(sheet.totalMl, "mL")}</td> : null}
+            {recorded ? <td className="px-3 py-2 text-right tabular-nums">{formatVolume(sheet.totalMl, sheet.unit)}</td> : null}
             {showCost ? <td className="px-3 py-2 text-right tabular-nums">{formatCents(sheet.totalCostCents ?? 0)}</td> : null}
             {!recorded ? <td className="print-only" /> : null}
           </tr>
@@ -161,8 +165,12 @@ const recordResolver: Resolver<RecordForm, unknown, z.output<typeof recordMixShe
 export function RecordMixedForm({ sheet, onRecord }: { sheet: MixSheetDto; onRecord: (input: RecordMixSheetInput) => Promise<unknown> }) {
   const [problem, setProblem] = useState<string | null>(null);
   const defaultUnit = sheet.weigh ? "g" : sheet.unit;
-  // Defaults: the planned amounts, in grams when the batch is weighed.
-  const planned = (l: MixSheetLineDto) => (sheet.weigh ? (l.grams ?? 0) : l.amount);
+  // Defaults: what the sheet says to measure — the rounded amounts when it was rounded in this unit, else the
+  // exact ones (in grams when the batch is weighed).
+  const planned = (l: MixSheetLineDto) => {
+    if (l.rounded != null && sheet.roundingUnit === defaultUnit) return l.rounded;
+    return sheet.weigh ? (l.grams ?? 0) : l.amount;
+  };
   const {
     register,
     handleSubmit,

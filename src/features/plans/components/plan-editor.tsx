@@ -226,7 +226,9 @@ export function PlanEditor({
   const locked = plan?.latest.locked ?? false;
   const onDrop = (to: number) => (e: DragEvent) => {
     e.preventDefault();
-    if (dragFrom !== null && dragFrom !== to) layers.move(dragFrom, to);
+    const carried = Number.parseInt(e.dataTransfer.getData("text/plain"), 10);
+    const from = Number.isInteger(carried) ? carried : dragFrom;
+    if (from !== null && from !== to && from >= 0 && from < layers.fields.length) layers.move(from, to);
     setDragFrom(null);
   };
 
@@ -257,7 +259,8 @@ export function PlanEditor({
             <li
               key={field.id}
               onDragOver={(e) => {
-                if (dragFrom !== null) e.preventDefault();
+                e.preventDefault();
+                e.dataTransfer.dropEffect = "move";
               }}
               onDrop={onDrop(index)}
               className={cn("rounded-xl border bg-white shadow-card", dragFrom === index ? "border-candy-500 opacity-70" : "border-primer-200")}
@@ -355,7 +358,7 @@ function LayerCard({ index, count, control, register, setValue, errors, material
           title="Drag to reorder"
           className="grid size-10 cursor-grab place-items-center rounded-md text-primer-600 hover:bg-primer-100"
         >
-          <GripVertical aria-hidden className="size-5" />
+          <GripVertical aria-hidden className="pointer-events-none size-5" />
         </span>
         <button type="button" onClick={onToggle} aria-expanded={!collapsed} className="flex min-h-10 min-w-0 flex-1 items-center gap-2 rounded-md px-1 text-left hover:bg-primer-50">
           {collapsed ? <ChevronRight aria-hidden className="size-5 shrink-0" /> : <ChevronDown aria-hidden className="size-5 shrink-0" />}
@@ -446,64 +449,77 @@ function ComponentsEditor({
           const others = values.filter((_, k) => k !== j).map((o) => o.label.trim()).filter(Boolean);
           const rowName = `${name}.${j}` as const;
           return (
-            <li key={row.id} className="grid gap-3 rounded-lg border border-primer-200 bg-white p-3 md:grid-cols-[minmax(0,2fr)_minmax(0,1fr)_auto_minmax(0,2fr)_auto] md:items-start">
-              <SelectField
-                label={`Material ${j + 1}`}
-                error={errorFor(j, "materialId")}
-                {...register(`${rowName}.materialId`, {
-                  onChange: (ev) => {
-                    const m = byId.get(ev.target.value);
-                    if (m && !c?.label) setValue(`${rowName}.label`, uniqueLabel(CATEGORY_LABEL[m.category] ?? "part", others));
-                  },
-                })}
-              >
-                <option value="">Choose a material…</option>
-                {MATERIAL_CATEGORIES.map((cat) => {
-                  const inCat = materials.filter((m) => m.category === cat);
-                  return inCat.length ? (
-                    <optgroup key={cat} label={MATERIAL_CATEGORY_LABELS[cat]}>
-                      {inCat.map((m) => (
-                        <option key={m.id} value={m.id}>
-                          {m.code} {m.name}
-                        </option>
-                      ))}
-                    </optgroup>
-                  ) : null;
-                })}
-              </SelectField>
-              <TextField label="Label in the mix" autoComplete="off" error={errorFor(j, "label")} {...register(`${rowName}.label`)} />
-              <fieldset className="flex flex-col gap-1.5">
-                <legend className="mb-1.5 text-sm font-semibold">Given as</legend>
-                <div className="flex gap-1">
-                  {(["parts", "percent"] as const).map((mode) => (
-                    <label key={mode} className={cn("inline-flex min-h-11 cursor-pointer items-center rounded-lg border px-3 text-sm font-semibold", c?.mode === mode ? "border-ink-900 bg-ink-900 text-white" : "border-primer-300 bg-white")}>
-                      <input type="radio" value={mode} className="sr-only" {...register(`${rowName}.mode`, { onChange: () => (mode === "parts" ? (setValue(`${rowName}.percent`, ""), setValue(`${rowName}.percentOf`, [])) : setValue(`${rowName}.parts`, "")) })} />
-                      {mode === "parts" ? "Parts" : "Percent"}
-                    </label>
-                  ))}
-                </div>
-              </fieldset>
-              {c?.mode === "percent" ? (
-                <div className="grid gap-2 sm:grid-cols-[7rem_minmax(0,1fr)]">
-                  <TextField label="Percent" inputMode="decimal" error={errorFor(j, "percent")} {...register(`${rowName}.percent`)} />
-                  <fieldset className="flex flex-col gap-1">
-                    <legend className="mb-1 text-sm font-semibold">of</legend>
-                    <div className="flex flex-wrap gap-x-3 gap-y-1">
-                      {others.length === 0 ? <span className="text-sm text-primer-700">Label the other components first</span> : null}
-                      {others.map((o) => (
-                        <label key={o} className="inline-flex min-h-10 items-center gap-2 text-sm">
-                          <input type="checkbox" value={o} className="size-5 accent-candy-600" {...register(`${rowName}.percentOf`)} />
-                          {o}
-                        </label>
-                      ))}
-                    </div>
-                    {errorFor(j, "percentOf") ? <p className="text-sm font-medium text-red-800">{errorFor(j, "percentOf")}</p> : null}
-                  </fieldset>
-                </div>
-              ) : (
-                <TextField label="Parts" inputMode="decimal" error={errorFor(j, "parts")} {...register(`${rowName}.parts`)} />
-              )}
-              <Button variant="ghost" size="sm" className="md:mt-7" onClick={() => rows.remove(j)} aria-label={`Remove material ${j + 1}`} icon={<Trash2 aria-hidden className="size-4" />} />
+            <li key={row.id} className="flex flex-col gap-3 rounded-lg border border-primer-200 bg-white p-3">
+              <div className="flex flex-wrap items-start gap-2">
+                <SelectField
+                  label={`Material ${j + 1}`}
+                  fieldClassName="min-w-0 flex-1"
+                  error={errorFor(j, "materialId")}
+                  {...register(`${rowName}.materialId`, {
+                    onChange: (ev) => {
+                      const m = byId.get(ev.target.value);
+                      if (m && !c?.label) setValue(`${rowName}.label`, uniqueLabel(CATEGORY_LABEL[m.category] ?? "part", others));
+                    },
+                  })}
+                >
+                  <option value="">Choose a material…</option>
+                  {MATERIAL_CATEGORIES.map((cat) => {
+                    const inCat = materials.filter((m) => m.category === cat);
+                    return inCat.length ? (
+                      <optgroup key={cat} label={MATERIAL_CATEGORY_LABELS[cat]}>
+                        {inCat.map((m) => (
+                          <option key={m.id} value={m.id}>
+                            {m.code} {m.name}
+                          </option>
+                        ))}
+                      </optgroup>
+                    ) : null;
+                  })}
+                </SelectField>
+                <TextField label="Label in the mix" fieldClassName="w-40" autoComplete="off" error={errorFor(j, "label")} {...register(`${rowName}.label`)} />
+                <Button variant="ghost" size="sm" className="mt-7" onClick={() => rows.remove(j)} aria-label={`Remove material ${j + 1}`} icon={<Trash2 aria-hidden className="size-4" />} />
+              </div>
+              <div className="grid gap-3 sm:grid-cols-[auto_minmax(0,1fr)] sm:items-start">
+                <fieldset className="flex flex-col gap-1.5">
+                  <legend className="mb-1.5 text-sm font-semibold">Given as</legend>
+                  <div className="flex gap-1">
+                    {(["parts", "percent"] as const).map((mode) => (
+                      <label key={mode} className={cn("inline-flex min-h-11 cursor-pointer items-center rounded-lg border px-3 text-sm font-semibold", c?.mode === mode ? "border-ink-900 bg-ink-900 text-white" : "border-primer-300 bg-white")}>
+                        <input type="radio" value={mode} className="sr-only" {...register(`${rowName}.mode`, { onChange: () => (mode === "parts" ? (setValue(`${rowName}.percent`, ""), setValue(`${rowName}.percentOf`, [])) : setValue(`${rowName}.parts`, "")) })} />
+                        {mode === "parts" ? "Parts" : "Percent"}
+                      </label>
+                    ))}
+                  </div>
+                </fieldset>
+                {c?.mode === "percent" ? (
+                  <div className="grid gap-2 sm:grid-cols-[7rem_minmax(0,1fr)]">
+                    <TextField label="Percent" inputMode="decimal" error={errorFor(j, "percent")} {...register(`${rowName}.percent`)} />
+                    <fieldset className="flex flex-col gap-1">
+                      <legend className="mb-1 text-sm font-semibold">of</legend>
+                      <div className="flex flex-wrap gap-x-3 gap-y-1">
+                        {others.length === 0 ? <span className="text-sm text-primer-700">Label the other components first</span> : null}
+                        {others.map((o) => (
+                          <label key={o} className="inline-flex min-h-10 items-center gap-2 text-sm">
+                            <input
+                                type="checkbox"
+                                className="size-5 accent-candy-600"
+                                checked={(c?.percentOf ?? []).includes(o)}
+                                onChange={(ev) => {
+                                  const now = (c?.percentOf ?? []).filter((x) => x !== o && others.includes(x));
+                                  setValue(`${rowName}.percentOf`, ev.target.checked ? [...now, o] : now, { shouldDirty: true });
+                                }}
+                              />
+                            {o}
+                          </label>
+                        ))}
+                      </div>
+                      {errorFor(j, "percentOf") ? <p className="text-sm font-medium text-red-800">{errorFor(j, "percentOf")}</p> : null}
+                    </fieldset>
+                  </div>
+                ) : (
+                  <TextField label="Parts" fieldClassName="max-w-40" inputMode="decimal" error={errorFor(j, "parts")} {...register(`${rowName}.parts`)} />
+                )}
+              </div>
             </li>
           );
         })}

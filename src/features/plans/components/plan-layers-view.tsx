@@ -53,8 +53,8 @@ export function PlanLayersView({
               </div>
               {layerActions ? <div className="flex flex-wrap gap-2">{layerActions(l)}</div> : null}
             </div>
-            <div className="grid gap-4 px-4 py-3 lg:grid-cols-[minmax(0,1fr)_minmax(0,1fr)]">
-              <dl className="grid grid-cols-2 gap-x-4 gap-y-2 text-sm sm:grid-cols-3">
+            <div className="grid gap-4 px-4 py-3 2xl:grid-cols-[minmax(0,1fr)_minmax(0,1fr)]">
+              <dl className="grid grid-cols-2 gap-x-4 gap-y-2 text-sm sm:grid-cols-4">
                 <Fact label="Coats">{formatNumber(l.coats, 2)}</Fact>
                 <Fact label="Flash">{formatNumber(l.flashMinutes, 0)} min</Fact>
                 <Fact label="Dry before next">{formatNumber(l.dryMinutes, 0)} min</Fact>
@@ -73,7 +73,7 @@ export function PlanLayersView({
                     {l.components.map((c) => (
                       <li key={c.id} className="flex gap-2">
                         <span className="w-20 shrink-0 font-semibold">{c.label}</span>
-                        <Link to={paths.material(c.materialId)} className="min-w-0 truncate underline-offset-2 hover:underline">
+                        <Link to={paths.material(c.materialId)} className="min-w-0 underline-offset-2 hover:underline">
                           <span className="font-mono text-xs">{c.materialCode}</span> {c.materialName}
                         </Link>
                       </li>
@@ -106,12 +106,12 @@ export function EstimateTable({ estimate, unit = "mL" }: { estimate: PlanEstimat
   const showCost = estimate.totalCostCents !== undefined;
   return (
     <div className="scrollbar-thin overflow-x-auto">
-      <table className="w-full min-w-[28rem] text-left text-sm" aria-label="Material estimate">
+      <table className="w-full text-left text-sm" aria-label="Material estimate">
         <thead className="bg-primer-100">
           <tr>
-            <th scope="col" className="px-3 py-2 font-semibold">Layer</th>
-            <th scope="col" className="px-3 py-2 text-right font-semibold">Ready to spray</th>
-            <th scope="col" className="px-3 py-2 text-right font-semibold">VOC g/L</th>
+            <th scope="col" className="px-2 py-2 font-semibold">Layer</th>
+            <th scope="col" className="px-2 py-2 text-right font-semibold">Ready to spray</th>
+            <th scope="col" className="px-2 py-2 text-right font-semibold">VOC g/L</th>
             {showCost ? <th scope="col" className="px-3 py-2 text-right font-semibold">Cost</th> : null}
           </tr>
         </thead>

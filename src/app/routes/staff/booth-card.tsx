@@ -1,0 +1,27 @@
+import { useQuery } from "@tanstack/react-query";
+import { useParams } from "react-router";
+import { isApiError } from "@/lib/api-client";
+import { Alert } from "@/components/ui/alert";
+import { Spinner } from "@/components/ui/spinner";
+import { paths } from "@/config/paths";
+import { boothQueries } from "@/features/booth/api/booth.queries";
+import { BoothCard } from "@/features/booth/components/booth-card";
+import { InPageNotFound } from "../in-page-not-found";
+
+export default function BoothCardRoute() {
+  const { jobId } = useParams();
+  const id = Number(jobId);
+  const valid = Number.isInteger(id) && id > 0;
+  const card = useQuery({ ...boothQueries.card(id), enabled: valid });
+  if (!valid || (isApiError(card.error) && (card.error.status === 404 || card.error.status === 400)))
+    return <InPageNotFound what="Job" backTo={paths.boothIndex} backLabel="Back to the booth" />;
+  if (card.error && !card.data) return <Alert tone="error">{card.error.message}</Alert>;
+  if (!card.data) return <Spinner label="Loading the booth card…" />;
+  return (
+    <BoothCard
+      card={card.data}
+      receivedAt={card.dataUpdatedAt}
+      paths={{ job: paths.job(id), prep: paths.jobPrep(id), ticket: paths.jobTicket(id), jobPlan: paths.jobPlan(id), mixSheet: paths.mixSheet }}
+    />
+  );
+}

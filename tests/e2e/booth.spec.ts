@@ -1,0 +1,152 @@
+import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
+import type { Browser, Page } from "playwright-core";
+import path from "node:path";
+import { existsSync, statSync } from "node:fs";
+import { ARTEFACTS, launch, newPage, signIn } from "./browser";
+
+const baseUrl = inject("baseUrl");
+let browser: Browser;
+beforeAll(async () => {
+  browser = await launch();
+});
+afterAll(async () => {
+  await browser?.close();
+});
+
+/** JSON call from inside the signed-in page (same origin, the session cookie goes along). */
+async function call<T>(page: Page, method: string, url: string, body?: unknown): Promise<T> {
+  const res = await page.evaluate(
+    async ([m, u, b]) => {
+      const r = await fetch(u as string, { method: m as string, headers: { "Content-Type": "application/json" }, body: b === undefined ? undefined : JSON.stringify(b) });
+      return { status: r.status, json: await r.json().catch(() => null) };
+    },
+    [method, url, body] as const,
+  );
+  if (res.status >= 400) throw new Error(`${method} ${url} → ${res.status} ${JSON.stringify(res.json)}`);
+  return res.json as T;
+}
+
+/**
+ * The office sets up a fresh job for the demo painter: one steel item, the "Candy over metallic ground" template
+ * (sealer 1 coat, metallic ground 3 coats with an 8-minute flash…), moved to prep, prep signed off.
+ */
+async function jobReadyForTheBooth(): Promise<number> {
+  const { page, close } = await newPage(browser);
+  await signIn(page, baseUrl, "owner");
+  const templates = await call<{ id: number; name: string }[]>(page, "GET", "/api/plans?kind=template");
+  const template = templates.find((t) => t.name === "Candy over metallic ground")!;
+  expect(template).toBeTruthy();
+  const customers = await call<{ items: { id: number }[] }>(page, "GET", "/api/customers?pageSize=1");
+  const painters = await call<{ id: string; name: string }[]>(page, "GET", "/api/painters");
+  const marco = painters.find((p) => p.name === "Marco Vell")!;
+  const job = await call<{ id: number }>(page, "POST", "/api/jobs", { customerId: customers.items[0]!.id, title: `E2E booth tank ${Date.now()}`, assignedPainterId: marco.id });
+  const item = await call<{ id: number }>(page, "POST", `/api/jobs/${job.id}/items`, { name: "Fuel tank", substrate: "steel", surfaceArea: 0.6, areaUnit: "m2" });
+  await call(page, "POST", `/api/jobs/${job.id}/plan`, { fromPlanId: template.id });
+  await call(page, "POST", `/api/jobs/${job.id}/stage`, { stage: "booked" });
+  await call(page, "POST", `/api/jobs/${job.id}/stage`, { stage: "in_prep" });
+  const prep = await call<{ id: number }>(page, "POST", "/api/prep-records", { itemId: item.id, scuffMedium: "scuff_pad", scuffGrit: 600, cleaner: "Wax and grease remover", tackCloth: true });
+  await call(page, "POST", `/api/prep-records/${prep.id}/sign-off`);
+  await close();
+  return job.id;
+}
+
+/** "7:58" → seconds; "1:02:09" too. */
+const seconds = (text: string) => text.trim().split(":").map(Number).reduce((a, n) => a * 60 + n, 0);
+
+describe("booth card on a tablet", () => {
+  it("logs three coats with the timer counting; after a reload the timer carries on from the stored time", async () => {
+    const jobId = await jobReadyForTheBooth();
+    const { page, errors, close } = await newPage(browser, { width: 820, height: 1180 });
+    await signIn(page, baseUrl, "painter");
+
+    // The painter finds the job from the Booth entry in the navigation.
+    await page.getByRole("navigation", { name: "Main" }).getByRole("link", { name: "Booth" }).click();
+    await page.getByRole("link", { name: /E2E booth tank/ }).first().click();
+    await page.waitForURL(new RegExp(`/booth/${jobId}$`));
+
+    const nextCoat = page.getByTestId("next-coat");
+    const nextLayer = page.getByTestId("next-layer");
+    const timer = page.getByTestId("step-timer-value");
+    await expect.poll(() => nextCoat.innerText()).toBe("Coat 1 of 1");
+    expect(await nextLayer.innerText()).toBe("Sealer");
+    // The sealer uses an isocyanate hardener: its cautions are on screen with the log button.
+    const safety = page.getByRole("note", { name: "Safety" }).first();
+    expect(await safety.isVisible()).toBe(true);
+    expect(await safety.innerText()).toMatch(/Isocyanates/);
+    expect(await safety.innerText()).toMatch(/safety data sheet/);
+
+    // Big targets: the log button, the steppers and the unit choice are all at least 48 px high.
+    const logButton = page.getByRole("button", { name: /^Log coat/ });
+    for (const target of [logButton, page.getByRole("button", { name: "Raise booth temperature" }), page.getByText("°F", { exact: true })]) {
+      const box = await target.boundingBox();
+      expect(box!.height).toBeGreaterThanOrEqual(48);
+    }
+
+    // Coat 1: the sealer. Conditions typed with the screen keyboard…
+    await page.getByLabel("Booth temperature", { exact: true }).fill("22");
+    await page.getByLabel("Humidity", { exact: true }).fill("46");
+    await logButton.click();
+    await expect.poll(() => nextCoat.innerText()).toBe("Coat 1 of 3");
+    expect(await nextLayer.innerText()).toBe("Metallic ground");
+    // …remembered for the next coat, and adjustable without a keyboard.
+    expect(await page.getByLabel("Booth temperature", { exact: true }).inputValue()).toBe("22");
+    await page.getByRole("button", { name: "Raise booth temperature" }).click();
+    expect(await page.getByLabel("Booth temperature", { exact: true }).inputValue()).toBe("23");
+
+    // Coats 2 and 3: the ground, with the 8-minute flash between coats.
+    await logButton.click();
+    await expect.poll(() => nextCoat.innerText()).toBe("Coat 2 of 3");
+    await logButton.click();
+    await expect.poll(() => nextCoat.innerText()).toBe("Coat 3 of 3");
+    expect(await page.getByRole("timer", { name: "Flash time left" }).isVisible()).toBe(true);
+    // The tap is confirmed beside the button (from the stored log), not by a toast over it.
+    expect(await page.getByText(/Last logged: coat 2 of Metallic ground at .* by Marco Vell/).isVisible()).toBe(true);
+
+    // The flash timer counts down.
+    const first = seconds(await timer.innerText());
+    expect(first).toBeGreaterThan(7 * 60);
+    expect(first).toBeLessThanOrEqual(8 * 60);
+    await expect.poll(async () => seconds(await timer.innerText()), { timeout: 5000 }).toBeLessThan(first);
+
+    // The coat log has the three coats with the conditions.
+    const log = page.getByRole("list", { name: "Coat log, newest first" });
+    expect(await log.getByRole("listitem").count()).toBe(3);
+    expect(await log.innerText()).toMatch(/23 °C · 46% RH · Marco Vell/);
+
+    // The tablet screenshot, for the record: the top of the card, as the painter sees it.
+    await page.evaluate(() => window.scrollTo(0, 0));
+    await page.waitForTimeout(300);
+    const file = path.join(ARTEFACTS, "booth-tablet.png");
+    await page.screenshot({ path: file });
+    expect(existsSync(file) && statSync(file).size > 20_000).toBe(true);
+
+    // Reload: nothing was kept in memory, yet the timer carries on from the stored coat time.
+    const beforeReload = seconds(await timer.innerText());
+    await page.waitForTimeout(1500);
+    await page.reload();
+    await expect.poll(() => nextCoat.innerText()).toBe("Coat 3 of 3");
+    const afterReload = seconds(await timer.innerText());
+    expect(afterReload).toBeLessThan(beforeReload);
+    expect(afterReload).toBeGreaterThan(6 * 60);
+    await expect.poll(async () => seconds(await timer.innerText()), { timeout: 5000 }).toBeLessThan(afterReload);
+
+    // The job moved into the booth with the first coat.
+    expect(await page.getByText(/Booth card · Job #\d+ · In booth/).isVisible()).toBe(true);
+    expect(errors).toEqual([]);
+    await close();
+  });
+
+  it("works in landscape too, and an estimator reads the card without a log button", async () => {
+    const { page, errors, close } = await newPage(browser, { width: 1180, height: 820 });
+    await signIn(page, baseUrl, "estimator");
+    await page.goto(`${baseUrl}/jobs?stage=in_booth`);
+    const jobs = await page.evaluate(async () => (await (await fetch("/api/jobs?stage=in_booth")).json()) as { items: { id: number }[] });
+    await page.goto(`${baseUrl}/booth/${jobs.items[0]!.id}`);
+    await expect.poll(() => page.getByRole("heading", { level: 1 }).count()).toBe(1);
+    await expect.poll(() => page.getByText("Read only").count()).toBeGreaterThan(0);
+    expect(await page.getByRole("button", { name: /^Log coat/ }).count()).toBe(0);
+    expect(await page.getByRole("list", { name: "Layers in order" }).isVisible()).toBe(true);
+    expect(errors).toEqual([]);
+    await close();
+  });
+});
