@@ -55,10 +55,10 @@ export function composeQuoteMail(input: {
     `Hello ${firstName(input.customerName)},`,
     opening,
     `Quote #${input.quoteId}, version ${input.version}\nTotal: ${formatCents(input.totalCents)}\nDeposit to book the work (${input.depositPercent} %): ${formatCents(input.depositCents)}\nValid until: ${longDate(input.validUntil)}`,
-    `You can read the quote, approve it and pay the deposit online. The link is personal to you and works until ${longDate(new Date(input.linkExpiresAt).toISOString().slice(0, 10))}; if you have an account with us you can also sign in and find it under My jobs.`,
+    `You can read the quote, approve it and pay the deposit online. The link is personal to you and works until ${longDate(new Date(input.linkExpiresAt).toISOString().slice(0, 10))}; if you have an account with us you can also sign in and find it under My quotes.`,
     "The quote is attached as a PDF too.",
   ];
-  const text = [...paragraphs.slice(0, 4), input.link, paragraphs[4], "", ...signature(input.shop)].join("\n\n");
+  const text = [...paragraphs.slice(0, 4), input.link, paragraphs[4], signature(input.shop).join("\n")].join("\n\n");
   return { subject, text, html: wrapHtml(paragraphs, input.shop, { href: input.link, label: "Read and approve the quote" }) };
 }
 
@@ -81,7 +81,7 @@ export function composeReceiptMail(input: {
     `Paid: ${new Date(input.paidAt).toISOString().slice(0, 16).replace("T", " ")} UTC\nPayment reference: ${input.reference}\nBalance due on collection: ${formatCents(input.balanceCents)}`,
     "Keep this e-mail as your receipt. We will let you know when your parts are ready to collect.",
   ];
-  return { subject, text: [...paragraphs, "", ...signature(input.shop)].join("\n\n"), html: wrapHtml(paragraphs, input.shop) };
+  return { subject, text: [...paragraphs, signature(input.shop).join("\n")].join("\n\n"), html: wrapHtml(paragraphs, input.shop) };
 }
 
 export function composeReadyMail(input: { shop: ShopSettings; customerName: string; jobTitle: string; jobId: number; portalUrl: string }): Composed {
@@ -94,7 +94,7 @@ export function composeReadyMail(input: { shop: ShopSettings; customerName: stri
   ].filter(Boolean);
   return {
     subject,
-    text: [...paragraphs, `See your job: ${input.portalUrl}`, "", ...signature(input.shop)].join("\n\n"),
+    text: [...paragraphs, `See your job: ${input.portalUrl}`, signature(input.shop).join("\n")].join("\n\n"),
     html: wrapHtml(paragraphs, input.shop, { href: input.portalUrl, label: "See your job" }),
   };
 }

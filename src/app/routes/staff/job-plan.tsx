@@ -72,6 +72,7 @@ function PlanActions({ plan }: { plan: PlanDto }) {
 function PlanBody({ jobId, plan, estimate }: { jobId: number; plan: PlanDto; estimate: PlanEstimateDto | null }) {
   const navigate = useNavigate();
   const create = useCreateMixSheet();
+  const unit = useQuery(planQueries.shopUnits()).data?.defaultVolumeUnit ?? "mL";
   const [mixing, setMixing] = useState<PlanLayerDto | null>(null);
   const v = plan.latest;
   return (
@@ -89,6 +90,7 @@ function PlanBody({ jobId, plan, estimate }: { jobId: number; plan: PlanDto; est
         <PlanLayersView
           layers={v.layers}
           estimate={estimate}
+          unit={unit}
           layerActions={(layer) =>
             layer.components.length ? (
               <Button size="md" onClick={() => setMixing(layer)} icon={<Beaker aria-hidden className="size-4" />}>
@@ -101,7 +103,7 @@ function PlanBody({ jobId, plan, estimate }: { jobId: number; plan: PlanDto; est
       <div className="flex flex-col gap-6 self-start">
         {estimate ? (
           <Panel title="Material estimate" titleId="estimate-heading">
-            <EstimateTable estimate={estimate} />
+            <EstimateTable estimate={estimate} unit={unit} />
           </Panel>
         ) : null}
         <MixSheetsPanel jobId={jobId} />
@@ -110,6 +112,7 @@ function PlanBody({ jobId, plan, estimate }: { jobId: number; plan: PlanDto; est
         <MixSheetCreateDialog
           jobId={jobId}
           layer={mixing}
+          defaultUnit={unit}
           onClose={() => setMixing(null)}
           onCreate={async (input) => {
             const sheet = await create.mutateAsync(input);
