@@ -1,8 +1,8 @@
 import { z } from "zod";
 import { TEMP_UNITS, type TempUnit } from "../domain/booth";
 import type { LayerKind } from "../domain/layers";
+import type { PlanLayerDto } from "./plan.schema";
 import type { PrepStatus } from "../domain/prep";
-import type { Caution } from "../domain/safety";
 import type { Stage } from "../domain/stages";
 import type { Substrate } from "../domain/substrates";
 import { idSchema, optionalText, requiredText } from "./common.schema";
@@ -94,21 +94,12 @@ export type BoothComponentDto = {
   percentOf: string[] | null;
 };
 
-export type BoothLayerDto = {
-  id: number;
-  position: number;
-  kind: LayerKind;
-  name: string;
-  coats: number;
-  flashMinutes: number;
-  minutesPerCoat: number;
-  dryMinutes: number;
-  gunTip: string | null;
-  pressurePsi: number | null;
-  overlapPct: number | null;
-  notes: string | null;
+/** A plan layer as the booth shows it: no film-build figures, no material costs, plus the coat progress. */
+export type BoothLayerDto = Pick<
+  PlanLayerDto,
+  "id" | "position" | "kind" | "name" | "coats" | "flashMinutes" | "minutesPerCoat" | "dryMinutes" | "gunTip" | "pressurePsi" | "overlapPct" | "notes" | "cautions"
+> & {
   components: BoothComponentDto[];
-  cautions: Caution[];
   /** A prep layer is done through the item prep records, not logged coat by coat. */
   isPrep: boolean;
   coatsDone: number;

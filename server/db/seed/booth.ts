@@ -87,8 +87,46 @@ function stageAt(ctx: SeedContext, jobId: number, stage: Stage) {
     .get()?.at;
 }
 
-export async function seedBooth(ctx: SeedContext) {
+type PanelSeed = {
+  ground: (typeof GROUNDS)[number];
+  candy: (typeof CANDIES)[number];
+  clear: number;
+  coats: number;
+  lab: { L: number; a: number; b: number } | null;
+  at: number;
+  jobId?: number | null;
+  notes?: string | null;
+  by: string;
+};
+
+/** One test panel row, linked to the catalogue's ground and toner where the codes exist. */
+function insertPanel(ctx: SeedContext, p: PanelSeed): number {
   const materialId = (code: string) => ctx.db.select({ id: materials.id }).from(materials).where(eq(materials.code, code)).get()?.id ?? null;
+  return ctx.db
+    .insert(testPanels)
+    .values({
+      groundName: p.ground.name,
+      groundMaterialId: materialId(p.ground.code),
+      candyName: p.candy.name,
+      candyMaterialId: materialId(p.candy.code),
+      letDownClear: p.clear,
+      letDownToner: 1,
+      coats: p.coats,
+      jobId: p.jobId ?? null,
+      labL: p.lab?.L ?? null,
+      labA: p.lab?.a ?? null,
+      labB: p.lab?.b ?? null,
+      sprayedOn: new Date(p.at).toISOString().slice(0, 10),
+      notes: p.notes ?? null,
+      createdBy: p.by,
+      createdAt: p.at,
+      updatedAt: p.at,
+    })
+    .returning({ id: testPanels.id })
+    .get().id;
+}
+
+export async function seedBooth(ctx: SeedContext) {
   const jobsInOrder = [...ctx.jobs].sort((a, b) => a.createdAt - b.createdAt);
 
   // ---- Prep records: signed off on every job that reached the booth; part-done on jobs in prep.
@@ -228,27 +266,16 @@ export async function seedBooth(ctx: SeedContext) {
         const noise = ((n * 37) % 11) / 25 - 0.2;
         const lab = n % 7 === 3 ? null : { L: round2(exact.L + noise), a: round2(exact.a - noise), b: round2(exact.b + noise / 2) };
         const at = libraryAt + n * 86_400_000;
-        const id = ctx.db
-          .insert(testPanels)
-          .values({
-            groundName: ground.name,
-            groundMaterialId: materialId(ground.code),
-            candyName: candy.name,
-            candyMaterialId: materialId(candy.code),
-            letDownClear: clear,
-            letDownToner: 1,
-            coats,
-            labL: lab?.L ?? null,
-            labA: lab?.a ?? null,
-            labB: lab?.b ?? null,
-            sprayedOn: new Date(at).toISOString().slice(0, 10),
-            notes: clear === 8 ? "Let down 8:1 to see how far the extra coats take it." : null,
-            createdBy: n % 2 ? ctx.userIds.painter : ctx.userIds.painter2,
-            createdAt: at,
-            updatedAt: at,
-          })
-          .returning({ id: testPanels.id })
-          .get().id;
+        const id = insertPanel(ctx, {
+          ground,
+          candy,
+          clear,
+          coats,
+          lab,
+          at,
+          notes: clear === 8 ? "Let down 8:1 to see how far the extra coats take it." : null,
+          by: n % 2 ? ctx.userIds.painter : ctx.userIds.painter2,
+        });
         library.push({ ground: ground.name, candy: candy.name, coats, lab, id });
         await addPhoto(ctx, { ownerType: "panel", ownerId: id, jobId: null }, swatchRgb(exact), `panel-${id}.jpg`, { by: ctx.userIds.painter, at });
       }
@@ -267,57 +294,26 @@ export async function seedBooth(ctx: SeedContext) {
     const exact = panelColour(ground.rgb, candy.absorb, coats, 6, 1);
     const lab = { L: round2(exact.L), a: round2(exact.a), b: round2(exact.b) };
     const at = job.createdAt + 2 * 86_400_000;
-    const id = ctx.db
-      .insert(testPanels)
-      .values({
-        groundName: ground.name,
-        groundMaterialId: materialId(ground.code),
-        candyName: candy.name,
-        candyMaterialId: materialId(candy.code),
-        letDownClear: 6,
-        letDownToner: 1,
-        coats,
-        jobId: job.id,
-        labL: lab.L,
-        labA: lab.a,
-        labB: lab.b,
-        sprayedOn: new Date(at).toISOString().slice(0, 10),
-        notes: "Customer chose this one in daylight at the shop door.",
-        createdBy: job.painterId ?? ctx.userIds.painter,
-        createdAt: at,
-        updatedAt: at,
-      })
-      .returning({ id: testPanels.id })
-      .get().id;
+    const id = insertPanel(ctx, { ground, candy, clear: 6, coats, lab, at, jobId: job.id, notes: "Customer chose this one in daylight at the shop door.", by: job.painterId ?? ctx.userIds.painter });
     ctx.db.update(jobs).set({ approvedPanelId: id }).where(eq(jobs.id, job.id)).run();
     await addPhoto(ctx, { ownerType: "panel", ownerId: id, jobId: job.id }, swatchRgb(exact), `approved-${job.id}.jpg`, { caption: "Approved colour panel", shareable: true, by: job.painterId, at });
     // Jobs at the booth also have a check panel sprayed with the batch: one a match, one only close.
     if (["in_booth", "curing"].includes(job.stage)) {
       const drift = approvedCount % 2 ? 0.5 : 1.6;
       const checkAt = (stageAt(ctx, job.id, "in_booth") ?? ctx.now - 86_400_000) + 2 * HOUR;
-      const checkId = ctx.db
-        .insert(testPanels)
-        .values({
-          groundName: ground.name,
-          groundMaterialId: materialId(ground.code),
-          candyName: candy.name,
-          candyMaterialId: materialId(candy.code),
-          letDownClear: 6,
-          letDownToner: 1,
-          coats,
-          jobId: job.id,
-          labL: round2(lab.L - drift),
-          labA: round2(lab.a + drift / 2),
-          labB: round2(lab.b - drift / 3),
-          sprayedOn: new Date(checkAt).toISOString().slice(0, 10),
-          notes: "Check panel sprayed alongside the job with the same batch.",
-          createdBy: job.painterId ?? ctx.userIds.painter,
-          createdAt: checkAt,
-          updatedAt: checkAt,
-        })
-        .returning({ id: testPanels.id })
-        .get().id;
-      await addPhoto(ctx, { ownerType: "panel", ownerId: checkId, jobId: job.id }, swatchRgb({ L: lab.L - drift, a: lab.a + drift / 2, b: lab.b - drift / 3 }), `check-${job.id}.jpg`, { by: job.painterId, at: checkAt });
+      const checkLab = { L: round2(lab.L - drift), a: round2(lab.a + drift / 2), b: round2(lab.b - drift / 3) };
+      const checkId = insertPanel(ctx, {
+        ground,
+        candy,
+        clear: 6,
+        coats,
+        lab: checkLab,
+        at: checkAt,
+        jobId: job.id,
+        notes: "Check panel sprayed alongside the job with the same batch.",
+        by: job.painterId ?? ctx.userIds.painter,
+      });
+      await addPhoto(ctx, { ownerType: "panel", ownerId: checkId, jobId: job.id }, swatchRgb(checkLab), `check-${job.id}.jpg`, { by: job.painterId, at: checkAt });
     }
     approvedCount++;
   }

@@ -89,7 +89,7 @@ function JobPage({ job }: { job: JobDetailDto }) {
           <JobBoothSummary jobId={job.id} paths={{ booth: paths.booth(job.id), prep: paths.jobPrep(job.id), ticket: paths.jobTicket(job.id) }} />
           <JobColourPanel jobId={job.id} canApprove={office} panelHref={paths.panel} newPanelHref={paths.newPanel(job.id)} />
           <Panel>
-            <PhotoPanel owner={{ ownerType: "job", ownerId: job.id }} title="Job photos" canShare canDeleteAll={office} currentUserId={user.id} />
+            <PhotoPanel owner={{ ownerType: "job", ownerId: job.id }} listJobId={job.id} title="Job photos" canShare canDeleteAll={office} currentUserId={user.id} />
           </Panel>
         </div>
         <div className="flex flex-col gap-6 self-start">

@@ -28,7 +28,7 @@ export function CoatLogList({ card }: { card: BoothDto }) {
             <li key={e.id} className={cn("flex flex-wrap items-center gap-x-4 gap-y-1 py-3", e.status === "voided" && "opacity-70")}>
               <div className="min-w-0 flex-1">
                 <p className={cn("text-base font-semibold text-ink-950", e.status === "voided" && "line-through")}>
-                  {e.status === "correction" ? `Correction of entry #${e.correctsId}` : `Coat ${e.coatNumber} · ${e.layerName}`}
+                  {e.status === "correction" ? `Correction of coat ${e.coatNumber} · ${e.layerName}` : `Coat ${e.coatNumber} · ${e.layerName}`}
                   {STATUS[e.status] && e.status !== "correction" ? <span className="ml-2 rounded bg-primer-200 px-2 py-0.5 text-xs font-semibold text-ink-950 no-underline">{STATUS[e.status]}</span> : null}
                 </p>
                 <p className="text-sm text-primer-800">

@@ -14,6 +14,7 @@ import { TextareaField } from "@/components/ui/form/textarea-field";
 import { TextField } from "@/components/ui/form/text-field";
 import { SafetyCautions } from "@/components/ui/safety-cautions";
 import { cn } from "@/utils/cn";
+import { PhotoUploadButton } from "@/features/uploads/components/photo-panel";
 import { useLogCoat } from "../api/booth.queries";
 import { formatMinutes } from "../hooks/use-server-now";
 import { ConditionInput } from "./condition-input";
@@ -266,6 +267,7 @@ function LogCoatForm({ card, prepPath }: { card: BoothDto; prepPath: string }) {
 function LastLogged({ card }: { card: BoothDto }) {
   const last = card.coatLogs.filter((c) => c.status === "counts" || c.status === "corrected").at(-1);
   return (
+    <div className="flex flex-col items-center gap-2">
     <p role="status" className="text-center text-base text-ink-950">
       {last ? (
         <>
@@ -277,5 +279,7 @@ function LastLogged({ card }: { card: BoothDto }) {
         "The time and your name are recorded by the server when you tap."
       )}
     </p>
+    {last ? <PhotoUploadButton owner={{ ownerType: "coat_log", ownerId: last.id }} label="Photo of this coat" /> : null}
+    </div>
   );
 }

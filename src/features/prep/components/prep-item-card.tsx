@@ -50,7 +50,7 @@ export function PrepItemCard({ jobId, item, canReopen, photos }: { jobId: number
         </span>
       </div>
       <div className="flex flex-col gap-5 p-4 sm:p-5">
-        {record?.status === "signed_off" ? <SignedOff jobId={jobId} record={record} canReopen={canReopen} /> : <PrepForm jobId={jobId} item={item} record={record} />}
+        {record?.status === "signed_off" ? <SignedOff jobId={jobId} record={record} canReopen={canReopen} /> : <PrepForm key={record?.preparedAt ?? "new"} jobId={jobId} item={item} record={record} />}
         {record?.reopenedNote ? <p className="text-sm whitespace-pre-line text-primer-800">{record.reopenedNote}</p> : null}
         {record ? photos : <p className="text-sm text-primer-700">Save the first steps to add photos.</p>}
       </div>

@@ -22,6 +22,7 @@ export function PhotoPanel({
   canDeleteAll,
   currentUserId,
   compact = false,
+  listJobId,
 }: {
   owner: UploadOwner;
   title?: string;
@@ -31,8 +32,12 @@ export function PhotoPanel({
   canDeleteAll: boolean;
   currentUserId: string;
   compact?: boolean;
+  /** List every photo of this job (prep, coats, panels too), while new photos still go on `owner`. */
+  listJobId?: number;
 }) {
-  const photos = useQuery(uploadQueries.owner(owner));
+  const byJob = useQuery({ ...uploadQueries.job(listJobId ?? 0), enabled: listJobId !== undefined });
+  const byOwner = useQuery({ ...uploadQueries.owner(owner), enabled: listJobId === undefined });
+  const photos = listJobId !== undefined ? byJob : byOwner;
   return (
     <section aria-label={title} className="flex flex-col gap-3">
       <div className="flex flex-wrap items-center justify-between gap-2">
