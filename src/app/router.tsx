@@ -68,6 +68,10 @@ export function createAppRouter(queryClient: QueryClient) {
             { path: "panels/:panelId", lazy: page(() => import("./routes/staff/panel")) },
             { path: "quotes", lazy: page(() => import("./routes/staff/quotes")) },
             { path: "quotes/:quoteId", lazy: page(() => import("./routes/staff/quote")) },
+            { path: "dashboard", lazy: page(() => import("./routes/staff/dashboard")) },
+            { path: "compliance", lazy: page(() => import("./routes/staff/compliance")) },
+            { path: "audit", lazy: page(() => import("./routes/staff/audit")) },
+            { path: "settings", lazy: page(() => import("./routes/staff/settings")) },
             // Later: quotes, plans, mix, materials (their nav slots are in config/nav.ts).
           ],
         },

@@ -1,4 +1,5 @@
 import type { LucideIcon } from "lucide-react";
+import { ChartColumn, History, Leaf, Settings } from "lucide-react";
 import { CircleUserRound, Columns3, FlaskConical, Inbox, Layers, ListChecks, Package, ReceiptText, Users, Contact, SprayCan, Palette } from "lucide-react";
 import type { Access, Role } from "@shared/domain/roles";
 import { paths } from "./paths";
@@ -19,6 +20,7 @@ export type NavItem = {
 
 /** The staff navigation, in order. A role sees the items its access group allows. */
 export const STAFF_NAV: NavItem[] = [
+  { label: "Dashboard", to: paths.dashboard, icon: ChartColumn, access: "office" },
   { label: "Board", to: paths.board, icon: Columns3, access: "staff" },
   { label: "Jobs", to: paths.jobs, icon: ListChecks, access: "staff" },
   { label: "Booth", to: paths.boothIndex, icon: SprayCan, access: "staff", roles: ["painter", "owner"] },
@@ -28,7 +30,10 @@ export const STAFF_NAV: NavItem[] = [
   { label: "Mix calculator", to: paths.mixCalculator, icon: FlaskConical, access: "staff" },
   { label: "Materials", to: paths.materials, icon: Package, access: "staff" },
   { label: "Test panels", to: paths.panels, icon: Palette, access: "staff" },
+  { label: "VOC log", to: paths.compliance, icon: Leaf, access: "office" },
   { label: "Users", to: paths.users, icon: Users, access: "owner" },
+  { label: "Audit", to: paths.audit, icon: History, access: "owner" },
+  { label: "Settings", to: paths.settings, icon: Settings, access: "office" },
   { label: "Outbox", to: paths.outbox, icon: Inbox, access: "owner", demoOnly: true },
   { label: "Account", to: paths.account, icon: CircleUserRound, access: "staff" },
 ];

@@ -78,6 +78,19 @@ async function addPhoto(ctx: SeedContext, owner: { ownerType: "job" | "prep_reco
     .run();
 }
 
+/** Codes of the ground and toner in a job's latest plan version, and its candy coats (what the demo panels follow). */
+function planRecipe(ctx: SeedContext, jobId: number): { groundCode?: string; tonerCode?: string; candyCoats?: number } {
+  const plan = jobPlanRow(ctx.db, jobId);
+  if (!plan) return {};
+  const latest = ctx.db.select({ id: planVersions.id }).from(planVersions).where(eq(planVersions.planId, plan.id)).orderBy(desc(planVersions.version)).limit(1).get();
+  if (!latest) return {};
+  const layers = loadPlanVersion({ db: ctx.db }, latest.id).layers;
+  const ground = layers.find((l) => l.kind === "ground_coat")?.components.find((c) => c.category === "ground_coat");
+  const candyLayer = layers.find((l) => l.kind === "candy");
+  const toner = candyLayer?.components.find((c) => c.category === "toner");
+  return { groundCode: ground?.materialCode, tonerCode: toner?.materialCode, candyCoats: candyLayer ? coatCount(candyLayer.coats) : undefined };
+}
+
 function stageAt(ctx: SeedContext, jobId: number, stage: Stage) {
   return ctx.db
     .select({ at: jobStageEvents.at })
@@ -287,10 +300,13 @@ export async function seedBooth(ctx: SeedContext) {
   for (const job of jobsInOrder) {
     const t = job.title.toLowerCase();
     if (!t.includes("candy") || !["booked", "in_prep", ...SPRAYED].includes(job.stage)) continue;
-    const candy = CANDIES.find((c) => t.includes(c.name.toLowerCase()));
+    // The job's own plan says which toner, ground and how many candy coats; the title is the fallback.
+    const recipe = planRecipe(ctx, job.id);
+    const candy = CANDIES.find((c) => c.code === recipe.tonerCode) ?? CANDIES.find((c) => t.includes(c.name.toLowerCase()));
     if (!candy) continue;
-    const ground = t.includes("gold") ? GROUNDS[1]! : t.includes("black") ? GROUNDS[3]! : t.includes("white") ? GROUNDS[2]! : GROUNDS[0]!;
-    const coats = 4 + (approvedCount % 2);
+    const ground =
+      GROUNDS.find((g) => g.code === recipe.groundCode) ?? (t.includes("gold") ? GROUNDS[1]! : t.includes("black") ? GROUNDS[3]! : t.includes("white") ? GROUNDS[2]! : GROUNDS[0]!);
+    const coats = recipe.candyCoats ?? 4 + (approvedCount % 2);
     const exact = panelColour(ground.rgb, candy.absorb, coats, 6, 1);
     const lab = { L: round2(exact.L), a: round2(exact.a), b: round2(exact.b) };
     const at = job.createdAt + 2 * 86_400_000;

@@ -111,7 +111,7 @@ export function PhotoUploadButton({ owner, label = "Add photo" }: { owner: Uploa
             <span className="text-primer-800">Sending… {Math.round(upload.progress * 100)}%</span>
           </>
         ) : (
-          <span className="text-primer-700">JPEG, PNG or WebP, up to {MAX_PHOTO_MB} MB</span>
+          <span className="text-primer-700">JPEG, PNG or WebP (not HEIC), up to {MAX_PHOTO_MB} MB</span>
         )}
       </div>
       {problem ? (
