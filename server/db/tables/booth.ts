@@ -84,6 +84,8 @@ export const coatLogs = sqliteTable(
     index("coat_logs_layer_idx").on(t.layerId),
     index("coat_logs_corrects_idx").on(t.correctsId),
     index("coat_logs_created_idx").on(t.createdAt),
+    // Dashboard: booth hours over a date window.
+    index("coat_logs_at_idx").on(t.at),
   ],
 );
 

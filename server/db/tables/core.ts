@@ -121,5 +121,5 @@ export const jobStageEvents = sqliteTable(
     userId: text("user_id").references(() => users.id, { onDelete: "set null" }),
     at: integer("at").notNull(),
   },
-  (t) => [index("job_stage_events_job_idx").on(t.jobId, t.at)],
+  (t) => [index("job_stage_events_job_idx").on(t.jobId, t.at), index("job_stage_events_to_stage_idx").on(t.toStage, t.at)],
 );

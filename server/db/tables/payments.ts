@@ -62,6 +62,8 @@ export const payments = sqliteTable(
     uniqueIndex("payments_event_idx").on(t.eventId),
     index("payments_job_idx").on(t.jobId),
     index("payments_quote_idx").on(t.quoteId),
+    // Dashboard: deposits by month.
+    index("payments_paid_at_idx").on(t.paidAt),
   ],
 );
 
