@@ -10,7 +10,8 @@ export type ShellNavItem = { label: string; to: string; icon: LucideIcon };
 
 /**
  * The staff frame. One <nav aria-label="Main">: a scrolling strip of large tabs under the top bar on phones and
- * tablets, a sidebar from 1024px. The user's name, role and "Sign out" sit top right, or at the sidebar's foot.
+ * tablets, a sidebar from 1024px (its list scrolls on short screens, so the foot stays in view). The user's name,
+ * role and "Sign out" sit top right, or at the sidebar's foot.
  */
 export function AppShell({
   nav,
@@ -35,7 +36,7 @@ export function AppShell({
         <div className="flex h-14 items-center px-4 lg:h-16 lg:px-5">
           <Brand />
         </div>
-        <nav aria-label="Main" className="scrollbar-thin relative col-span-2 row-start-2 overflow-x-auto border-t border-white/10 lg:col-span-1 lg:border-t-0 lg:overflow-visible">
+        <nav aria-label="Main" className="scrollbar-thin relative col-span-2 row-start-2 overflow-x-auto border-t border-white/10 lg:col-span-1 lg:min-h-0 lg:overflow-x-visible lg:overflow-y-auto lg:border-t-0">
           <ul className="flex gap-1 px-2 py-1.5 lg:flex-col lg:px-3 lg:py-2">
             {nav.map(({ label, to, icon: Icon }) => (
               <li key={to} className="shrink-0">
