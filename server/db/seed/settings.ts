@@ -20,16 +20,18 @@ export function seedSettings(ctx: SeedContext) {
     quoteTerms: "Deposit orders the materials and books the booth. Balance due on collection. Colour is agreed on a sprayed test panel before work starts.",
     defaultVolumeUnit: "mL",
     defaultAreaUnit: "m2",
+    // Invented sample limits and cap, set so the demo log shows a couple of batches over a limit and one month
+    // over the cap; a real shop enters its own air permit's figures.
     vocLimits: [
-      { layerKind: "adhesion_promoter", limitGPerL: 540 },
-      { layerKind: "sealer", limitGPerL: 250 },
-      { layerKind: "ground_coat", limitGPerL: 420 },
-      { layerKind: "candy", limitGPerL: 420 },
-      { layerKind: "effect_mid_coat", limitGPerL: 420 },
-      { layerKind: "intercoat_clear", limitGPerL: 420 },
-      { layerKind: "clear", limitGPerL: 250 },
+      { layerKind: "adhesion_promoter", limitGPerL: 780 },
+      { layerKind: "sealer", limitGPerL: 550 },
+      { layerKind: "ground_coat", limitGPerL: 760 },
+      { layerKind: "candy", limitGPerL: 630 },
+      { layerKind: "effect_mid_coat", limitGPerL: 630 },
+      { layerKind: "intercoat_clear", limitGPerL: 630 },
+      { layerKind: "clear", limitGPerL: 465 },
     ],
-    vocMonthlyCapKg: 40,
+    vocMonthlyCapKg: 8,
   };
   ctx.db.insert(shopSettings).values({ id: 1, data, updatedAt: ctx.now, updatedBy: ctx.userIds.owner }).run();
 }
