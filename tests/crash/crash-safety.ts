@@ -120,5 +120,6 @@ for (let round = 1; round <= ROUNDS; round++) {
     }
   }
 }
-console.log(`${passed} passed, ${failed} failed`);
+console.log(`crash check: ${passed} of ${ROUNDS} rounds passed`);
+if (process.env.CRASH_SUMMARY) (await import("node:fs")).writeFileSync(process.env.CRASH_SUMMARY, JSON.stringify({ passed, failed }));
 process.exit(failed ? 1 : 0);
