@@ -137,7 +137,7 @@ export function createApp(options: CreateAppOptions) {
   if (deps.clientDir && existsSync(path.join(deps.clientDir, "index.html"))) {
     const clientDir = deps.clientDir;
     app.use(express.static(clientDir, { index: false, maxAge: "1h" }));
-    app.get("/*splat", (_req, res) => {
+    app.get("/{*splat}", (_req, res) => {
       res.sendFile(path.join(clientDir, "index.html"));
     });
   }

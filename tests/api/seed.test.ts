@@ -35,3 +35,21 @@ describe("demo seed", () => {
     expect(new Set(list.body.items.map((j: { customerName: string }) => j.customerName))).toEqual(new Set(["Tobias Wren"]));
   });
 });
+
+describe("serving the built app", () => {
+  it("answers / and deep links with the SPA's index.html, and unknown API paths with a JSON 404", async () => {
+    const { mkdtempSync, writeFileSync } = await import("node:fs");
+    const { tmpdir } = await import("node:os");
+    const path = await import("node:path");
+    const dir = mkdtempSync(path.join(tmpdir(), "cw-dist-"));
+    writeFileSync(path.join(dir, "index.html"), "<!doctype html><title>Coatwright</title><div id=root></div>");
+    const t = makeApp({ clientDir: dir });
+    for (const url of ["/", "/jobs/5", "/portal"]) {
+      const res = await request(t.app).get(url);
+      expect({ url, status: res.status, html: res.text.includes("<title>Coatwright</title>") }).toEqual({ url, status: 200, html: true });
+    }
+    const api = await request(t.app).get("/api/nothing-here");
+    expect(api.status).toBe(404);
+    expect(api.body.error.code).toBe("not_found");
+  });
+});

@@ -13,6 +13,17 @@ afterAll(async () => {
   await browser?.close();
 });
 
+describe("first visit", () => {
+  it("opening the shop's address shows the sign-in page", async () => {
+    const { page, errors, close } = await newPage(browser);
+    await page.goto(`${baseUrl}/`);
+    await page.waitForURL((u) => u.pathname.startsWith("/sign-in"));
+    await expect.poll(() => page.getByRole("button", { name: "Sign in" }).count()).toBe(1);
+    expect(errors).toEqual([]);
+    await close();
+  });
+});
+
 describe("each demo role signs in and sees its own navigation", () => {
   const expected = {
     owner: { has: ["Board", "Jobs", "Customers", "Users", "Outbox", "Account"], lacks: [] as string[] },
