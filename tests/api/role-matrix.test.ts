@@ -2,6 +2,8 @@ import { describe, expect, it } from "vitest";
 import { makeShop } from "../support/test-app";
 import type { RouteInfo } from "../../server/http/route-list";
 import type { MatrixRows, Who } from "./matrix/rows";
+import { keyPaths } from "../support/demo-shop";
+import { isMoneyKey, listedNotMoney } from "./security/money-keys";
 
 /**
  * Every API route × every role plus anonymous, with the status each must get. Rows live in
@@ -45,6 +47,11 @@ describe("role matrix", async () => {
       const res = await req;
       expect({ route: routePath, who, status: res.status }).toEqual({ route: routePath, who, status: c.expect[who] });
       if (res.status >= 400) expect(res.body.error).toMatchObject({ code: expect.any(String), message: expect.any(String) });
+      // Whatever a painter's call answers (reads and writes alike), it carries no money field.
+      if (who === "painter" && String(res.headers["content-type"]).includes("json")) {
+        const money = keyPaths(res.body).filter((k) => isMoneyKey(k.key) && !listedNotMoney(`${routePath} ${k.path}`));
+        expect({ route: routePath, money: money.map((k) => k.path) }).toEqual({ route: routePath, money: [] });
+      }
     });
   }
 });

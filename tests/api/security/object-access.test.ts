@@ -1,0 +1,143 @@
+import { beforeAll, describe, expect, it } from "vitest";
+import { signQuoteLink } from "../../../server/modules/portal/portal-link";
+import { makeDemoShop, type DemoShop } from "../../support/demo-shop";
+import type { RouteInfo } from "../../../server/http/route-list";
+import { fillPath, idPools, paramSets, type IdPools, type Params } from "./id-pools";
+
+/**
+ * Object-level access on the full demo shop: the demo customer (and a holder of a link to one of that
+ * customer's quotes) changes every id in every route — path, query and body — to another customer's record.
+ * Nothing may come back: 401/403/404 for a record route, and no other customer's name, e-mail or job title
+ * anywhere in any answer.
+ */
+let s: DemoShop;
+let routes: RouteInfo[];
+let own: IdPools;
+let foreign: IdPools;
+let ownCustomerId: number;
+let markers: string[];
+let linkToken: string;
+
+beforeAll(async () => {
+  s = await makeDemoShop();
+  routes = s.app.routes;
+  ownCustomerId = s.accounts.customer.customerId!;
+  const jobIds = (sql: string) => s.rows<{ id: number }>(sql, ownCustomerId).map((r) => r.id);
+  own = idPools(s, jobIds("select id from jobs where customer_id = ? order by id"));
+  foreign = idPools(s, jobIds("select id from jobs where customer_id != ? order by id"));
+  const ownTitles = new Set(s.rows<{ title: string }>("select title from jobs where customer_id = ?", ownCustomerId).map((r) => r.title));
+  markers = [
+    ...s.rows<{ name: string; email: string | null }>("select name, email from customers where id != ?", ownCustomerId).flatMap((c) => [c.name, c.email ?? ""]),
+    ...s.rows<{ title: string }>("select title from jobs where customer_id != ?", ownCustomerId).map((r) => r.title).filter((t) => !ownTitles.has(t)),
+  ].filter((m, i, all) => m.length >= 6 && all.indexOf(m) === i);
+  const ownQuote = own.single.quotes![0]!;
+  linkToken = signQuoteLink(s.app.deps.appSecret, Number(ownQuote), Date.now() + 86_400_000);
+}, 60_000);
+
+/** Sign-in/out and password routes take no record id; signing out mid-sweep would also end the session. */
+const sweepable = (r: RouteInfo) => !r.path.startsWith("/api/auth/");
+
+/** Every id-like field a body or query string might carry, all pointing at another customer's records. */
+function foreignIds(): Record<string, string | number> {
+  const first = (k: string) => foreign.single[k]![0]!;
+  return {
+    jobId: first("jobs"),
+    customerId: first("customers"),
+    quoteId: first("quotes"),
+    planId: first("plans"),
+    mixSheetId: first("mix-sheets"),
+    itemId: foreign.nested.items![0]!.child,
+    ownerType: "job",
+    ownerId: first("jobs"),
+    search: markers[0]!,
+  };
+}
+
+/** A body the route would accept from its rightful owner, so a refusal comes from the access check. */
+function bodyFor(r: RouteInfo): object {
+  if (r.path.endsWith("/approve")) return { name: "Tobias Wren" };
+  if (r.path.endsWith("/decline")) return { reason: "Changed my mind" };
+  return foreignIds();
+}
+
+const leaked = (text: string) => markers.filter((m) => text.includes(m));
+
+type Viewer = { label: string; who: "customer" | "anonymous"; headers: Record<string, string> };
+const viewers = (): Viewer[] => [
+  { label: "customer account", who: "customer", headers: {} },
+  { label: "quote link", who: "anonymous", headers: { "x-portal-token": linkToken } },
+];
+
+describe("a customer cannot reach another customer's records", () => {
+  it("has records of every kind on other customers' jobs to aim at", () => {
+    for (const k of ["jobs", "customers", "quotes", "payments", "plans", "mix-sheets", "uploads", "prep-records", "panels", "coat-logs"])
+      expect({ k, n: foreign.single[k]!.length }).toEqual({ k, n: expect.any(Number) }), expect(foreign.single[k]!.length).toBeGreaterThan(0);
+    for (const k of ["items", "versions", "quoteVersions"]) expect(foreign.nested[k]!.length).toBeGreaterThan(0);
+    expect(markers.length).toBeGreaterThan(10);
+  });
+
+  for (const viewer of [0, 1]) {
+    it(`changing an id in the path gives 401/403/404 and no foreign data, for every route (${["customer account", "quote link"][viewer]})`, async () => {
+      const v = viewers()[viewer]!;
+      const failures: string[] = [];
+      let calls = 0;
+      for (const r of routes.filter((x) => sweepable(x) && x.path.includes(":"))) {
+        for (const p of paramSets(r.path, foreign, own)) {
+          const url = fillPath(r.path, p);
+          let req = s.call(v.who, r.method, url, v.headers);
+          if (r.method !== "GET" && r.method !== "DELETE") req = req.send(bodyFor(r));
+          const res = await req;
+          calls++;
+          const text = res.text ?? "";
+          if (![401, 403, 404].includes(res.status)) failures.push(`${r.method} ${url} → ${res.status}`);
+          const l = leaked(text);
+          if (l.length) failures.push(`${r.method} ${url} leaked ${l.join(", ")}`);
+        }
+      }
+      expect(failures).toEqual([]);
+      expect(calls).toBeGreaterThan(100);
+    });
+
+    it(`putting another customer's ids in the query string or body returns none of their data (${["customer account", "quote link"][viewer]})`, async () => {
+      const v = viewers()[viewer]!;
+      const failures: string[] = [];
+      const ids = foreignIds();
+      const qs = new URLSearchParams(Object.entries(ids).map(([k, x]) => [k, String(x)])).toString();
+      for (const r of routes.filter((x) => sweepable(x) && !x.path.includes(":"))) {
+        let req = s.call(v.who, r.method, r.method === "GET" ? `${r.path}?${qs}` : r.path, v.headers);
+        if (r.method !== "GET" && r.method !== "DELETE") req = req.send(ids);
+        const res = await req;
+        if (res.status >= 500) failures.push(`${r.method} ${r.path} → ${res.status}`);
+        if (res.status < 300 && r.method !== "GET" && r.path !== "/api/payments/webhook") failures.push(`${r.method} ${r.path} accepted a write → ${res.status}`);
+        const l = leaked(res.text ?? "");
+        if (l.length) failures.push(`${r.method} ${r.path} leaked ${l.join(", ")}`);
+      }
+      expect(failures).toEqual([]);
+    });
+  }
+
+  it("the same calls with the customer's own ids do succeed (so the refusals above are the access check)", async () => {
+    const shareable = s.rows<{ id: number }>(`select id from uploads where shareable = 1 and job_id in (${own.single.jobs!.join(",")})`).map((r) => r.id);
+    expect(shareable.length).toBeGreaterThan(0);
+    const gets = ["/api/jobs/:id", "/api/jobs/:id/items", "/api/jobs/:id/items/:itemId", "/api/jobs/:id/colour", "/api/portal/quotes/:id", "/api/portal/quotes/:id/pdf", "/api/portal/jobs/:id"];
+    const statuses: string[] = [];
+    for (const path of gets) for (const p of paramSets(path, own)) statuses.push(`${fillPath(path, p)} → ${(await s.call("customer", "GET", fillPath(path, p))).status}`);
+    for (const id of shareable) statuses.push(`/api/uploads/${id} → ${(await s.call("customer", "GET", `/api/uploads/${id}`)).status}`);
+    const link = await s.call("anonymous", "GET", `/api/portal/quotes/${own.single.quotes![0]}`, { "x-portal-token": linkToken });
+    statuses.push(`link /api/portal/quotes/${own.single.quotes![0]} → ${link.status}`);
+    expect(statuses.length).toBeGreaterThan(gets.length);
+    expect(statuses.filter((x) => !x.endsWith("→ 200"))).toEqual([]);
+  });
+
+  it("lists the customer reads contain only their own jobs", async () => {
+    const ownJobs = new Set(own.single.jobs!.map(Number));
+    for (const url of ["/api/jobs?pageSize=100", `/api/jobs?pageSize=100&customerId=${foreign.single.customers![0]}`, "/api/portal/jobs", "/api/portal/quotes"]) {
+      const res = await s.call("customer", "GET", url);
+      expect(res.status).toBe(200);
+      const list = (res.body.items ?? res.body) as { id?: number; jobId?: number }[];
+      for (const row of list) expect({ url, job: ownJobs.has(Number(row.jobId ?? row.id)) }).toEqual({ url, job: true });
+    }
+  });
+});
+
+export type { Params };
