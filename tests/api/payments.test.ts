@@ -253,6 +253,20 @@ describe("refunds", () => {
     expect((await s.as("owner").post("/api/payments/9999/refund").send({})).status).toBe(404);
   });
 
+  it("a second full refund asked before the first is confirmed: the provider refuses it and the owner gets 409, not a 5xx", async () => {
+    const s = await makeShop();
+    const si = await withPayments(s);
+    const q = await approvedQuote(s, s.inquiryA.id);
+    await payDeposit(s, si, q.id);
+    const p = s.db.select().from(payments).get()!;
+    // No webhook address here, so the first refund is not yet recorded when the second is asked for.
+    expect((await s.as("owner").post(`/api/payments/${p.id}/refund`).send({})).status).toBe(202);
+    const again = await s.as("owner").post(`/api/payments/${p.id}/refund`).send({});
+    expect(again.status).toBe(409);
+    expect(again.body.error).toMatchObject({ code: "conflict", message: expect.stringMatching(/refused to make the refund: Refund amount/) });
+    expect(s.db.select().from(auditLog).where(eq(auditLog.action, "refund_requested")).all()).toHaveLength(1);
+  });
+
   it("the provider unreachable: a clear 502 and nothing recorded", async () => {
     const s = await makeShop();
     const si = await withPayments(s);

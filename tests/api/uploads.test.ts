@@ -146,3 +146,16 @@ describe("who sees a file", () => {
     expect(bad.status).toBe(400);
   });
 });
+
+describe("malformed multipart", () => {
+  it("an upload without a multipart boundary is a 400 naming the file field, not a server error", async () => {
+    const s = await makeShop();
+    const res = await s.as("owner").post("/api/uploads").set("Content-Type", "multipart/form-data").send("--x\r\nnot really\r\n");
+    expect(res.status).toBe(400);
+    expect(res.body.error).toMatchObject({ code: "bad_request", fields: { file: expect.stringMatching(/Boundary not found/) } });
+    // A body cut off inside the file part.
+    const cut = await s.as("owner").post("/api/uploads").set("Content-Type", "multipart/form-data; boundary=zz").send('--zz\r\nContent-Disposition: form-data; name="file"; filename="a.png"\r\n\r\n\x89PNG');
+    expect(cut.status).toBe(400);
+    expect(cut.body.error).toMatchObject({ code: "bad_request", message: expect.stringMatching(/could not be read/) });
+  });
+});
