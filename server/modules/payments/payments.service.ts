@@ -33,6 +33,11 @@ function requirePayments(deps: AppDeps) {
 
 function upstream(err: unknown, doing: string): never {
   const message = err instanceof Error ? err.message : String(err);
+  // The provider answered and refused the request (e.g. a refund larger than what it still holds): a conflict
+  // the shop can act on, not an outage. Anything else (unreachable, 5xx) is a bad gateway.
+  const providerStatus = (err as { statusCode?: unknown })?.statusCode;
+  if (typeof providerStatus === "number" && providerStatus >= 400 && providerStatus < 500)
+    throw new HttpError(409, "conflict", `The payment provider refused to ${doing}: ${message}`);
   console.error(`[payments] ${doing} failed:`, message);
   throw new HttpError(502, "upstream_failed", `The payment provider could not ${doing}: ${message}`);
 }

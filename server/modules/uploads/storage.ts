@@ -2,6 +2,7 @@ import { mkdirSync, readFileSync, writeFileSync, unlinkSync, existsSync } from "
 import path from "node:path";
 import { randomBytes } from "node:crypto";
 import multer from "multer";
+import type { RequestHandler } from "express";
 import sharp from "sharp";
 import { fileTypeFromBuffer } from "file-type";
 import { HttpError } from "../../http/http-error";
@@ -13,8 +14,16 @@ const IMAGE_TYPES = ["image/jpeg", "image/png", "image/webp"] as const;
 const DOCUMENT_TYPES = ["application/pdf", ...IMAGE_TYPES] as const;
 
 /** Multer keeping the file in memory (checked by content before anything touches the disk). */
-export function uploadMiddleware(maxBytes: number, field = "file") {
-  return multer({ storage: multer.memoryStorage(), limits: { fileSize: maxBytes, files: 1, fields: 20 } }).single(field);
+export function uploadMiddleware(maxBytes: number, field = "file"): RequestHandler {
+  const receive = multer({ storage: multer.memoryStorage(), limits: { fileSize: maxBytes, files: 1, fields: 20 } }).single(field);
+  return (req, res, next) =>
+    receive(req, res, (err: unknown) => {
+      // Files are kept in memory, so any other error here is the multipart parser's (no boundary, cut-off body,
+      // malformed part): the client's request is at fault, 400. Multer's own limit errors go on as they are.
+      if (err instanceof Error && !(err instanceof multer.MulterError) && !(err instanceof HttpError))
+        return next(new HttpError(400, "bad_request", `The upload could not be read: ${err.message}. Send the file as multipart/form-data.`, { [field]: err.message }));
+      next(err);
+    });
 }
 
 export type StoredFile = {
