@@ -1,21 +1,51 @@
+import path from "node:path";
 import { fileURLToPath } from "node:url";
-import { defineConfig } from "vitest/config";
+import { defineConfig, type Plugin } from "vitest/config";
 import react from "@vitejs/plugin-react";
 import tailwindcss from "@tailwindcss/vite";
 
 const apiPort = process.env.PORT ?? "3000";
 const e2e = process.env.E2E === "1";
+const root = fileURLToPath(new URL(".", import.meta.url));
+
+/**
+ * Writes dist/.vite/chunk-modules.json: every emitted JS chunk with the source modules bundled into it. The
+ * manifest names a source only for entry and route chunks; this also says what the shared chunks hold, so the
+ * route-splitting browser test can tell whether the portal downloads any staff code (and the reverse).
+ * Like the manifest it is not served: express.static ignores dot-folders.
+ */
+function chunkModules(): Plugin {
+  return {
+    name: "coatwright:chunk-modules",
+    apply: "build",
+    generateBundle(_options, bundle) {
+      const map: Record<string, string[]> = {};
+      for (const out of Object.values(bundle)) {
+        if (out.type !== "chunk") continue;
+        map[out.fileName] = out.moduleIds.map((id) => path.relative(root, id.replace(/\0/g, "")).split(path.sep).join("/"));
+      }
+      this.emitFile({ type: "asset", fileName: ".vite/chunk-modules.json", source: JSON.stringify(map, null, 1) });
+    },
+  };
+}
 
 export default defineConfig({
-  plugins: [react(), tailwindcss()],
+  plugins: [react(), tailwindcss(), chunkModules()],
   resolve: {
-    alias: {
-      "@": fileURLToPath(new URL("./src", import.meta.url)),
-      "@shared": fileURLToPath(new URL("./shared", import.meta.url)),
-    },
+    alias: [
+      { find: "@", replacement: fileURLToPath(new URL("./src", import.meta.url)) },
+      { find: "@shared", replacement: fileURLToPath(new URL("./shared", import.meta.url)) },
+      // In the browser, zod runs jitless so it never tries `new Function` under the CSP (see src/lib/zod-jitless.ts).
+      // Tests (VITEST) import the real zod, as the server does.
+      ...(process.env.VITEST ? [] : [{ find: /^zod$/, replacement: fileURLToPath(new URL("./src/lib/zod-jitless.ts", import.meta.url)) }]),
+    ],
   },
-  server: { proxy: { "/api": `http://localhost:${apiPort}` } },
-  build: { outDir: "dist", sourcemap: false },
+  // changeOrigin stays off so the API sees the page's own Host and its same-origin check lets the dev UI's writes through.
+  server: { proxy: { "/api": { target: `http://localhost:${apiPort}`, changeOrigin: false } } },
+  // The manifest (dist/.vite/manifest.json) maps the entry and route chunks to their source modules; the
+  // route-splitting browser test reads it. It is not served (express.static ignores dot-folders, and a test checks
+  // that), and would give away only the chunk map of the public JS anyway.
+  build: { outDir: "dist", sourcemap: false, manifest: true },
   // `npm test` runs unit and API tests; `npm run test:e2e` (E2E=1) runs the browser specs against the built app.
   test: e2e
     ? {

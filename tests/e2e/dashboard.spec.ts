@@ -1,11 +1,9 @@
 import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
 import path from "node:path";
-import { readFileSync } from "node:fs";
 import type { Browser, Page } from "playwright-core";
-import { ARTEFACTS, launch, navNames, newPage, signIn } from "./browser";
+import { ARTEFACTS, launch, navNames, newPage, seriousViolations, signIn } from "./browser";
 
 const baseUrl = inject("baseUrl");
-const AXE = path.resolve(import.meta.dirname, "../../node_modules/axe-core/axe.min.js");
 let browser: Browser;
 beforeAll(async () => {
   browser = await launch();
@@ -13,23 +11,6 @@ beforeAll(async () => {
 afterAll(async () => {
   await browser?.close();
 });
-
-type AxeViolation = { id: string; impact: string | null; help: string; nodes: { target: unknown[] }[] };
-
-/** axe-core on the page as it is; only serious and critical findings fail the test. */
-async function seriousViolations(page: Page) {
-  // The app's CSP (script-src 'self') refuses page.addScriptTag's inline script; an evaluate runs outside it.
-  await page.evaluate(readFileSync(AXE, "utf8"));
-  const result = await page.evaluate(async () => {
-    const axe = (window as unknown as { axe: { run: () => Promise<{ violations: AxeViolation[]; passes: unknown[] }> } }).axe;
-    return axe.run();
-  });
-  // axe really looked at the page (a missing script would also give "no violations").
-  expect(result.passes.length).toBeGreaterThan(10);
-  return result.violations
-    .filter((v) => v.impact === "serious" || v.impact === "critical")
-    .map((v) => `${v.id} (${v.impact}): ${v.help} at ${v.nodes.map((n) => JSON.stringify(n.target)).join(", ")}`);
-}
 
 /** The numbers in a chart's screen-reader table, by row header. */
 async function tableRows(page: Page, testId: string) {

@@ -4,14 +4,15 @@ import { EmptyState } from "@/components/ui/empty-state";
 import { PageHeader } from "@/components/ui/page-header";
 import { Spinner } from "@/components/ui/spinner";
 import { useCurrentUser } from "@/features/auth/hooks/use-current-user";
-import { jobQueries } from "@/features/jobs/api/jobs.queries";
-import { PortalJobCard } from "@/features/jobs/components/portal-job-card";
+import { portalQueries } from "@/features/portal/api/portal.queries";
+import { PortalJobCard } from "@/features/portal/components/portal-job-card";
 
 const CLOSED = ["delivered", "cancelled"];
 
 export default function MyJobsRoute() {
   const user = useCurrentUser();
-  const { data, isPending } = useQuery(jobQueries.list({ sort: "-updatedAt", pageSize: 50 }));
+  // The portal's own API: every job of this customer with its parts, most recently changed first, in one request.
+  const { data, isPending } = useQuery(portalQueries.jobs());
   const firstName = user.name.split(" ")[0];
   const jobs = data?.items ?? [];
   const current = jobs.filter((j) => !CLOSED.includes(j.stage));

@@ -8,7 +8,7 @@ import { paths } from "@/config/paths";
 import { StageBadge } from "@/features/jobs/components/stage-badge";
 import { portalQueries } from "@/features/portal/api/portal.queries";
 import { PortalJobDetails } from "@/features/portal/components/portal-job-details";
-import { ApprovedColour } from "@/features/panels/components/approved-colour";
+import { ApprovedColour } from "@/features/portal/components/approved-colour";
 import { InPageNotFound } from "../in-page-not-found";
 
 export default function PortalJobRoute() {

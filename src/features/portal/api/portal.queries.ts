@@ -1,5 +1,6 @@
 import { queryOptions, useMutation, useQueryClient } from "@tanstack/react-query";
 import { api, apiUrl } from "@/lib/api-client";
+import type { JobColourDto } from "@shared/schemas/panel.schema";
 import type { CheckoutDto } from "@shared/schemas/payment.schema";
 import type { ApproveQuoteInput, DeclineQuoteInput, PortalJobDto, PortalQuoteDto, PortalQuoteSummaryDto, PortalSessionDto } from "@shared/schemas/quote.schema";
 
@@ -16,6 +17,7 @@ export const portalKeys = {
   quote: (id: number, token?: string | null) => [...portalKeys.all, "quote", id, token ?? null] as const,
   jobs: (token?: string | null) => [...portalKeys.all, "jobs", token ?? null] as const,
   job: (id: number, token?: string | null) => [...portalKeys.all, "job", id, token ?? null] as const,
+  jobColour: (id: number) => [...portalKeys.all, "job", id, "colour"] as const,
 };
 
 export const portalQueries = {
@@ -50,6 +52,12 @@ export const portalQueries = {
     queryOptions({
       queryKey: portalKeys.job(id, token),
       queryFn: ({ signal }) => api.get<PortalJobDto>(`/portal/jobs/${id}`, { query: withToken(token), signal }),
+    }),
+  /** The job's agreed colour (its approved test panel), for a signed-in customer. */
+  jobColour: (id: number) =>
+    queryOptions({
+      queryKey: portalKeys.jobColour(id),
+      queryFn: ({ signal }) => api.get<JobColourDto>(`/jobs/${id}/colour`, { signal }),
     }),
 };
 

@@ -1,15 +1,14 @@
 import { Link } from "react-router";
-import { useQuery } from "@tanstack/react-query";
 import { Check } from "lucide-react";
 import { STAGE_LABELS, STAGES, type Stage } from "@shared/domain/stages";
-import { SUBSTRATE_LABELS, type Substrate } from "@shared/domain/substrates";
-import type { JobDto } from "@shared/schemas/job.schema";
+import { SUBSTRATE_LABELS, type AreaUnit, type Substrate } from "@shared/domain/substrates";
+import type { PortalJobDto } from "@shared/schemas/quote.schema";
 import { cn } from "@/utils/cn";
 import { paths } from "@/config/paths";
 import { formatDate } from "@/utils/format-date";
-import { jobQueries } from "../api/jobs.queries";
-import { formatArea } from "./item-area";
-import { StageBadge } from "./stage-badge";
+// Display pieces shared with the staff screens (no queries, no staff screens behind them).
+import { formatArea } from "@/features/jobs/components/item-area";
+import { StageBadge } from "@/features/jobs/components/stage-badge";
 
 /** What each stage means, told to the customer. */
 const CUSTOMER_STAGE_TEXT: Record<Stage, string> = {
@@ -44,9 +43,9 @@ function Progress({ stage }: { stage: Stage }) {
   );
 }
 
-/** One of the customer's jobs: where it is, when it is due, and the parts being painted. */
-export function PortalJobCard({ job }: { job: JobDto }) {
-  const { data: detail, isPending } = useQuery(jobQueries.detail(job.id));
+/** One of the customer's jobs (from the portal's own API, parts included): where it is, when it is due, the parts. */
+export function PortalJobCard({ job }: { job: PortalJobDto }) {
+  const stage = job.stage as Stage;
   const headingId = `portal-job-${job.id}`;
   return (
     <article aria-labelledby={headingId} className="flex flex-col gap-4 rounded-2xl border border-primer-200 bg-white p-5 shadow-card">
@@ -57,12 +56,12 @@ export function PortalJobCard({ job }: { job: JobDto }) {
             {job.title}
           </h3>
         </div>
-        <StageBadge stage={job.stage} size="lg" />
+        <StageBadge stage={stage} size="lg" />
       </div>
-      <Progress stage={job.stage} />
+      <Progress stage={stage} />
       <p className="flex items-start gap-2 text-ink-900">
         {job.stage === "ready" || job.stage === "delivered" ? <Check aria-hidden className="mt-0.5 size-5 shrink-0 text-emerald-700" /> : null}
-        {CUSTOMER_STAGE_TEXT[job.stage]}
+        {CUSTOMER_STAGE_TEXT[stage]}
       </p>
       {job.dueDate && job.stage !== "delivered" && job.stage !== "cancelled" ? (
         <p className="text-sm text-primer-700">
@@ -71,15 +70,13 @@ export function PortalJobCard({ job }: { job: JobDto }) {
       ) : null}
       <div>
         <h4 className="mb-2 text-sm font-semibold text-ink-950">Parts</h4>
-        {isPending ? (
-          <p className="text-sm text-primer-700">Loading parts…</p>
-        ) : detail && detail.items.length > 0 ? (
+        {job.items.length > 0 ? (
           <ul className="divide-y divide-primer-100 rounded-lg border border-primer-200">
-            {detail.items.map((item) => (
-              <li key={item.id} className="flex flex-wrap items-baseline justify-between gap-x-3 px-3 py-2 text-sm">
+            {job.items.map((item, i) => (
+              <li key={i} className="flex flex-wrap items-baseline justify-between gap-x-3 px-3 py-2 text-sm">
                 <span className="font-medium text-ink-950">{item.name}</span>
                 <span className="text-primer-700">
-                  {SUBSTRATE_LABELS[item.substrate as Substrate] ?? item.substrate} · {formatArea(item.surfaceArea, item.areaUnit)}
+                  {SUBSTRATE_LABELS[item.substrate as Substrate] ?? item.substrate} · {formatArea(item.surfaceArea, item.areaUnit as AreaUnit)}
                 </span>
               </li>
             ))}
