@@ -1,4 +1,7 @@
 import fc from "fast-check";
+import { mkdirSync, mkdtempSync, writeFileSync } from "node:fs";
+import { tmpdir } from "node:os";
+import path from "node:path";
 import { describe, expect, it } from "vitest";
 import type request from "supertest";
 import { makeShop, type Shop } from "../../support/test-app";
@@ -58,6 +61,19 @@ describe("fuzzing every route with hostile input", async () => {
   it("covers every route the routers list", () => {
     expect(routes.filter((r) => !MATRIX[`${r.method} ${r.path}`])).toEqual([]);
     expect(KEYS.length).toBeGreaterThan(15);
+  });
+
+  it("the app shell and static files answer hostile paths and query strings without a 5xx or internals", async () => {
+    const clientDir = mkdtempSync(path.join(tmpdir(), "cw-shell-"));
+    mkdirSync(path.join(clientDir, "assets"));
+    writeFileSync(path.join(clientDir, "index.html"), "<!doctype html><title>Coatwright</title>");
+    writeFileSync(path.join(clientDir, "assets", "app.js"), "export {}");
+    const shop = await makeShop({ clientDir });
+    await assertProp(fc.tuple(fc.constantFrom("", "assets/", "jobs/", "api/"), pathSegment, queryString(KEYS)), async ([dir, seg, qs]) => {
+      const res = await shop.as("anonymous").get(`/${dir}${seg}?${qs}`);
+      expect(res.status).toBeLessThan(500);
+      expect(typeof res.text === "string" && INTERNALS.test(res.text)).toBe(false);
+    });
   });
 
   for (const r of routes) {
