@@ -13,6 +13,7 @@ import { listRoutes } from "./http/route-list";
 import type { Mailer } from "./mail/mailer";
 import { createPayments, type PaymentsConfig } from "./payments/provider";
 import { keepRawBody } from "./http/raw-body";
+import { gzippedAssets } from "./http/gzipped-assets";
 import { authRouter } from "./modules/auth/auth.router";
 import { healthRouter } from "./modules/health/health.router";
 import { paintersRouter, usersRouter } from "./modules/users/users.router";
@@ -136,6 +137,7 @@ export function createApp(options: CreateAppOptions) {
 
   if (deps.clientDir && existsSync(path.join(deps.clientDir, "index.html"))) {
     const clientDir = deps.clientDir;
+    app.use(gzippedAssets(clientDir));
     app.use(express.static(clientDir, { index: false, maxAge: "1h" }));
     app.get("/{*splat}", (_req, res) => {
       res.sendFile(path.join(clientDir, "index.html"));

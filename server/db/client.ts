@@ -8,14 +8,39 @@ export type Db = BetterSQLite3Database<typeof schema> & { $client: Database.Data
 
 export const MIGRATIONS_FOLDER = fileURLToPath(new URL("../../drizzle", import.meta.url));
 
-/** Opens (or creates) the SQLite file with WAL and foreign keys on. Pass ":memory:" for a throwaway db. */
-export function openDb(file: string): Db {
+/** Opens (or creates) the SQLite file with WAL and foreign keys on. Pass ":memory:" for a throwaway db, or a
+ * serialized database (a Buffer) to start an in-memory copy of it. */
+export function openDb(file: string | Buffer): Db {
   const sqlite = new Database(file);
   sqlite.pragma("journal_mode = WAL");
   sqlite.pragma("foreign_keys = ON");
   sqlite.pragma("synchronous = NORMAL");
   sqlite.pragma("busy_timeout = 5000");
+  reuseStatements(sqlite);
   return drizzle({ client: sqlite, schema }) as Db;
+}
+
+/**
+ * Drizzle asks better-sqlite3 to prepare every query it runs, and compiling the SQL again each time costs about as
+ * much as running a small query. Keep the compiled statements (the most recently used STATEMENT_CACHE of them) and
+ * hand them back in their default mode (objects, not raw rows or plucked values).
+ */
+const STATEMENT_CACHE = 500;
+function reuseStatements(sqlite: Database.Database) {
+  const cache = new Map<string, Database.Statement>();
+  const prepare = sqlite.prepare.bind(sqlite);
+  sqlite.prepare = ((source: string) => {
+    let stmt = cache.get(source);
+    if (stmt && !stmt.busy) {
+      cache.delete(source);
+      if (stmt.reader) stmt.raw(false).pluck(false).expand(false);
+    } else {
+      stmt = prepare(source);
+      if (cache.size >= STATEMENT_CACHE) cache.delete(cache.keys().next().value!);
+    }
+    cache.set(source, stmt);
+    return stmt;
+  }) as typeof sqlite.prepare;
 }
 
 export function migrateDb(db: Db): void {

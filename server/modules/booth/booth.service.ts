@@ -1,4 +1,4 @@
-import { aliasedTable, and, asc, desc, eq, inArray, isNotNull } from "drizzle-orm";
+import { aliasedTable, and, asc, desc, eq, isNotNull, sql } from "drizzle-orm";
 import QRCode from "qrcode";
 import type { z } from "zod";
 import type { AppDeps } from "../../deps";
@@ -8,6 +8,7 @@ import { coatLogs, customers, jobItems, jobs, jobStageEvents, mixSheetLines, mix
 import { badRequest, conflict, forbidden, notFound } from "../../http/http-error";
 import { iso, isoOrNull } from "../../http/dates";
 import { findJobFor } from "../jobs/jobs.access";
+import { preparedQuery } from "../../db/prepared";
 import { freezePlanVersion, jobPlanRow, loadPlanVersion, type LoadedPlanVersion } from "../plans/plans.service";
 import { panelLabel } from "../panels/panels.service";
 import { prepStatusOf } from "../prep/prep.service";
@@ -40,32 +41,44 @@ export function canLogCoats(actor: Actor, job: Pick<JobRow, "assignedPainterId">
   return actor.role === "owner" || (actor.role === "painter" && job.assignedPainterId === actor.id);
 }
 
+const p = sql.placeholder;
+
+/*
+ * The booth card's queries are prepared once (see preparedQuery): the card is read on every tap and every 30 s by
+ * each tablet, and building the SQL anew each time cost more than running it.
+ */
+const latestVersionQuery = preparedQuery((db) =>
+  db.select({ id: planVersions.id }).from(planVersions).where(eq(planVersions.planId, p("planId"))).orderBy(desc(planVersions.version)).limit(1).prepare(),
+);
+const planNameQuery = preparedQuery((db) => db.select({ id: plans.id, name: plans.name }).from(plans).where(eq(plans.id, p("planId"))).prepare());
+
 /** The plan version the booth works from: the one already sprayed, else the latest version of the job's plan. */
 function boothVersion(deps: AppDeps, job: JobRow): { planId: number; planName: string; version: LoadedPlanVersion } | null {
   let versionId = job.sprayedPlanVersionId;
   if (versionId == null) {
     const plan = jobPlanRow(deps.db, job.id);
     if (!plan) return null;
-    const latest = deps.db.select({ id: planVersions.id }).from(planVersions).where(eq(planVersions.planId, plan.id)).orderBy(desc(planVersions.version)).limit(1).get();
+    const latest = latestVersionQuery(deps.db).get({ planId: plan.id });
     if (!latest) return null;
     versionId = latest.id;
   }
   const version = loadPlanVersion(deps, versionId);
-  const plan = deps.db.select({ id: plans.id, name: plans.name }).from(plans).where(eq(plans.id, version.planId)).get();
+  const plan = planNameQuery(deps.db).get({ planId: version.planId });
   return plan ? { planId: plan.id, planName: plan.name, version } : null;
 }
 
 const painterOf = aliasedTable(users, "coat_painter");
 
-function coatRows(deps: AppDeps, jobId: number) {
-  return deps.db
+const coatRowsQuery = preparedQuery((db) =>
+  db
     .select({ c: coatLogs, painterName: painterOf.name })
     .from(coatLogs)
     .leftJoin(painterOf, eq(coatLogs.painterId, painterOf.id))
-    .where(eq(coatLogs.jobId, jobId))
+    .where(eq(coatLogs.jobId, p("jobId")))
     .orderBy(asc(coatLogs.id))
-    .all();
-}
+    .prepare(),
+);
+const coatRows = (deps: AppDeps, jobId: number) => coatRowsQuery(deps.db).all({ jobId });
 
 const asEntry = (c: CoatRow): CoatEntry => ({ id: c.id, layerId: c.layerId, coatNumber: c.coatNumber, at: c.at, correctsId: c.correctsId, voids: c.voids });
 
@@ -94,23 +107,29 @@ function coatDtos(rows: { c: CoatRow; painterName: string | null }[], layerNames
   }));
 }
 
-function mixSheetDtos(deps: AppDeps, jobId: number): BoothMixSheetDto[] {
-  const mixer = aliasedTable(users, "mixer");
-  const sheets = deps.db
+const mixer = aliasedTable(users, "mixer");
+const sheetsQuery = preparedQuery((db) =>
+  db
     .select({ s: mixSheets, mixedByName: mixer.name })
     .from(mixSheets)
     .leftJoin(mixer, eq(mixSheets.mixedBy, mixer.id))
-    .where(eq(mixSheets.jobId, jobId))
+    .where(eq(mixSheets.jobId, p("jobId")))
     .orderBy(desc(mixSheets.createdAt), desc(mixSheets.id))
-    .all();
-  const lines = sheets.length
-    ? deps.db
-        .select({ sheetId: mixSheetLines.mixSheetId, position: mixSheetLines.position, label: mixSheetLines.label, plannedMl: mixSheetLines.plannedMl, actualMl: mixSheetLines.actualMl, lotNumber: mixSheetLines.lotNumber })
-        .from(mixSheetLines)
-        .where(inArray(mixSheetLines.mixSheetId, sheets.map((s) => s.s.id)))
-        .orderBy(asc(mixSheetLines.position))
-        .all()
-    : [];
+    .prepare(),
+);
+const sheetLinesQuery = preparedQuery((db) =>
+  db
+    .select({ sheetId: mixSheetLines.mixSheetId, position: mixSheetLines.position, label: mixSheetLines.label, plannedMl: mixSheetLines.plannedMl, actualMl: mixSheetLines.actualMl, lotNumber: mixSheetLines.lotNumber })
+    .from(mixSheetLines)
+    .innerJoin(mixSheets, eq(mixSheetLines.mixSheetId, mixSheets.id))
+    .where(eq(mixSheets.jobId, p("jobId")))
+    .orderBy(asc(mixSheetLines.position))
+    .prepare(),
+);
+
+function mixSheetDtos(deps: AppDeps, jobId: number): BoothMixSheetDto[] {
+  const sheets = sheetsQuery(deps.db).all({ jobId });
+  const lines = sheets.length ? sheetLinesQuery(deps.db).all({ jobId }) : [];
   return sheets.map(({ s, mixedByName }) => {
     const unit = s.unit;
     const potEnd = s.mixedAt != null && s.potLifeMinutes != null && s.potLifeMinutes > 0 ? potLifeEnds(new Date(s.mixedAt), s.potLifeMinutes).toISOString() : null;
@@ -137,24 +156,42 @@ function mixSheetDtos(deps: AppDeps, jobId: number): BoothMixSheetDto[] {
   });
 }
 
-/** Everything the booth card shows, in one response; computed from stored times only. No money anywhere. */
-export function getBooth(deps: AppDeps, actor: Actor, jobId: number): BoothDto {
-  const job = findJobFor(deps, actor, jobId);
-  const now = deps.now();
-  const head = deps.db
+const headQuery = preparedQuery((db) =>
+  db
     .select({ customerName: customers.name, painterName: users.name })
     .from(jobs)
     .innerJoin(customers, eq(jobs.customerId, customers.id))
     .leftJoin(users, eq(jobs.assignedPainterId, users.id))
-    .where(eq(jobs.id, jobId))
-    .get()!;
-  const items = deps.db
+    .where(eq(jobs.id, p("jobId")))
+    .prepare(),
+);
+const itemsQuery = preparedQuery((db) =>
+  db
     .select({ i: jobItems, prepId: prepRecords.id, signedOffAt: prepRecords.signedOffAt })
     .from(jobItems)
     .leftJoin(prepRecords, eq(prepRecords.itemId, jobItems.id))
-    .where(eq(jobItems.jobId, jobId))
+    .where(eq(jobItems.jobId, p("jobId")))
     .orderBy(asc(jobItems.id))
-    .all()
+    .prepare(),
+);
+const panelQuery = preparedQuery((db) => db.select().from(testPanels).where(eq(testPanels.id, p("panelId"))).prepare());
+const panelPhotoQuery = preparedQuery((db) =>
+  db
+    .select({ id: uploads.id, thumb: uploads.thumbName })
+    .from(uploads)
+    .where(and(eq(uploads.ownerType, "panel"), eq(uploads.ownerId, p("panelId")), eq(uploads.kind, "photo")))
+    .orderBy(asc(uploads.id))
+    .limit(1)
+    .prepare(),
+);
+
+/** Everything the booth card shows, in one response; computed from stored times only. No money anywhere. */
+export function getBooth(deps: AppDeps, actor: Actor, jobId: number): BoothDto {
+  const job = findJobFor(deps, actor, jobId);
+  const now = deps.now();
+  const head = headQuery(deps.db).get({ jobId })!;
+  const items = itemsQuery(deps.db)
+    .all({ jobId })
     .map(({ i, prepId, signedOffAt }) => ({
       id: i.id,
       name: i.name,
@@ -167,16 +204,10 @@ export function getBooth(deps: AppDeps, actor: Actor, jobId: number): BoothDto {
 
   let approvedPanel: BoothDto["job"]["approvedPanel"] = null;
   if (job.approvedPanelId != null) {
-    const p = deps.db.select().from(testPanels).where(eq(testPanels.id, job.approvedPanelId)).get();
-    if (p) {
-      const photo = deps.db
-        .select({ id: uploads.id, thumb: uploads.thumbName })
-        .from(uploads)
-        .where(and(eq(uploads.ownerType, "panel"), eq(uploads.ownerId, p.id), eq(uploads.kind, "photo")))
-        .orderBy(asc(uploads.id))
-        .limit(1)
-        .get();
-      approvedPanel = { id: p.id, label: panelLabel(p), thumbUrl: photo?.thumb ? `/api/uploads/${photo.id}/thumb` : null };
+    const panel = panelQuery(deps.db).get({ panelId: job.approvedPanelId });
+    if (panel) {
+      const photo = panelPhotoQuery(deps.db).get({ panelId: panel.id });
+      approvedPanel = { id: panel.id, label: panelLabel(panel), thumbUrl: photo?.thumb ? `/api/uploads/${photo.id}/thumb` : null };
     }
   }
 
@@ -270,18 +301,19 @@ export function getBooth(deps: AppDeps, actor: Actor, jobId: number): BoothDto {
   };
 }
 
+const conditionsQuery = preparedQuery((db, scope: "job" | "shop") =>
+  db
+    .select({ boothTemp: coatLogs.boothTemp, tempUnit: coatLogs.tempUnit, humidityPct: coatLogs.humidityPct })
+    .from(coatLogs)
+    .where(and(scope === "job" ? eq(coatLogs.jobId, p("jobId")) : undefined, isNotNull(coatLogs.tempUnit)))
+    .orderBy(desc(coatLogs.createdAt), desc(coatLogs.id))
+    .limit(1)
+    .prepare(),
+);
+
 /** The booth conditions of the latest entry on this job, else the shop's latest (same booth), to prefill the next tap. */
 function lastConditions(deps: AppDeps, jobId: number): BoothDto["lastConditions"] {
-  const pick = (where: ReturnType<typeof and>) =>
-    deps.db
-      .select({ boothTemp: coatLogs.boothTemp, tempUnit: coatLogs.tempUnit, humidityPct: coatLogs.humidityPct })
-      .from(coatLogs)
-      .where(where)
-      .orderBy(desc(coatLogs.createdAt), desc(coatLogs.id))
-      .limit(1)
-      .get();
-  const hasReading = isNotNull(coatLogs.tempUnit);
-  return pick(and(eq(coatLogs.jobId, jobId), hasReading)) ?? pick(and(hasReading)) ?? null;
+  return conditionsQuery(deps.db, "job").get({ jobId }) ?? conditionsQuery(deps.db, "shop").get({}) ?? null;
 }
 
 export function listCoatLogs(deps: AppDeps, actor: Actor, jobId: number): CoatLogDto[] {

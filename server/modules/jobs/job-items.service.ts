@@ -1,4 +1,5 @@
-import { and, asc, eq } from "drizzle-orm";
+import { and, asc, eq, sql } from "drizzle-orm";
+import { preparedQuery } from "../../db/prepared";
 import type { z } from "zod";
 import type { AppDeps } from "../../deps";
 import type { Actor } from "../../auth/session";
@@ -18,15 +19,16 @@ function toDto(row: typeof jobItems.$inferSelect, actor: Actor): JobItemDto {
   };
 }
 
+const itemsQuery = preparedQuery((db) => db.select().from(jobItems).where(eq(jobItems.jobId, sql.placeholder("jobId"))).orderBy(asc(jobItems.id)).prepare());
+
+/** A job's items, for a caller that has already checked the actor may see the job. */
+export function itemsOfJob(deps: AppDeps, actor: Actor, jobId: number): JobItemDto[] {
+  return itemsQuery(deps.db).all({ jobId }).map((r) => toDto(r, actor));
+}
+
 export function listItems(deps: AppDeps, actor: Actor, jobId: number): JobItemDto[] {
   findJobFor(deps, actor, jobId);
-  return deps.db
-    .select()
-    .from(jobItems)
-    .where(eq(jobItems.jobId, jobId))
-    .orderBy(asc(jobItems.id))
-    .all()
-    .map((r) => toDto(r, actor));
+  return itemsOfJob(deps, actor, jobId);
 }
 
 function findItem(deps: AppDeps, actor: Actor, jobId: number, itemId: number) {

@@ -1,7 +1,8 @@
-import { and, eq, type SQL } from "drizzle-orm";
+import { and, eq, sql, type SQL } from "drizzle-orm";
 import type { AppDeps } from "../../deps";
 import type { Actor } from "../../auth/session";
 import { jobs } from "../../db/schema";
+import { preparedQuery } from "../../db/prepared";
 import { notFound } from "../../http/http-error";
 
 /**
@@ -14,12 +15,26 @@ export function jobScope(actor: Actor): SQL | undefined {
   return undefined;
 }
 
-export function findJobFor(deps: AppDeps, actor: Actor, id: number) {
-  const job = deps.db
+/** The same scope for prepared queries: its form by role, its value as the placeholder "scope" (see scopeValues). */
+export type ScopeKind = "office" | "painter" | "customer";
+export const scopeKind = (actor: Actor): ScopeKind => (actor.role === "painter" || actor.role === "customer" ? actor.role : "office");
+export function preparedJobScope(kind: ScopeKind): SQL | undefined {
+  if (kind === "painter") return eq(jobs.assignedPainterId, sql.placeholder("scope"));
+  if (kind === "customer") return eq(jobs.customerId, sql.placeholder("scope"));
+  return undefined;
+}
+export const scopeValues = (actor: Actor) => ({ scope: actor.role === "painter" ? actor.id : (actor.customerId ?? -1) });
+
+const jobFor = preparedQuery((db, kind: ScopeKind) =>
+  db
     .select()
     .from(jobs)
-    .where(and(eq(jobs.id, id), jobScope(actor)))
-    .get();
+    .where(and(eq(jobs.id, sql.placeholder("id")), preparedJobScope(kind)))
+    .prepare(),
+);
+
+export function findJobFor(deps: AppDeps, actor: Actor, id: number) {
+  const job = jobFor(deps.db, scopeKind(actor)).get({ id, ...scopeValues(actor) });
   if (!job) throw notFound("Job");
   return job;
 }

@@ -3,7 +3,9 @@ import type { z } from "zod";
 import type { AppDeps } from "../../deps";
 import type { Actor } from "../../auth/session";
 import { customers, jobStageEvents, jobs, users } from "../../db/schema";
-import { badRequest, conflict } from "../../http/http-error";
+import { badRequest, conflict, notFound } from "../../http/http-error";
+import { preparedQuery } from "../../db/prepared";
+import type { Db } from "../../db/client";
 import { iso } from "../../http/dates";
 import { parseSort, type Page } from "../../../shared/api/pagination";
 import { nextStagesFor, STAGES, type Stage, STAGE_LABELS } from "../../../shared/domain/stages";
@@ -12,13 +14,12 @@ import type {
   JobDetailDto,
   JobDto,
   ListJobsQuery,
-  StageEventDto,
   changeStageInputSchema,
   createJobInputSchema,
   updateJobInputSchema,
 } from "../../../shared/schemas/job.schema";
-import { findJobFor, jobScope } from "./jobs.access";
-import { listItems } from "./job-items.service";
+import { findJobFor, jobScope, preparedJobScope, scopeKind, scopeValues, type ScopeKind } from "./jobs.access";
+import { itemsOfJob } from "./job-items.service";
 import { afterStageChange } from "../messages/messages.service";
 
 const painters = aliasedTable(users, "painter");
@@ -69,8 +70,8 @@ function toDto(row: JobRow, actor: Actor): JobDto {
   return dto;
 }
 
-function selectJobs(deps: AppDeps) {
-  return deps.db
+function selectJobs(db: Db) {
+  return db
     .select(jobColumns)
     .from(jobs)
     .innerJoin(customers, eq(jobs.customerId, customers.id))
@@ -95,38 +96,82 @@ function dateOnly(ms: number, addDays = 0) {
   return `${d.getFullYear()}-${pad(d.getMonth() + 1)}-${pad(d.getDate())}`;
 }
 
-function listFilters(deps: AppDeps, actor: Actor, q: ListJobsQuery): SQL | undefined {
-  const filters: (SQL | undefined)[] = [jobScope(actor)];
-  if (q.stage?.length) filters.push(inArray(jobs.stage, q.stage));
-  if (q.customerId) filters.push(eq(jobs.customerId, q.customerId));
-  if (q.painterId) filters.push(eq(jobs.assignedPainterId, q.painterId));
-  if (q.due) {
-    const today = dateOnly(deps.now());
+/** What a list request filters and sorts by: each combination is one prepared query; the values come per request. */
+type ListShape = { scope: ScopeKind; stages: number; customer: boolean; painter: boolean; due?: "overdue" | "week"; text: boolean; number: boolean; sort: string };
+
+const p = sql.placeholder;
+
+function listFilters(s: ListShape): SQL | undefined {
+  const filters: (SQL | undefined)[] = [preparedJobScope(s.scope)];
+  if (s.stages) filters.push(inArray(jobs.stage, Array.from({ length: s.stages }, (_, i) => p(`stage${i}`))));
+  if (s.customer) filters.push(eq(jobs.customerId, p("customerId")));
+  if (s.painter) filters.push(eq(jobs.assignedPainterId, p("painterId")));
+  if (s.due) {
     filters.push(notInArray(jobs.stage, ["ready", "delivered", "cancelled"]));
-    filters.push(q.due === "overdue" ? lt(jobs.dueDate, today) : and(gte(jobs.dueDate, today), lte(jobs.dueDate, dateOnly(deps.now(), 7))));
+    filters.push(s.due === "overdue" ? lt(jobs.dueDate, p("today")) : and(gte(jobs.dueDate, p("today")), lte(jobs.dueDate, p("weekEnd"))));
   }
-  if (q.q) {
-    const text = `%${q.q}%`;
-    const byNumber = /^#?\d+$/.test(q.q) ? eq(jobs.id, Number(q.q.replace("#", ""))) : undefined;
-    filters.push(or(like(jobs.title, text), like(customers.name, text), byNumber));
-  }
+  if (s.text) filters.push(or(like(jobs.title, p("text")), like(customers.name, p("text")), s.number ? eq(jobs.id, p("number")) : undefined));
   return and(...filters);
 }
 
-export function listJobs(deps: AppDeps, actor: Actor, q: ListJobsQuery): Page<JobDto> {
-  const where = listFilters(deps, actor, q);
-  const { field, desc: isDesc } = parseSort(q.sort);
+/**
+ * One page of the list. The page's ids are picked first from the jobs index alone, then only those rows are joined
+ * and counted: joining every matching job before sorting cost several times more on a large shop.
+ */
+const listPage = preparedQuery((db, s: ListShape) => {
+  const { field, desc: isDesc } = parseSort(s.sort);
   const col = SORT[field as keyof typeof SORT] ?? jobs.dueDate;
   // Jobs with no due date sort last either way.
-  const nullsLast = field === "dueDate" ? [sql`${jobs.dueDate} is null`] : [];
-  const rows = selectJobs(deps)
-    .where(where)
-    .orderBy(...nullsLast, isDesc ? desc(col) : asc(col), desc(jobs.id))
-    .limit(q.pageSize)
-    .offset((q.page - 1) * q.pageSize)
-    .all() as JobRow[];
-  const total =
-    deps.db.select({ n: count() }).from(jobs).innerJoin(customers, eq(jobs.customerId, customers.id)).where(where).get()?.n ?? 0;
+  const order = [...(field === "dueDate" ? [sql`${jobs.dueDate} is null`] : []), isDesc ? desc(col) : asc(col), desc(jobs.id)];
+  const ids = db.select({ id: jobs.id }).from(jobs);
+  const page = (s.text || field === "customer" ? ids.innerJoin(customers, eq(jobs.customerId, customers.id)) : ids)
+    .where(listFilters(s))
+    .orderBy(...order)
+    .limit(p("limit"))
+    .offset(p("offset"))
+    .as("page");
+  return db
+    .select(jobColumns)
+    .from(page)
+    .innerJoin(jobs, eq(jobs.id, page.id))
+    .innerJoin(customers, eq(jobs.customerId, customers.id))
+    .leftJoin(painters, eq(jobs.assignedPainterId, painters.id))
+    .orderBy(...order)
+    .prepare();
+}, JSON.stringify);
+
+/** The customers join is only needed to search by customer name. */
+const listTotal = preparedQuery((db, s: ListShape) => {
+  const from = db.select({ n: count() }).from(jobs);
+  return (s.text ? from.innerJoin(customers, eq(jobs.customerId, customers.id)) : from).where(listFilters(s)).prepare();
+}, JSON.stringify);
+
+export function listJobs(deps: AppDeps, actor: Actor, q: ListJobsQuery): Page<JobDto> {
+  const number = q.q && /^#?\d+$/.test(q.q) ? Number(q.q.replace("#", "")) : undefined;
+  const shape: ListShape = {
+    scope: scopeKind(actor),
+    stages: q.stage?.length ?? 0,
+    customer: Boolean(q.customerId),
+    painter: Boolean(q.painterId),
+    due: q.due,
+    text: Boolean(q.q),
+    number: number !== undefined,
+    sort: q.sort,
+  };
+  const values = {
+    ...scopeValues(actor),
+    ...Object.fromEntries((q.stage ?? []).map((stage, i) => [`stage${i}`, stage])),
+    customerId: q.customerId,
+    painterId: q.painterId,
+    today: dateOnly(deps.now()),
+    weekEnd: dateOnly(deps.now(), 7),
+    text: `%${q.q}%`,
+    number,
+    limit: q.pageSize,
+    offset: (q.page - 1) * q.pageSize,
+  };
+  const rows = listPage(deps.db, shape).all(values) as JobRow[];
+  const total = listTotal(deps.db, shape).get(values)?.n ?? 0;
   return { items: rows.map((r) => toDto(r, actor)), total, page: q.page, pageSize: q.pageSize };
 }
 
@@ -146,7 +191,7 @@ export function jobBoard(deps: AppDeps, actor: Actor): BoardDto {
   );
   const columns = STAGES.map((stage) => {
     const recentFirst = stage === "delivered" || stage === "cancelled";
-    const rows = selectJobs(deps)
+    const rows = selectJobs(deps.db)
       .where(and(eq(jobs.stage, stage), scope))
       .orderBy(...(recentFirst ? [desc(jobs.stageChangedAt)] : [sql`${jobs.dueDate} is null`, asc(jobs.dueDate)]), desc(jobs.id))
       .limit(BOARD_CARDS_PER_STAGE)
@@ -156,8 +201,8 @@ export function jobBoard(deps: AppDeps, actor: Actor): BoardDto {
   return { columns };
 }
 
-function stageEvents(deps: AppDeps, jobId: number): StageEventDto[] {
-  return deps.db
+const stageEventsOf = preparedQuery((db) =>
+  db
     .select({
       id: jobStageEvents.id,
       fromStage: jobStageEvents.fromStage,
@@ -168,21 +213,27 @@ function stageEvents(deps: AppDeps, jobId: number): StageEventDto[] {
     })
     .from(jobStageEvents)
     .leftJoin(users, eq(jobStageEvents.userId, users.id))
-    .where(eq(jobStageEvents.jobId, jobId))
+    .where(eq(jobStageEvents.jobId, p("jobId")))
     .orderBy(desc(jobStageEvents.at), desc(jobStageEvents.id))
-    .all()
-    .map((e) => ({ ...e, at: iso(e.at) }));
-}
+    .prepare(),
+);
 
+const jobRowFor = preparedQuery((db, kind: ScopeKind) =>
+  selectJobs(db)
+    .where(and(eq(jobs.id, p("id")), preparedJobScope(kind)))
+    .prepare(),
+);
+
+/** The job with its items and (for staff) its stage history; the access check is the first query's scope. */
 export function getJob(deps: AppDeps, actor: Actor, id: number): JobDetailDto {
-  findJobFor(deps, actor, id);
-  const row = selectJobs(deps).where(eq(jobs.id, id)).get() as JobRow;
+  const row = jobRowFor(deps.db, scopeKind(actor)).get({ id, ...scopeValues(actor) }) as JobRow | undefined;
+  if (!row) throw notFound("Job");
   const job = toDto(row, actor);
   const canMove = actor.role !== "painter" || row.assignedPainterId === actor.id;
   return {
     ...job,
-    items: listItems(deps, actor, id),
-    events: actor.role === "customer" ? [] : stageEvents(deps, id),
+    items: itemsOfJob(deps, actor, id),
+    events: actor.role === "customer" ? [] : stageEventsOf(deps.db).all({ jobId: id }).map((e) => ({ ...e, at: iso(e.at) })),
     nextStages: canMove ? nextStagesFor(actor.role, row.stage) : [],
   };
 }

@@ -1,4 +1,5 @@
-import { and, asc, count, desc, eq, inArray, isNotNull, like, max, type SQL } from "drizzle-orm";
+import { and, asc, count, desc, eq, inArray, isNotNull, like, max, sql, type SQL } from "drizzle-orm";
+import { preparedQuery } from "../../db/prepared";
 import type { AppDeps } from "../../deps";
 import type { Db } from "../../db/client";
 import type { Actor } from "../../auth/session";
@@ -66,25 +67,29 @@ export type LoadedPlanVersion = {
 
 type PlanRow = typeof plans.$inferSelect;
 
+const p = sql.placeholder;
+const versionQuery = preparedQuery((db: DbOrTx) =>
+  db.select({ v: planVersions, by: users.name }).from(planVersions).leftJoin(users, eq(planVersions.createdBy, users.id)).where(eq(planVersions.id, p("versionId"))).prepare(),
+);
+const layersQuery = preparedQuery((db: DbOrTx) =>
+  db.select().from(planLayers).where(eq(planLayers.versionId, p("versionId"))).orderBy(asc(planLayers.position), asc(planLayers.id)).prepare(),
+);
+const componentsQuery = preparedQuery((db: DbOrTx) =>
+  db
+    .select({ c: layerComponents, m: materials })
+    .from(layerComponents)
+    .innerJoin(planLayers, eq(layerComponents.layerId, planLayers.id))
+    .innerJoin(materials, eq(layerComponents.materialId, materials.id))
+    .where(eq(planLayers.versionId, p("versionId")))
+    .orderBy(asc(layerComponents.position), asc(layerComponents.id))
+    .prepare(),
+);
+
 export function loadPlanVersion(deps: { db: DbOrTx }, versionId: number): LoadedPlanVersion {
-  const v = deps.db
-    .select({ v: planVersions, by: users.name })
-    .from(planVersions)
-    .leftJoin(users, eq(planVersions.createdBy, users.id))
-    .where(eq(planVersions.id, versionId))
-    .get();
+  const v = versionQuery(deps.db).get({ versionId });
   if (!v) throw notFound("Plan version");
-  const layers = deps.db.select().from(planLayers).where(eq(planLayers.versionId, versionId)).orderBy(asc(planLayers.position), asc(planLayers.id)).all();
-  const layerIds = layers.map((l) => l.id);
-  const comps = layerIds.length
-    ? deps.db
-        .select({ c: layerComponents, m: materials })
-        .from(layerComponents)
-        .innerJoin(materials, eq(layerComponents.materialId, materials.id))
-        .where(inArray(layerComponents.layerId, layerIds))
-        .orderBy(asc(layerComponents.position), asc(layerComponents.id))
-        .all()
-    : [];
+  const layers = layersQuery(deps.db).all({ versionId });
+  const comps = layers.length ? componentsQuery(deps.db).all({ versionId }) : [];
   return {
     id: v.v.id,
     planId: v.v.planId,
@@ -220,8 +225,10 @@ export function getPlan(deps: AppDeps, actor: Actor, id: number): PlanDto {
 }
 
 /** The plan row of a job (one plan per job), or undefined. */
+const jobPlanQuery = preparedQuery((db: DbOrTx) => db.select().from(plans).where(eq(plans.jobId, p("jobId"))).orderBy(desc(plans.id)).limit(1).prepare());
+
 export function jobPlanRow(db: DbOrTx, jobId: number): PlanRow | undefined {
-  return db.select().from(plans).where(eq(plans.jobId, jobId)).orderBy(desc(plans.id)).limit(1).get();
+  return jobPlanQuery(db).get({ jobId });
 }
 
 export function getJobPlan(deps: AppDeps, actor: Actor, jobId: number): PlanDto | null {

@@ -1,0 +1,79 @@
+import { readFileSync } from "node:fs";
+import path from "node:path";
+import { gzipSync } from "node:zlib";
+import { chromium, type Browser } from "playwright-core";
+import { sessionIdOf } from "./capture";
+
+/** Debian's chromium with the flags tests/e2e/browser.ts uses on this machine's closed network. */
+export function launchChromium(): Promise<Browser> {
+  return chromium.launch({
+    executablePath: process.env.CHROMIUM_PATH ?? "/usr/bin/chromium",
+    args: ["--headless", "--no-sandbox", "--disable-gpu", "--disable-quic", "--no-first-run", "--disable-background-networking", "--disable-component-update", "--disable-sync"],
+  });
+}
+
+export type FirstVisit = { files: string[]; jsGzipBytes: number; cssGzipBytes: number; jsRawBytes: number; largest: { file: string; gzipBytes: number }[] };
+
+/** gzip level 9 (the most a server or CDN would squeeze out of a static file). */
+const gzipSize = (b: Buffer) => gzipSync(b, { level: 9 }).length;
+
+/**
+ * A first visit to `pathname` in a fresh context (empty cache) already signed in with `cookie`: every same-origin
+ * script and stylesheet it downloads until the network is quiet and `ready` is on screen, summed after gzip.
+ */
+export async function firstVisit(browser: Browser, baseUrl: string, pathname: string, cookie: string, ready: (page: import("playwright-core").Page) => Promise<unknown>): Promise<FirstVisit> {
+  const context = await browser.newContext({ viewport: { width: 820, height: 1180 } }); // a tablet in portrait
+  await context.addCookies([{ name: "cw_session", value: sessionIdOf(cookie), url: baseUrl }]);
+  const page = await context.newPage();
+  const bodies: Promise<{ url: string; type: string; bytes: Buffer }>[] = [];
+  page.on("response", (res) => {
+    const type = res.request().resourceType();
+    if (res.url().startsWith(baseUrl) && (type === "script" || type === "stylesheet") && res.ok()) bodies.push(res.body().then((bytes) => ({ url: res.url(), type, bytes })));
+  });
+  try {
+    await page.goto(baseUrl + pathname, { waitUntil: "networkidle" });
+    await ready(page);
+    await page.waitForLoadState("networkidle");
+    const got = (await Promise.all(bodies)).map((g) => ({ ...g, file: new URL(g.url).pathname.replace(/^\//, ""), gzipBytes: gzipSize(g.bytes) }));
+    const sum = (type: string, size: (g: (typeof got)[number]) => number) => got.filter((g) => g.type === type).reduce((n, g) => n + size(g), 0);
+    return {
+      files: got.map((g) => g.file),
+      jsGzipBytes: sum("script", (g) => g.gzipBytes),
+      cssGzipBytes: sum("stylesheet", (g) => g.gzipBytes),
+      jsRawBytes: sum("script", (g) => g.bytes.length),
+      largest: got
+        .filter((g) => g.type === "script")
+        .sort((a, b) => b.gzipBytes - a.gzipBytes)
+        .slice(0, 6)
+        .map(({ file, gzipBytes }) => ({ file, gzipBytes })),
+    };
+  } finally {
+    await context.close();
+  }
+}
+
+type ManifestChunk = { file: string; src?: string; isEntry?: boolean; imports?: string[]; dynamicImports?: string[] };
+
+/**
+ * From the build manifest: the chunks that only staff screens reach and those only the customer portal reaches
+ * (following static and lazy imports from each route module; chunks shared with other areas or loaded by the entry
+ * belong to neither).
+ */
+export function areaChunks(clientDir: string) {
+  const manifest = JSON.parse(readFileSync(path.join(clientDir, ".vite/manifest.json"), "utf8")) as Record<string, ManifestChunk>;
+  const areaOf = (key: string) => (key.startsWith("src/app/routes/staff/") ? "staff" : key.startsWith("src/app/routes/portal/") ? "portal" : "other");
+  const reachedBy = new Map<string, Set<string>>();
+  const walk = (key: string, area: string, seen: Set<string>) => {
+    if (seen.has(key) || !manifest[key] || manifest[key].isEntry) return;
+    seen.add(key);
+    const file = manifest[key].file;
+    if (!reachedBy.has(file)) reachedBy.set(file, new Set());
+    reachedBy.get(file)!.add(area);
+    for (const next of [...(manifest[key].imports ?? []), ...(manifest[key].dynamicImports ?? [])]) walk(next, area, seen);
+  };
+  const entry = Object.entries(manifest).find(([, c]) => c.isEntry)!;
+  for (const shared of entry[1].imports ?? []) walk(shared, "root", new Set());
+  for (const route of entry[1].dynamicImports ?? []) walk(route, areaOf(route), new Set());
+  const only = (area: string) => new Set([...reachedBy].filter(([, areas]) => areas.size === 1 && areas.has(area)).map(([file]) => file));
+  return { staffOnly: only("staff"), portalOnly: only("portal") };
+}
