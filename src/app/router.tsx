@@ -3,6 +3,7 @@ import { createBrowserRouter, Outlet } from "react-router";
 import type { QueryClient } from "@tanstack/react-query";
 import { FullPageSpinner } from "@/components/ui/spinner";
 import { authQueries } from "@/features/auth/api/auth.queries";
+import { serverStatusQueries } from "@/lib/server-status.queries";
 import { HomeRedirect } from "./routes/home-redirect";
 import { NotFoundPage } from "./routes/not-found";
 import { RouteError } from "./routes/route-error";
@@ -16,7 +17,8 @@ export function createAppRouter(queryClient: QueryClient) {
       id: "root",
       // Who is signed in is known before anything renders; the gates read it from the cache.
       loader: async () => {
-        await queryClient.ensureQueryData(authQueries.me());
+        // The health check (is this a demo with an outbox?) rides along, so the owner's menu is right at first paint.
+        await Promise.all([queryClient.ensureQueryData(authQueries.me()), queryClient.prefetchQuery(serverStatusQueries.health())]);
         return null;
       },
       shouldRevalidate: () => false,
