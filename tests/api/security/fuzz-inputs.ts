@@ -69,8 +69,7 @@ export function queryKeys(modules: Record<string, Record<string, unknown>>): str
   for (const m of Object.values(modules))
     for (const [name, v] of Object.entries(m)) {
       if (!/QuerySchema$/.test(name)) continue;
-      const shape = (v as { shape?: Record<string, unknown> } | undefined)?.shape ?? (v instanceof z.ZodType ? (v as any).def?.in?.shape : undefined);
-      for (const k of Object.keys(shape ?? {})) keys.add(k);
+      if (v instanceof z.ZodObject) for (const k of Object.keys(v.shape)) keys.add(k);
     }
   return [...keys];
 }

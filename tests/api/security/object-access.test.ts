@@ -2,7 +2,7 @@ import { beforeAll, describe, expect, it } from "vitest";
 import { signQuoteLink } from "../../../server/modules/portal/portal-link";
 import { makeDemoShop, type DemoShop } from "../../support/demo-shop";
 import type { RouteInfo } from "../../../server/http/route-list";
-import { fillPath, idPools, paramSets, type IdPools, type Params } from "./id-pools";
+import { fillPath, idPools, paramSets, type IdPools } from "./id-pools";
 
 /**
  * Object-level access on the full demo shop: the demo customer (and a holder of a link to one of that
@@ -71,7 +71,7 @@ const viewers = (): Viewer[] => [
 describe("a customer cannot reach another customer's records", () => {
   it("has records of every kind on other customers' jobs to aim at", () => {
     for (const k of ["jobs", "customers", "quotes", "payments", "plans", "mix-sheets", "uploads", "prep-records", "panels", "coat-logs"])
-      expect({ k, n: foreign.single[k]!.length }).toEqual({ k, n: expect.any(Number) }), expect(foreign.single[k]!.length).toBeGreaterThan(0);
+      expect({ k, found: foreign.single[k]!.length > 0 }).toEqual({ k, found: true });
     for (const k of ["items", "versions", "quoteVersions"]) expect(foreign.nested[k]!.length).toBeGreaterThan(0);
     expect(markers.length).toBeGreaterThan(10);
   });
@@ -140,4 +140,3 @@ describe("a customer cannot reach another customer's records", () => {
   });
 });
 
-export type { Params };
