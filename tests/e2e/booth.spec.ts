@@ -82,9 +82,18 @@ describe("booth card on a tablet", () => {
       expect(box!.height).toBeGreaterThanOrEqual(48);
     }
 
-    // Coat 1: the sealer. Conditions typed with the screen keyboard…
+    // Coat 1: the sealer. Conditions typed with the screen keyboard; a slip (150 % humidity) is caught on the
+    // tablet before anything is sent, beside the field, with the field focused…
     await page.getByLabel("Booth temperature", { exact: true }).fill("22");
-    await page.getByLabel("Humidity", { exact: true }).fill("46");
+    const humidity = page.getByLabel("Humidity", { exact: true });
+    await humidity.fill("150");
+    await logButton.click();
+    await expect.poll(() => humidity.getAttribute("aria-invalid")).toBe("true");
+    expect(await page.getByRole("form", { name: "Log a coat" }).innerText()).toMatch(/Humidity/);
+    expect(await humidity.evaluate((el) => el === document.activeElement)).toBe(true);
+    expect(await nextCoat.innerText()).toBe("Coat 1 of 1");
+    await humidity.fill("46");
+    expect(await humidity.getAttribute("aria-invalid")).toBeNull();
     await logButton.click();
     await expect.poll(() => nextCoat.innerText()).toBe("Coat 1 of 3");
     expect(await nextLayer.innerText()).toBe("Metallic ground");
@@ -132,6 +141,17 @@ describe("booth card on a tablet", () => {
 
     // The job moved into the booth with the first coat.
     expect(await page.getByText(/Booth card · Job #\d+ · In booth/).isVisible()).toBe(true);
+
+    // A misread humidity on the last coat is corrected (the dialog loads on first use); the entry stays, the
+    // correction sits beside it.
+    await page.getByRole("button", { name: "Correct coat 2 of Metallic ground" }).click();
+    const dialog = page.getByRole("dialog");
+    await dialog.getByLabel("What is wrong, and why").fill("Humidity read off the wrong gauge");
+    await dialog.getByLabel("Humidity %").fill("48");
+    await dialog.getByRole("button", { name: "Save correction" }).click();
+    await expect.poll(() => dialog.count()).toBe(0);
+    await expect.poll(() => log.innerText()).toMatch(/Correction of coat 2 · Metallic ground/);
+    expect(await log.innerText()).toMatch(/48% RH/);
     expect(errors).toEqual([]);
     await close();
   });

@@ -1,11 +1,13 @@
-import { useState } from "react";
+import { lazy, Suspense, useState } from "react";
 import type { BoothDto, CoatLogDto } from "@shared/schemas/booth.schema";
 import { Button } from "@/components/ui/button";
 import { Panel } from "@/components/ui/panel";
 import { formatDateTime } from "@/utils/format-date";
 import { cn } from "@/utils/cn";
 import { formatClock } from "./booth-timers";
-import { CorrectCoatDialog } from "./correct-coat-dialog";
+
+// Corrections are rare; the dialog and its form library load when the painter first opens one.
+const CorrectCoatDialog = lazy(() => import("./correct-coat-dialog").then((m) => ({ default: m.CorrectCoatDialog })));
 
 const STATUS: Record<CoatLogDto["status"], string> = { counts: "", corrected: "Corrected", voided: "Not sprayed", correction: "Correction" };
 
@@ -48,7 +50,11 @@ export function CoatLogList({ card }: { card: BoothDto }) {
           ))}
         </ol>
       )}
-      {correcting ? <CorrectCoatDialog jobId={card.job.id} entry={correcting} canVoid={correcting.id === latestCounting?.id} onClose={() => setCorrecting(null)} /> : null}
+      {correcting ? (
+        <Suspense fallback={null}>
+          <CorrectCoatDialog jobId={card.job.id} entry={correcting} canVoid={correcting.id === latestCounting?.id} onClose={() => setCorrecting(null)} />
+        </Suspense>
+      ) : null}
     </Panel>
   );
 }

@@ -55,7 +55,9 @@ export function CorrectCoatDialog({ jobId, entry, canVoid, onClose }: { jobId: n
     // Send only what the painter changed, so the rest carries over from the entry.
     const changed: Partial<Values> = { reason: values.reason, void: values.void };
     if (!values.void) {
-      if (dirtyFields.at && values.at) changed.at = values.at;
+      // The time field shows the entry's time to the minute; only a time the painter changed is sent (sending the
+      // shown value back would move the coat to the start of its minute, maybe before the job's first coat).
+      if (dirtyFields.at && values.at && values.at !== new Date(localInput(entry.at)).toISOString()) changed.at = values.at;
       if (dirtyFields.boothTemp || dirtyFields.tempUnit) {
         changed.boothTemp = values.boothTemp;
         changed.tempUnit = values.tempUnit;

@@ -1,13 +1,9 @@
-import { useEffect, useState } from "react";
+import { useEffect, useState, type ChangeEvent, type FormEvent } from "react";
 import { Link } from "react-router";
-import { useForm } from "react-hook-form";
-import { zodResolver } from "@hookform/resolvers/zod";
-import type { z } from "zod";
 import { CheckCircle2, PaintBucket, TriangleAlert } from "lucide-react";
 import { LAYER_KIND_LABELS } from "@shared/domain/layers";
-import { createCoatLogInputSchema, type BoothDto } from "@shared/schemas/booth.schema";
+import type { BoothDto } from "@shared/schemas/booth.schema";
 import { isApiError } from "@/lib/api-client";
-import { applyServerErrors } from "@/lib/form-errors";
 import { Alert } from "@/components/ui/alert";
 import { Button } from "@/components/ui/button";
 import { TextareaField } from "@/components/ui/form/textarea-field";
@@ -16,13 +12,11 @@ import { SafetyCautions } from "@/components/ui/safety-cautions";
 import { cn } from "@/utils/cn";
 import { PhotoUploadButton } from "@/features/uploads/components/photo-panel";
 import { useLogCoat } from "../api/booth.queries";
+import { useLogCoatForm } from "../hooks/use-log-coat-form";
 import { formatMinutes } from "../hooks/use-server-now";
 import { ConditionInput } from "./condition-input";
 import { formatClock, PotLifeTimer, StepTimer } from "./booth-timers";
 
-type LogInput = z.input<typeof createCoatLogInputSchema>;
-type LogValues = z.output<typeof createCoatLogInputSchema>;
-const FIELDS = ["boothTemp", "tempUnit", "humidityPct", "note", "prepOverrideReason", "coatNumber"] as const;
 
 /** The top of the booth card: what to spray next in large type, its timers and cautions, and the one-tap log. */
 export function NextStepPanel({ card, now, prepPath }: { card: BoothDto; now: number; prepPath: string }) {
@@ -128,58 +122,60 @@ function LogCoatForm({ card, prepPath }: { card: BoothDto; prepPath: string }) {
   const [overriding, setOverriding] = useState(false);
   const [noting, setNoting] = useState(false);
   const last = card.lastConditions;
-  const {
-    register,
-    handleSubmit,
-    setError,
-    setValue,
-    getValues,
-    watch,
-    resetField,
-    formState: { errors, isSubmitting },
-  } = useForm<LogInput, unknown, LogValues>({
-    resolver: zodResolver(createCoatLogInputSchema),
-    defaultValues: {
-      jobId: card.job.id,
-      layerId: next.layerId,
-      coatNumber: next.coat,
+  const form = useLogCoatForm(
+    { jobId: card.job.id, layerId: next.layerId, coatNumber: next.coat },
+    {
       boothTemp: last?.boothTemp != null ? String(last.boothTemp) : "",
       tempUnit: last?.tempUnit ?? "C",
       humidityPct: last?.humidityPct != null ? String(last.humidityPct) : "",
       note: "",
       prepOverrideReason: "",
     },
-  });
-  const unit = watch("tempUnit");
+  );
+  const { values, errors, set } = form;
+  const [submitting, setSubmitting] = useState(false);
 
   // Conditions carry over from the latest entry when the card refreshes.
   useEffect(() => {
-    if (last?.boothTemp != null && getValues("boothTemp") === "") setValue("boothTemp", String(last.boothTemp));
-  }, [last, getValues, setValue]);
+    if (last?.boothTemp != null && values.boothTemp === "") set("boothTemp", String(last.boothTemp));
+    // Only a new latest entry fills the field (not the painter clearing it), so `values` is not a dependency.
+  }, [last]);
 
   const step = (field: "boothTemp" | "humidityPct", delta: number, fallback: number) => {
-    const raw = Number(getValues(field));
-    const value = Number.isFinite(raw) && String(getValues(field)).trim() !== "" ? raw + delta : fallback;
-    setValue(field, String(Math.round(value * 10) / 10), { shouldValidate: true });
+    const raw = Number(values[field]);
+    const value = Number.isFinite(raw) && values[field].trim() !== "" ? raw + delta : fallback;
+    set(field, String(Math.round(value * 10) / 10));
   };
 
-  const submit = handleSubmit(async (values) => {
+  const submit = async (event: FormEvent<HTMLFormElement>) => {
+    event.preventDefault();
+    if (submitting) return;
     setProblem(null);
+    const parsed = form.validate();
+    if (!parsed) return;
+    setSubmitting(true);
     try {
-      const { jobId: _jobId, ...rest } = values;
+      const { jobId: _jobId, ...rest } = parsed;
       // No toast here: it would cover the log button. The "last logged" line below the button confirms it.
       await log.mutateAsync({ ...rest, prepOverrideReason: needsOverride ? rest.prepOverrideReason : undefined });
-      resetField("note");
+      set("note", "");
       setNoting(false);
     } catch (error) {
       if (isApiError(error) && error.fields.prepOverrideReason) setOverriding(true);
-      setProblem(applyServerErrors(error, setError, FIELDS));
+      setProblem(form.showServerErrors(error));
+    } finally {
+      setSubmitting(false);
     }
+  };
+  const field = <K extends "boothTemp" | "humidityPct" | "note" | "prepOverrideReason">(name: K) => ({
+    name,
+    value: values[name],
+    onChange: (e: ChangeEvent<HTMLInputElement | HTMLTextAreaElement>) => set(name, e.target.value),
   });
 
   const blocked = needsOverride && !overriding;
   return (
-    <form onSubmit={submit} noValidate className="@container flex flex-col gap-4" aria-label="Log a coat">
+    <form ref={form.formRef} onSubmit={submit} noValidate className="@container flex flex-col gap-4" aria-label="Log a coat">
       {problem ? <Alert tone="error">{problem}</Alert> : null}
       {needsOverride ? (
         <Alert tone="warning" title="Prep is not signed off">
@@ -208,8 +204,8 @@ function LogCoatForm({ card, prepPath }: { card: BoothDto; prepPath: string }) {
           required
           rows={2}
           className="text-lg"
-          error={errors.prepOverrideReason?.message}
-          {...register("prepOverrideReason")}
+          error={errors.prepOverrideReason}
+          {...field("prepOverrideReason")}
         />
       ) : null}
       <div className="grid gap-4 @[44rem]:grid-cols-2">
@@ -217,8 +213,8 @@ function LogCoatForm({ card, prepPath }: { card: BoothDto; prepPath: string }) {
           <ConditionInput
             label="Booth temperature"
             suffix=""
-            error={errors.boothTemp?.message ?? errors.tempUnit?.message}
-            onStep={(d) => step("boothTemp", d, unit === "F" ? 70 : 21)}
+            error={errors.boothTemp ?? errors.tempUnit}
+            onStep={(d) => step("boothTemp", d, values.tempUnit === "F" ? 70 : 21)}
             labelAside={
               <fieldset className="flex gap-1.5">
                 <legend className="sr-only">Temperature unit</legend>
@@ -227,21 +223,21 @@ function LogCoatForm({ card, prepPath }: { card: BoothDto; prepPath: string }) {
                     key={u}
                     className={cn(
                       "grid min-h-12 w-14 cursor-pointer place-items-center rounded-lg border-2 text-base font-semibold has-focus-visible:outline-3 has-focus-visible:outline-offset-2 has-focus-visible:outline-candy-600",
-                      unit === u ? "border-ink-900 bg-ink-900 text-white" : "border-primer-400 bg-white text-ink-950",
+                      values.tempUnit === u ? "border-ink-900 bg-ink-900 text-white" : "border-primer-400 bg-white text-ink-950",
                     )}
                   >
-                    <input type="radio" value={u} className="sr-only" {...register("tempUnit")} />°{u}
+                    <input type="radio" name="tempUnit" value={u} className="sr-only" checked={values.tempUnit === u} onChange={() => set("tempUnit", u)} />°{u}
                   </label>
                 ))}
               </fieldset>
             }
-            {...register("boothTemp")}
+            {...field("boothTemp")}
           />
         </div>
-        <ConditionInput label="Humidity" suffix="%" error={errors.humidityPct?.message} onStep={(d) => step("humidityPct", d, 50)} {...register("humidityPct")} />
+        <ConditionInput label="Humidity" suffix="%" error={errors.humidityPct} onStep={(d) => step("humidityPct", d, 50)} {...field("humidityPct")} />
       </div>
       {noting || errors.note ? (
-        <TextField label="Note (optional)" placeholder="e.g. light orange peel on the left side" className="min-h-12 text-lg" error={errors.note?.message} autoFocus {...register("note")} />
+        <TextField label="Note (optional)" placeholder="e.g. light orange peel on the left side" className="min-h-12 text-lg" error={errors.note} autoFocus {...field("note")} />
       ) : (
         <Button variant="ghost" size="lg" className="self-start" onClick={() => setNoting(true)}>
           + Add a note to this coat
@@ -251,7 +247,7 @@ function LogCoatForm({ card, prepPath }: { card: BoothDto; prepPath: string }) {
         type="submit"
         size="lg"
         block
-        pending={isSubmitting}
+        pending={submitting}
         disabled={blocked}
         icon={<PaintBucket aria-hidden className="size-7" />}
         className="min-h-20 rounded-2xl text-2xl"
