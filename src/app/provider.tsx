@@ -1,11 +1,10 @@
-import { useState } from "react";
 import { MutationCache, QueryCache, QueryClient, QueryClientProvider } from "@tanstack/react-query";
 import { RouterProvider } from "react-router";
 import { isApiError } from "@/lib/api-client";
 import { toast } from "@/components/ui/toast/toast-store";
 import { Toaster } from "@/components/ui/toast/toaster";
 import { authKeys } from "@/features/auth/api/auth.queries";
-import { createAppRouter } from "./router";
+import type { AppRouter } from "./router";
 
 /** Errors the screen cannot work around: server faults, an unreachable server, bugs. They go to an error boundary. */
 function isFatal(error: unknown): boolean {
@@ -54,9 +53,8 @@ export function createQueryClient() {
   return queryClient;
 }
 
-export function AppProvider() {
-  const [queryClient] = useState(createQueryClient);
-  const [router] = useState(() => createAppRouter(queryClient));
+/** Made before the first render (see main.tsx), so the router is already fetching the page's code and data. */
+export function AppProvider({ queryClient, router }: { queryClient: QueryClient; router: AppRouter }) {
   return (
     <QueryClientProvider client={queryClient}>
       <RouterProvider router={router} />

@@ -1,5 +1,5 @@
 import type { ComponentType } from "react";
-import { createBrowserRouter, Outlet } from "react-router";
+import { createBrowserRouter, Outlet, type LoaderFunctionArgs } from "react-router";
 import type { QueryClient } from "@tanstack/react-query";
 import { FullPageSpinner } from "@/components/ui/spinner";
 import { authQueries } from "@/features/auth/api/auth.queries";
@@ -8,10 +8,24 @@ import { HomeRedirect } from "./routes/home-redirect";
 import { NotFoundPage } from "./routes/not-found";
 import { RouteError } from "./routes/route-error";
 
+/**
+ * A route module: its screen, and optionally `prefetch`, which starts the screen's queries the moment the module has
+ * loaded, so the data is on its way while the screen renders for the first time. It must not wait for them.
+ */
+export type RouteModule = { default: ComponentType; prefetch?: (queryClient: QueryClient, args: LoaderFunctionArgs) => void };
+
 /** Loads a route module on first visit: each screen (and the portal apart from the staff app) is its own chunk. */
-const page = (load: () => Promise<{ default: ComponentType }>) => async () => ({ Component: (await load()).default });
+function lazyPage(queryClient: QueryClient) {
+  return (load: () => Promise<RouteModule>) => async () => {
+    const { default: Component, prefetch } = await load();
+    return prefetch ? { Component, loader: (args: LoaderFunctionArgs) => (prefetch(queryClient, args), null) } : { Component };
+  };
+}
+
+export type AppRouter = ReturnType<typeof createAppRouter>;
 
 export function createAppRouter(queryClient: QueryClient) {
+  const page = lazyPage(queryClient);
   return createBrowserRouter([
     {
       id: "root",

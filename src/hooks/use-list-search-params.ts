@@ -20,13 +20,8 @@ export type ListSearchParams<F extends string> = {
   update: (patch: Record<string, string | number | readonly string[] | null | undefined>, options?: { replace?: boolean }) => void;
 };
 
-/**
- * A list's paging, sorting and search live in the URL, so a filtered view can be bookmarked,
- * shared and restored with Back. Values the server would refuse fall back to defaults.
- */
-export function useListSearchParams<F extends string>({ sortFields, defaultSort, defaultPageSize = 25 }: Options<F>): ListSearchParams<F> {
-  const [searchParams, setSearchParams] = useSearchParams();
-
+/** Paging, sorting and search from a list's URL, with defaults for anything missing or not allowed. */
+export function readListParams<F extends string>(searchParams: URLSearchParams, { sortFields, defaultSort, defaultPageSize = 25 }: Options<F>) {
   const page = Math.max(1, Number.parseInt(searchParams.get("page") ?? "", 10) || 1);
   const sizeParam = Number.parseInt(searchParams.get("pageSize") ?? "", 10);
   const pageSize = (PAGE_SIZES as readonly number[]).includes(sizeParam) ? sizeParam : defaultPageSize;
@@ -34,6 +29,16 @@ export function useListSearchParams<F extends string>({ sortFields, defaultSort,
   const sortField = sortParam.replace(/^-/, "");
   const sort = (sortFields as readonly string[]).includes(sortField) ? (sortParam as F | `-${F}`) : defaultSort;
   const q = searchParams.get("q") ?? "";
+  return { page, pageSize, sort, q };
+}
+
+/**
+ * A list's paging, sorting and search live in the URL, so a filtered view can be bookmarked,
+ * shared and restored with Back. Values the server would refuse fall back to defaults.
+ */
+export function useListSearchParams<F extends string>(options: Options<F>): ListSearchParams<F> {
+  const [searchParams, setSearchParams] = useSearchParams();
+  const { page, pageSize, sort, q } = readListParams(searchParams, options);
 
   const update = useCallback<ListSearchParams<F>["update"]>(
     (patch, options) => {

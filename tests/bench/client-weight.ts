@@ -2,6 +2,7 @@ import { readFileSync } from "node:fs";
 import path from "node:path";
 import { gzipSync } from "node:zlib";
 import { chromium, type Browser } from "playwright-core";
+import { isPortalCode, isStaffCode } from "../support/code-areas";
 import { sessionIdOf } from "./capture";
 
 /** Debian's chromium with the flags tests/e2e/browser.ts uses on this machine's closed network. */
@@ -52,28 +53,12 @@ export async function firstVisit(browser: Browser, baseUrl: string, pathname: st
   }
 }
 
-type ManifestChunk = { file: string; src?: string; isEntry?: boolean; imports?: string[]; dynamicImports?: string[] };
-
 /**
- * From the build manifest: the chunks that only staff screens reach and those only the customer portal reaches
- * (following static and lazy imports from each route module; chunks shared with other areas or loaded by the entry
- * belong to neither).
+ * From dist/.vite/chunk-modules.json: the chunks that hold staff-screen code and those that hold portal code (the
+ * same module rules as the route-splitting browser test).
  */
 export function areaChunks(clientDir: string) {
-  const manifest = JSON.parse(readFileSync(path.join(clientDir, ".vite/manifest.json"), "utf8")) as Record<string, ManifestChunk>;
-  const areaOf = (key: string) => (key.startsWith("src/app/routes/staff/") ? "staff" : key.startsWith("src/app/routes/portal/") ? "portal" : "other");
-  const reachedBy = new Map<string, Set<string>>();
-  const walk = (key: string, area: string, seen: Set<string>) => {
-    if (seen.has(key) || !manifest[key] || manifest[key].isEntry) return;
-    seen.add(key);
-    const file = manifest[key].file;
-    if (!reachedBy.has(file)) reachedBy.set(file, new Set());
-    reachedBy.get(file)!.add(area);
-    for (const next of [...(manifest[key].imports ?? []), ...(manifest[key].dynamicImports ?? [])]) walk(next, area, seen);
-  };
-  const entry = Object.entries(manifest).find(([, c]) => c.isEntry)!;
-  for (const shared of entry[1].imports ?? []) walk(shared, "root", new Set());
-  for (const route of entry[1].dynamicImports ?? []) walk(route, areaOf(route), new Set());
-  const only = (area: string) => new Set([...reachedBy].filter(([, areas]) => areas.size === 1 && areas.has(area)).map(([file]) => file));
-  return { staffOnly: only("staff"), portalOnly: only("portal") };
+  const modules = JSON.parse(readFileSync(path.join(clientDir, ".vite/chunk-modules.json"), "utf8")) as Record<string, string[]>;
+  const holding = (isArea: (module: string) => boolean) => new Set(Object.entries(modules).filter(([, ids]) => ids.some(isArea)).map(([file]) => file));
+  return { staff: holding(isStaffCode), portal: holding(isPortalCode) };
 }

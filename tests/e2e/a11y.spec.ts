@@ -5,6 +5,7 @@ import { readFileSync } from "node:fs";
 import { loadAppSecret } from "../../server/app-secret";
 import { signQuoteLink } from "../../server/modules/portal/portal-link";
 import { ARTEFACTS, launch, newPage, recordCspViolations, seriousViolations, signIn } from "./browser";
+import { isPortalCode, isStaffCode } from "../support/code-areas";
 
 /**
  * The built app as its users meet it, on the demo shop:
@@ -271,29 +272,17 @@ describe("Content-Security-Policy", () => {
 });
 
 // ---------------------------------------------------------------------------------------------------------------
-// Route splitting. dist/.vite/manifest.json names the source of each entry and route chunk; dist/.vite/
-// chunk-modules.json (written by a small plugin in vite.config.ts) lists the modules inside every chunk, shared
-// ones included. Together they say what a page downloaded.
+// Route splitting. dist/.vite/chunk-modules.json (written by a small plugin in vite.config.ts) lists the modules
+// inside every chunk, route chunks and shared ones alike, so it says what a page downloaded. (The manifest is not
+// enough: the bundler may fold a route module into a chunk it shares with a lazy piece of that screen.)
 
-type ManifestEntry = { file: string; src?: string; isEntry?: boolean; isDynamicEntry?: boolean };
+/** The screens' modules: every file under routes/auth, routes/staff and routes/portal, and the account page. */
+const ROUTE_MODULE = /^src\/app\/routes\/((auth|staff|portal)\/[^/]+|account\.tsx)$/;
+
 function buildMaps() {
-  const manifest = JSON.parse(readFileSync(path.join(DIST, ".vite/manifest.json"), "utf8")) as Record<string, ManifestEntry>;
   const modules = JSON.parse(readFileSync(path.join(DIST, ".vite/chunk-modules.json"), "utf8")) as Record<string, string[]>;
-  const routeOf = new Map(Object.values(manifest).filter((e) => e.src && e.file.endsWith(".js")).map((e) => [e.file, e.src!]));
-  return { modules, routeOf };
+  return { modules };
 }
-
-const STAFF_CODE = [/^src\/app\/routes\/staff\//, /^src\/components\/layouts\/app-shell\./, /^src\/features\/(?!auth\/|portal\/)/];
-const PORTAL_CODE = [/^src\/app\/routes\/portal\//, /^src\/components\/layouts\/portal-shell\./, /^src\/features\/portal\//];
-/**
- * Display pieces that live beside the staff features and that the portal shows too: no queries, no mutations and
- * no staff screen behind them. Anything else from a staff feature in a portal download is a failure.
- */
-const SHARED_DISPLAY = new Set([
-  "src/features/jobs/components/stage-badge.tsx",
-  "src/features/jobs/components/item-area.ts",
-  "src/features/panels/components/panel-swatch.tsx",
-]);
 
 /** A fresh browser (empty cache) that records the path of every script it requests. */
 async function scriptRecorder(viewport?: { width: number; height: number }) {
@@ -308,12 +297,12 @@ async function scriptRecorder(viewport?: { width: number; height: number }) {
 
 /** What the scripts hold: each chunk's route (when it is one) and modules; fails on a chunk the build maps do not know. */
 function contentsOf(scripts: Set<string>) {
-  const { modules, routeOf } = buildMaps();
+  const { modules } = buildMaps();
   const unknown = [...scripts].filter((f) => !modules[f]);
   expect(unknown, "every downloaded script is in dist/.vite/chunk-modules.json (rebuild dist/ if this fails)").toEqual([]);
-  const routes = [...scripts].flatMap((f) => (routeOf.has(f) ? [routeOf.get(f)!] : []));
   const byModule = new Map<string, string>();
   for (const f of scripts) for (const m of modules[f]!) byModule.set(m, f);
+  const routes = [...byModule.keys()].filter((m) => ROUTE_MODULE.test(m));
   return { routes, byModule };
 }
 
@@ -345,7 +334,7 @@ describe("route splitting", () => {
       expect(routes, `the portal downloaded ${r}`).toContain(r);
     // …and no staff screen, staff shell or staff feature code came with them.
     expect(routes.filter((r) => r.startsWith("src/app/routes/staff/")), "staff route chunks downloaded by the portal").toEqual([]);
-    const staff = [...byModule].filter(([m]) => STAFF_CODE.some((re) => re.test(m)) && !SHARED_DISPLAY.has(m)).map(([m, f]) => `${m} (in ${f})`);
+    const staff = [...byModule].filter(([m]) => isStaffCode(m)).map(([m, f]) => `${m} (in ${f})`);
     expect(staff, "staff code downloaded by the portal").toEqual([]);
     expect(errors).toEqual([]);
     await close();
@@ -366,7 +355,7 @@ describe("route splitting", () => {
     const { routes, byModule } = contentsOf(scripts);
     expect(routes).toContain("src/app/routes/staff/booth-card.tsx");
     expect(routes.filter((r) => r.startsWith("src/app/routes/portal/")), "portal route chunks downloaded by the booth card").toEqual([]);
-    const portal = [...byModule].filter(([m]) => PORTAL_CODE.some((re) => re.test(m))).map(([m, f]) => `${m} (in ${f})`);
+    const portal = [...byModule].filter(([m]) => isPortalCode(m)).map(([m, f]) => `${m} (in ${f})`);
     expect(portal, "portal code downloaded by the booth card").toEqual([]);
     // Only the screens on the way were loaded: sign-in, the staff shell and the card (no dashboard, no board…).
     expect(routes.filter((r) => r.startsWith("src/app/routes/")).sort()).toEqual(

@@ -7,6 +7,17 @@ import { paths } from "@/config/paths";
 import { useCurrentUser } from "@/features/auth/hooks/use-current-user";
 import { JobsTable } from "@/features/jobs/components/jobs-table";
 import { userQueries } from "@/features/users/api/users.queries";
+import { authQueries } from "@/features/auth/api/auth.queries";
+import { jobQueries } from "@/features/jobs/api/jobs.queries";
+import { readJobListParams } from "@/features/jobs/hooks/use-job-list-params";
+import type { RouteModule } from "@/app/router";
+
+/** The table's page for this URL (and the painter filter's list, for the office) start loading with the screen. */
+export const prefetch: RouteModule["prefetch"] = (queryClient, { request }) => {
+  void queryClient.prefetchQuery(jobQueries.list(readJobListParams(new URL(request.url).searchParams).query));
+  const user = queryClient.getQueryData(authQueries.me().queryKey);
+  if (user && roleCan(user.role, "office")) void queryClient.prefetchQuery(userQueries.painters());
+};
 
 export default function JobsRoute() {
   const user = useCurrentUser();

@@ -1,7 +1,7 @@
 import { useMemo } from "react";
 import { OPEN_STAGES, STAGES, type Stage } from "@shared/domain/stages";
 import { JOB_SORT_FIELDS } from "@shared/schemas/job.schema";
-import { useListSearchParams } from "@/hooks/use-list-search-params";
+import { readListParams, useListSearchParams } from "@/hooks/use-list-search-params";
 import type { JobListParams } from "../api/jobs.queries";
 
 export type DueFilter = "" | "overdue" | "week";
@@ -16,10 +16,11 @@ export function stageParamFor(stages: readonly Stage[]): string | null {
   return sorted.join(",");
 }
 
-/** The jobs list's state, read from and written to the URL: ?q=&stage=a,b|all&due=&painter=&customer=&sort=&page=&pageSize= */
-export function useJobListParams() {
-  const list = useListSearchParams({ sortFields: JOB_SORT_FIELDS, defaultSort: "dueDate" });
-  const { searchParams } = list;
+const LIST_OPTIONS = { sortFields: JOB_SORT_FIELDS, defaultSort: "dueDate" } as const;
+
+/** The jobs list's filters and the API query they make, from its URL (also used to fetch ahead of the screen). */
+export function readJobListParams(searchParams: URLSearchParams) {
+  const list = readListParams(searchParams, LIST_OPTIONS);
   const stageParam = searchParams.get("stage") ?? "";
   const dueParam = searchParams.get("due") ?? "";
   const painterId = searchParams.get("painter") ?? "";
@@ -27,27 +28,29 @@ export function useJobListParams() {
   const customerId = customerParam > 0 ? customerParam : undefined;
 
   // No ?stage= means open work only (the usual view); ?stage=all lifts the stage filter.
-  const stages = useMemo<Stage[]>(() => {
-    if (stageParam === "") return [...OPEN_STAGES];
-    if (stageParam === ALL) return [];
-    return stageParam.split(",").filter((s): s is Stage => (STAGES as readonly string[]).includes(s));
-  }, [stageParam]);
+  const stages: Stage[] =
+    stageParam === "" ? [...OPEN_STAGES] : stageParam === ALL ? [] : stageParam.split(",").filter((s): s is Stage => (STAGES as readonly string[]).includes(s));
   const due: DueFilter = dueParam === "overdue" || dueParam === "week" ? dueParam : "";
 
-  const query: JobListParams = useMemo(
-    () => ({
-      page: list.page,
-      pageSize: list.pageSize,
-      sort: list.sort,
-      ...(list.q ? { q: list.q } : {}),
-      ...(stages.length ? { stage: stages } : {}),
-      ...(due ? { due } : {}),
-      ...(painterId ? { painterId } : {}),
-      ...(customerId ? { customerId } : {}),
-    }),
-    [list.page, list.pageSize, list.sort, list.q, stages, due, painterId, customerId],
-  );
-
+  const query: JobListParams = {
+    page: list.page,
+    pageSize: list.pageSize,
+    sort: list.sort,
+    ...(list.q ? { q: list.q } : {}),
+    ...(stages.length ? { stage: stages } : {}),
+    ...(due ? { due } : {}),
+    ...(painterId ? { painterId } : {}),
+    ...(customerId ? { customerId } : {}),
+  };
   const filtered = Boolean(list.q || stageParam || due || painterId || customerId);
-  return { ...list, stages, due, painterId, customerId, query, filtered };
+  return { stages, due, painterId, customerId, query, filtered };
+}
+
+/** The jobs list's state, read from and written to the URL: ?q=&stage=a,b|all&due=&painter=&customer=&sort=&page=&pageSize= */
+export function useJobListParams() {
+  const list = useListSearchParams(LIST_OPTIONS);
+  const key = list.searchParams.toString();
+  // Recomputed only when the URL changes, so the query and the stage list keep their identity between renders.
+  const filters = useMemo(() => readJobListParams(new URLSearchParams(key)), [key]);
+  return { ...list, ...filters };
 }
