@@ -98,7 +98,14 @@ export function createApp(options: CreateAppOptions) {
     }),
   );
 
+  // API answers hold private shop and customer records: never stored by the browser or a proxy. With nothing
+  // stored, an ETag (a hash of every body) would only cost time, so res.json sends none.
+  app.set("etag", false);
   const api = express.Router();
+  api.use((_req, res, next) => {
+    res.set("Cache-Control", "no-store");
+    next();
+  });
   api.use(express.json({ limit: "200kb", verify: keepRawBody }));
   api.use(originCheck());
   api.use(sessionMiddleware(deps.lucia));

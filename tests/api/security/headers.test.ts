@@ -49,6 +49,17 @@ describe("security headers", () => {
     expect(res.headers["content-security-policy"]).toBeTruthy();
   });
 
+  it.each(answers.filter(([what]) => what !== "the app shell"))("%s is never stored by the browser or a proxy (private records)", async (_what, call) => {
+    const res = await call();
+    expect(res.headers["cache-control"]).toBe("no-store");
+    expect(res.headers.etag).toBeUndefined();
+  });
+
+  it("the app shell may be cached but is checked each time, so a new build is picked up", async () => {
+    const res = await answers[0][1]();
+    expect(res.headers["cache-control"]).toBe("public, max-age=0");
+  });
+
   it("the Content-Security-Policy allows only the app's own scripts, no inline script or eval, no plugins, no framing", async () => {
     const res = await request(t.app).get("/");
     expect(res.status).toBe(200);
