@@ -38,6 +38,8 @@ export type BenchReport = {
   lighthouse: Record<string, { performance: number | null; accessibility: number | null }>;
   lighthouseDesktop: Record<string, { performance: number | null; accessibility: number | null }>;
   lighthouseNotes: Record<string, string[]>;
+  /** Each run's performance score and the machine's benchmarkIndex, per page and preset (the tables show the median run). */
+  lighthouseRuns: Record<string, { mobile: (number | null)[]; desktop: (number | null)[]; benchmarkIndex: number[] }>;
   checks: Check[];
   environment: Record<string, unknown>;
   wallSeconds: number;
@@ -102,7 +104,11 @@ export function printReport(r: BenchReport, lighthousePreset: string) {
       ["Lighthouse page", `performance (${lighthousePreset})`, "accessibility", "performance (desktop preset)", "accessibility (desktop)"],
       Object.keys(r.lighthouse).map((p) => [p, r.lighthouse[p]!.performance ?? "-", r.lighthouse[p]!.accessibility ?? "-", r.lighthouseDesktop[p]?.performance ?? "-", r.lighthouseDesktop[p]?.accessibility ?? "-"]),
     ),
-    ...Object.entries(r.lighthouseNotes).map(([p, notes]) => `  ${p}: ${notes.join("; ")}`),
+    `  median of ${Object.values(r.lighthouseRuns)[0]?.mobile.length ?? 0} runs per page and preset; every run's score: ${Object.entries(r.lighthouseRuns)
+      .map(([p, runs]) => `${p} mobile ${runs.mobile.join("/")}, desktop ${runs.desktop.join("/")}`)
+      .join("; ")}`,
+    `  machine speed (Lighthouse benchmarkIndex) over the runs: ${Math.min(...Object.values(r.lighthouseRuns).flatMap((x) => x.benchmarkIndex))}–${Math.max(...Object.values(r.lighthouseRuns).flatMap((x) => x.benchmarkIndex))}`,
+    ...Object.entries(r.lighthouseNotes).map(([p, notes]) => `  ${p} (mobile, median run): ${notes.join("; ")}`),
     "",
     table(["target", "wanted", "measured", ""], r.checks.map((c) => [c.name, c.target, c.value, mark(c.pass)])),
     "",

@@ -12,7 +12,7 @@ import { cpus, loadavg, tmpdir } from "node:os";
 import path from "node:path";
 import { captureSql, signIn } from "./capture";
 import { areaChunks, firstVisit, launchChromium } from "./client-weight";
-import { LIGHTHOUSE_PRESET, scorePage } from "./lighthouse";
+import { LIGHTHOUSE_PRESET, LIGHTHOUSE_RUNS, scorePage } from "./lighthouse";
 import { compareGet, LOAD, loadCoatLogs } from "./load";
 import { checksFor, printReport, type BenchReport, type RouteFigures } from "./report";
 import { addSprayPool, seedLargeShop } from "./seed/shop";
@@ -103,13 +103,15 @@ try {
   const lighthouse: BenchReport["lighthouse"] = {};
   const lighthouseDesktop: BenchReport["lighthouse"] = {};
   const lighthouseNotes: BenchReport["lighthouseNotes"] = {};
+  const lighthouseRuns: BenchReport["lighthouseRuns"] = {};
   for (const [page, [url, cookie]] of Object.entries(pages)) {
-    step(`Lighthouse: ${page} (${url}), ${LIGHTHOUSE_PRESET} and desktop preset`);
+    step(`Lighthouse: ${page} (${url}), ${LIGHTHOUSE_PRESET} and desktop preset, ${LIGHTHOUSE_RUNS} runs each`);
     const mobile = await scorePage(app.url + url, cookie);
     const desktop = await scorePage(app.url + url, cookie, true);
     lighthouse[page] = { performance: mobile.performance, accessibility: mobile.accessibility };
     lighthouseDesktop[page] = { performance: desktop.performance, accessibility: desktop.accessibility };
     lighthouseNotes[page] = mobile.notes;
+    lighthouseRuns[page] = { mobile: mobile.performanceRuns, desktop: desktop.performanceRuns, benchmarkIndex: [...mobile.benchmarkIndex, ...desktop.benchmarkIndex] };
   }
 
   const figures: Omit<BenchReport, "checks" | "wallSeconds"> = {
@@ -128,6 +130,7 @@ try {
     lighthouse,
     lighthouseDesktop,
     lighthouseNotes,
+    lighthouseRuns,
     environment: {
       date: new Date().toISOString(),
       node: process.version,
