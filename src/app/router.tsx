@@ -1,6 +1,7 @@
 import type { ComponentType } from "react";
 import { createBrowserRouter, Outlet, type LoaderFunctionArgs } from "react-router";
 import type { QueryClient } from "@tanstack/react-query";
+import { NavigationProgress } from "@/components/ui/navigation-progress";
 import { FullPageSpinner } from "@/components/ui/spinner";
 import { authQueries } from "@/features/auth/api/auth.queries";
 import { serverStatusQueries } from "@/lib/server-status.queries";
@@ -24,6 +25,16 @@ function lazyPage(queryClient: QueryClient) {
 
 export type AppRouter = ReturnType<typeof createAppRouter>;
 
+/** Every screen, with the bar that shows while the next one loads. */
+function RootLayout() {
+  return (
+    <>
+      <NavigationProgress />
+      <Outlet />
+    </>
+  );
+}
+
 export function createAppRouter(queryClient: QueryClient) {
   const page = lazyPage(queryClient);
   return createBrowserRouter([
@@ -36,7 +47,7 @@ export function createAppRouter(queryClient: QueryClient) {
         return null;
       },
       shouldRevalidate: () => false,
-      Component: Outlet,
+      Component: RootLayout,
       HydrateFallback: FullPageSpinner,
       ErrorBoundary: RouteError,
       children: [

@@ -86,6 +86,27 @@ describe("jobs", () => {
     await close();
   });
 
+  it("while the next screen loads, a bar shows at the top and the current screen stays", async () => {
+    const { page, errors, close } = await newPage(browser, { width: 1280, height: 900 });
+    await signIn(page, baseUrl, "owner");
+    await page.goto(`${baseUrl}/board`);
+    await expect.poll(() => page.getByRole("heading", { level: 1 }).innerText()).toBe("Board");
+    const bar = page.getByRole("progressbar", { name: "Opening the next screen" });
+    expect(await bar.count()).toBe(0);
+    // A slow link: every script the next screen needs takes a second and a half to arrive.
+    await page.route(/\/assets\/.*\.js$/, async (route) => {
+      await new Promise((resolve) => setTimeout(resolve, 1500));
+      await route.continue();
+    });
+    await page.getByRole("navigation", { name: "Main" }).getByRole("link", { name: "Customers" }).click();
+    await expect.poll(() => bar.isVisible()).toBe(true);
+    expect(await page.getByRole("heading", { level: 1 }).innerText()).toBe("Board");
+    await expect.poll(() => page.getByRole("heading", { level: 1 }).innerText(), { timeout: 15_000 }).toBe("Customers");
+    expect(await bar.count()).toBe(0);
+    expect(errors).toEqual([]);
+    await close();
+  });
+
   it("a customer sees only their own jobs in the portal", async () => {
     const { page, errors, close } = await newPage(browser, { width: 390, height: 844 });
     await signIn(page, baseUrl, "customer");
