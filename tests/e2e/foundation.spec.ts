@@ -44,6 +44,21 @@ describe("each demo role signs in and sees its own navigation", () => {
       await close();
     });
   }
+
+  it("on a shop's own server (not the demo), the owner's menu has no Outbox", async () => {
+    const { page, errors, close } = await newPage(browser);
+    // The server says it runs with a real mail relay: the demo outbox is not there.
+    await page.route(/\/api\/health$/, async (route) => {
+      const res = await route.fetch();
+      await route.fulfill({ response: res, json: { ...(await res.json()), demoMode: false } });
+    });
+    await signIn(page, baseUrl, "owner");
+    const names = await navNames(page);
+    expect(names).toContain("Users");
+    expect(names).not.toContain("Outbox");
+    expect(errors).toEqual([]);
+    await close();
+  });
 });
 
 describe("jobs", () => {
