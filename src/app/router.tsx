@@ -99,7 +99,6 @@ export function createAppRouter(queryClient: QueryClient) {
             { path: "compliance", lazy: page(() => import("./routes/staff/compliance")) },
             { path: "audit", lazy: page(() => import("./routes/staff/audit")) },
             { path: "settings", lazy: page(() => import("./routes/staff/settings")) },
-            // Later: quotes, plans, mix, materials (their nav slots are in config/nav.ts).
           ],
         },
         {

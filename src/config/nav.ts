@@ -18,7 +18,7 @@ export type NavItem = {
   roles?: readonly Role[];
 };
 
-/** The staff navigation, in order. A role sees the items its access group allows. */
+/** The staff navigation, in order. A role sees the items its access group allows. (The portal's is in portal-nav.ts.) */
 export const STAFF_NAV: NavItem[] = [
   { label: "Dashboard", to: paths.dashboard, icon: ChartColumn, access: "office" },
   { label: "Board", to: paths.board, icon: Columns3, access: "staff" },
@@ -36,11 +36,4 @@ export const STAFF_NAV: NavItem[] = [
   { label: "Settings", to: paths.settings, icon: Settings, access: "office" },
   { label: "Outbox", to: paths.outbox, icon: Inbox, access: "owner", demoOnly: true },
   { label: "Account", to: paths.account, icon: CircleUserRound, access: "staff" },
-];
-
-/** The customer portal's navigation. */
-export const PORTAL_NAV: NavItem[] = [
-  { label: "My jobs", to: paths.portal, icon: ListChecks, access: "customer" },
-  { label: "My quotes", to: paths.portalQuotes, icon: ReceiptText, access: "customer" },
-  { label: "Account", to: paths.portalAccount, icon: CircleUserRound, access: "customer" },
 ];

@@ -2,7 +2,7 @@
  * Which source modules belong to the staff screens and which to the customer portal, for the route-splitting checks
  * (tests/e2e/a11y.spec.ts and `npm run bench`). Module paths are as dist/.vite/chunk-modules.json lists them.
  */
-export const STAFF_CODE = [/^src\/app\/routes\/staff\//, /^src\/components\/layouts\/app-shell\./, /^src\/features\/(?!auth\/|portal\/)/];
+export const STAFF_CODE = [/^src\/app\/routes\/staff\//, /^src\/config\/nav\.ts$/, /^src\/components\/layouts\/app-shell\./, /^src\/features\/(?!auth\/|portal\/)/];
 export const PORTAL_CODE = [/^src\/app\/routes\/portal\//, /^src\/components\/layouts\/portal-shell\./, /^src\/features\/portal\//];
 
 /**

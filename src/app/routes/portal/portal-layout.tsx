@@ -1,6 +1,6 @@
 import { Outlet } from "react-router";
 import { PortalShell } from "@/components/layouts/portal-shell";
-import { PORTAL_NAV } from "@/config/nav";
+import { PORTAL_NAV } from "@/config/portal-nav";
 import { SessionGate } from "@/features/auth/components/session-gate";
 import { useCurrentUser } from "@/features/auth/hooks/use-current-user";
 import { ScreenBoundary } from "../screen-boundary";
