@@ -8,22 +8,22 @@ import { notFound } from "../../http/http-error";
 /**
  * Object-level access to jobs: painters reach the jobs assigned to them, customers their own jobs,
  * the office every job. Anything outside reads as "not found", so ids reveal nothing.
+ * The rule is written once here, as a kind (which column limits the actor) and a value (what it must equal); the
+ * two forms below are made from it: `jobScope` for a query built per request, `preparedJobScope` + `scopeValues`
+ * for a query prepared once per kind.
  */
-export function jobScope(actor: Actor): SQL | undefined {
-  if (actor.role === "painter") return eq(jobs.assignedPainterId, actor.id);
-  if (actor.role === "customer") return eq(jobs.customerId, actor.customerId ?? -1);
+export type ScopeKind = "office" | "painter" | "customer";
+export const scopeKind = (actor: Actor): ScopeKind => (actor.role === "painter" || actor.role === "customer" ? actor.role : "office");
+export const scopeValues = (actor: Actor) => ({ scope: actor.role === "painter" ? actor.id : (actor.customerId ?? -1) });
+
+function scopeOn(kind: ScopeKind, value: string | number | ReturnType<typeof sql.placeholder>): SQL | undefined {
+  if (kind === "painter") return eq(jobs.assignedPainterId, value as string);
+  if (kind === "customer") return eq(jobs.customerId, value as number);
   return undefined;
 }
 
-/** The same scope for prepared queries: its form by role, its value as the placeholder "scope" (see scopeValues). */
-export type ScopeKind = "office" | "painter" | "customer";
-export const scopeKind = (actor: Actor): ScopeKind => (actor.role === "painter" || actor.role === "customer" ? actor.role : "office");
-export function preparedJobScope(kind: ScopeKind): SQL | undefined {
-  if (kind === "painter") return eq(jobs.assignedPainterId, sql.placeholder("scope"));
-  if (kind === "customer") return eq(jobs.customerId, sql.placeholder("scope"));
-  return undefined;
-}
-export const scopeValues = (actor: Actor) => ({ scope: actor.role === "painter" ? actor.id : (actor.customerId ?? -1) });
+export const jobScope = (actor: Actor): SQL | undefined => scopeOn(scopeKind(actor), scopeValues(actor).scope);
+export const preparedJobScope = (kind: ScopeKind): SQL | undefined => scopeOn(kind, sql.placeholder("scope"));
 
 const jobFor = preparedQuery((db, kind: ScopeKind) =>
   db
