@@ -9,21 +9,18 @@ import { BoothCard } from "@/features/booth/components/booth-card";
 import type { RouteModule } from "@/app/router";
 import { InPageNotFound } from "../in-page-not-found";
 
-const jobIdOf = (param: string | undefined) => {
-  const id = Number(param);
-  return Number.isInteger(id) && id > 0 ? id : null;
-};
-
 /** The card starts loading with the screen's code. */
 export const prefetch: RouteModule["prefetch"] = (queryClient, { params }) => {
-  const id = jobIdOf(params.jobId);
-  if (id) void queryClient.prefetchQuery(boothQueries.card(id));
+  const id = Number(params.jobId);
+  if (Number.isInteger(id) && id > 0) void queryClient.prefetchQuery(boothQueries.card(id));
 };
 
 export default function BoothCardRoute() {
-  const id = jobIdOf(useParams().jobId);
-  const card = useQuery({ ...boothQueries.card(id ?? 0), enabled: id !== null });
-  if (id === null || (isApiError(card.error) && (card.error.status === 404 || card.error.status === 400)))
+  const { jobId } = useParams();
+  const id = Number(jobId);
+  const valid = Number.isInteger(id) && id > 0;
+  const card = useQuery({ ...boothQueries.card(id), enabled: valid });
+  if (!valid || (isApiError(card.error) && (card.error.status === 404 || card.error.status === 400)))
     return <InPageNotFound what="Job" backTo={paths.boothIndex} backLabel="Back to the booth" />;
   if (card.error && !card.data) return <Alert tone="error">{card.error.message}</Alert>;
   if (!card.data) return <Spinner label="Loading the booth card…" />;
