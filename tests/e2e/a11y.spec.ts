@@ -4,7 +4,7 @@ import path from "node:path";
 import { readFileSync } from "node:fs";
 import { loadAppSecret } from "../../server/app-secret";
 import { signQuoteLink } from "../../server/modules/portal/portal-link";
-import { ARTEFACTS, launch, newPage, recordCspViolations, seriousViolations, signIn } from "./browser";
+import { ARTEFACTS, launch, newPage, recordCspViolations, seriousViolations, signIn, waitForQuiet } from "./browser";
 import { isPortalCode, isStaffCode } from "../support/code-areas";
 
 /**
@@ -149,12 +149,13 @@ const SCREENS: Screen[] = [
   { role: "customer", name: "account", url: () => "/portal/account", heading: exact("Account") },
 ];
 
-/** Waits for the screen's heading, then until nothing is loading (spinners, busy tables). */
+/** Waits for the screen's heading, then until nothing is loading (spinners, busy tables) and nothing moves. */
 async function settle(page: Page, heading: string | RegExp) {
   await page.getByRole("heading", { level: 1, name: heading }).first().waitFor({ timeout: 15_000 });
   await expect
     .poll(() => page.evaluate(() => document.querySelectorAll('.animate-spin, [aria-busy="true"]').length), { timeout: 10_000, message: "the screen stops loading" })
     .toBe(0);
+  await waitForQuiet(page);
 }
 
 let ids: Ids;
@@ -221,6 +222,33 @@ describe("the checks themselves catch problems", () => {
     await expect.poll(() => csp.length).toBeGreaterThan(0);
     expect(csp.join("\n")).toMatch(/script-src/);
     expect(await page.evaluate(() => "__inlineRan" in window)).toBe(false);
+    await close();
+  });
+});
+
+describe("the settle step waits for data and motion", () => {
+  it("waitForQuiet returns only after a held API answer lands and a colour transition ends", async () => {
+    const { page, close } = await newPage(browser, undefined, { motion: "full" });
+    await page.goto(`${baseUrl}/sign-in`);
+    await page.getByRole("heading", { level: 1, name: "Sign in" }).waitFor();
+    let answered = false;
+    await page.route("**/api/health", async (route) => {
+      await new Promise((r) => setTimeout(r, 600));
+      await route.continue();
+      answered = true;
+    });
+    await page.evaluate(() => {
+      const box = Object.assign(document.createElement("div"), { id: "fading", textContent: "fading" });
+      box.style.cssText = "background-color: rgb(255, 255, 255); transition: background-color 800ms linear";
+      document.body.append(box);
+      void box.offsetWidth;
+      box.style.backgroundColor = "rgb(200, 0, 80)";
+      void fetch("/api/health").then((r) => r.text());
+    });
+    expect(await page.evaluate(() => document.getAnimations().length), "the transition is running").toBe(1);
+    await waitForQuiet(page);
+    expect(answered, "the held request finished first").toBe(true);
+    expect(await page.evaluate(() => getComputedStyle(document.getElementById("fading")!).backgroundColor)).toBe("rgb(200, 0, 80)");
     await close();
   });
 });

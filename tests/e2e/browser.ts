@@ -24,16 +24,53 @@ export function launch(): Promise<Browser> {
   });
 }
 
-/** A fresh page that fails the test on any console error or uncaught exception. */
-export async function newPage(browser: Browser, viewport = { width: 1280, height: 800 }) {
-  const context = await browser.newContext({ viewport });
+/** API requests each page has in flight (see waitForQuiet). */
+const apiInFlight = new WeakMap<Page, Set<unknown>>();
+
+/**
+ * A fresh page that fails the test on any console error or uncaught exception. It runs with reduced motion (as a
+ * user who asked for it would), so the app's colour transitions take no time; pass `motion: "full"` to see them.
+ */
+export async function newPage(browser: Browser, viewport = { width: 1280, height: 800 }, { motion = "reduce" }: { motion?: "reduce" | "full" } = {}) {
+  const context = await browser.newContext({ viewport, reducedMotion: motion === "reduce" ? "reduce" : "no-preference" });
   const page = await context.newPage();
   const errors: string[] = [];
   page.on("console", (m) => {
     if (m.type() === "error" && !/401 \(Unauthorized\)/.test(m.text())) errors.push(m.text());
   });
   page.on("pageerror", (e) => errors.push(String(e)));
+  const inFlight = new Set<unknown>();
+  apiInFlight.set(page, inFlight);
+  page.on("request", (r) => {
+    if (new URL(r.url()).pathname.startsWith("/api/")) inFlight.add(r);
+  });
+  // An answer counts once its headers arrive (a body nobody reads never "finishes"); the two quiet turns in
+  // waitForQuiet leave time for the body and the render it causes.
+  page.on("response", (r) => inFlight.delete(r.request()));
+  page.on("requestfinished", (r) => inFlight.delete(r));
+  page.on("requestfailed", (r) => inFlight.delete(r));
   return { page, errors, close: () => context.close() };
+}
+
+/**
+ * Waits until the page is still: no API request in flight and no finite animation or colour transition running,
+ * twice in a row 100 ms apart (a query that lands can start a transition, a transition can end in a refetch).
+ * Run before anything that measures what is on screen, such as axe's colour-contrast rule.
+ */
+export async function waitForQuiet(page: Page, timeout = 10_000) {
+  const inFlight = apiInFlight.get(page);
+  const busy = async () =>
+    (inFlight?.size ?? 0) +
+    (await page.evaluate(
+      () => document.getAnimations().filter((a) => a.playState === "running" && a.effect?.getTiming().iterations !== Infinity).length,
+    ));
+  const deadline = Date.now() + timeout;
+  let quietTurns = 0;
+  while (quietTurns < 2) {
+    if (Date.now() > deadline) throw new Error(`the page did not settle within ${timeout} ms (${await busy()} requests or animations still running: ${[...(inFlight ?? [])].map((r) => (r as { url(): string }).url()).join(", ")})`);
+    quietTurns = (await busy()) === 0 ? quietTurns + 1 : 0;
+    await new Promise((r) => setTimeout(r, 100));
+  }
 }
 
 export async function signIn(page: Page, baseUrl: string, role: "owner" | "estimator" | "painter" | "customer") {

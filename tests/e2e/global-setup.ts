@@ -1,5 +1,6 @@
 import { spawn, spawnSync, type ChildProcess } from "node:child_process";
 import { existsSync, mkdtempSync, mkdirSync } from "node:fs";
+import { createServer } from "node:net";
 import { tmpdir } from "node:os";
 import path from "node:path";
 import type { TestProject } from "vitest/node";
@@ -32,6 +33,17 @@ async function waitFor(url: string, ms: number) {
   throw new Error(`Server did not answer at ${url} within ${ms} ms`);
 }
 
+/** A port nobody is listening on now (several test runs may share this machine). */
+function freePort(): Promise<number> {
+  return new Promise((resolve, reject) => {
+    const probe = createServer().once("error", reject);
+    probe.listen(0, "127.0.0.1", () => {
+      const { port } = probe.address() as { port: number };
+      probe.close(() => resolve(port));
+    });
+  });
+}
+
 export default async function setup(project: TestProject) {
   if (!existsSync(path.join(root, "dist", "index.html"))) {
     const build = spawnSync(path.join(root, "node_modules/.bin/vite"), ["build", "--logLevel", "warn"], { cwd: root, stdio: "inherit" });
@@ -39,7 +51,7 @@ export default async function setup(project: TestProject) {
   }
   mkdirSync(path.join(root, "test-results"), { recursive: true });
   const dataDir = mkdtempSync(path.join(tmpdir(), "cw-e2e-"));
-  const port = 4300 + Math.floor(Math.random() * 500);
+  const port = await freePort();
   server = spawn(path.join(root, "node_modules/.bin/tsx"), ["server/index.ts"], {
     cwd: root,
     // Every spec signs in from 127.0.0.1, so the per-address sign-in limit is raised for the run.

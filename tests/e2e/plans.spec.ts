@@ -114,6 +114,44 @@ describe("finish plans and mix sheets", () => {
     await close();
   });
 
+  it("the job page's plan button looks the same before and after the plan arrives (no colour flip under axe)", async () => {
+    const { page, errors, close } = await newPage(browser);
+    await signIn(page, baseUrl, "owner");
+    const jobs = (await (await page.request.get(`${baseUrl}/api/jobs?pageSize=100`)).json()).items as { id: number; stage: string }[];
+    let jobId: number | undefined;
+    for (const j of jobs.filter((x) => x.stage === "in_booth" || x.stage === "in_prep")) {
+      if ((await (await page.request.get(`${baseUrl}/api/jobs/${j.id}/plan`)).json()).plan) {
+        jobId = j.id;
+        break;
+      }
+    }
+    expect(jobId, "a demo job with a finish plan").toBeDefined();
+
+    // Hold the plan's answer back so the page is seen while that query is pending.
+    let release!: () => void;
+    const held = new Promise<void>((r) => (release = r));
+    await page.route(`**/api/jobs/${jobId}/plan`, async (route) => {
+      await held;
+      await route.continue();
+    });
+    await page.goto(`${baseUrl}/jobs/${jobId}`);
+    const panel = page.getByRole("region", { name: "Finish plan" });
+    await panel.waitFor();
+    const link = panel.locator('a[href$="/plan"]');
+    const look = () => link.evaluateAll((els) => els.map((el) => `${el.textContent}|${getComputedStyle(el).backgroundColor}|${getComputedStyle(el).color}`));
+    const whilePending = await look();
+    release();
+    await expect.poll(() => panel.getByText(/version \d+/).count()).toBe(1);
+    await expect.poll(() => link.evaluate((el) => el.getAnimations().length)).toBe(0);
+    const settled = await look();
+    expect(settled).toHaveLength(1);
+    expect(settled[0]).toMatch(/^Plan and mix sheets\|/);
+    // While the plan loads there is no link at all (a placeholder holds its place), so nothing can change colour.
+    expect(whilePending).toEqual([]);
+    expect(errors).toEqual([]);
+    await close();
+  });
+
   it("a painter sees the catalogue without any price", async () => {
     const { page, errors, close } = await newPage(browser);
     await signIn(page, baseUrl, "painter");

@@ -19,9 +19,15 @@ export function JobPlanSummary({ jobId }: { jobId: number }) {
       title="Finish plan"
       titleId="job-plan-heading"
       actions={
-        <ButtonLink variant={plan ? "primary" : "secondary"} to={paths.jobPlan(jobId)} icon={<Layers aria-hidden className="size-4" />}>
-          {plan ? "Plan and mix sheets" : "Plan this job"}
-        </ButtonLink>
+        // The link's look depends on whether a plan exists, so it waits for the answer: a control never changes
+        // colour under the user (or an accessibility check) when its data arrives.
+        isPending ? (
+          <span aria-hidden className="inline-block h-11 w-48 rounded-lg border border-dashed border-primer-300" />
+        ) : (
+          <ButtonLink variant={plan ? "primary" : "secondary"} to={paths.jobPlan(jobId)} icon={<Layers aria-hidden className="size-4" />}>
+            {plan ? "Plan and mix sheets" : "Plan this job"}
+          </ButtonLink>
+        )
       }
     >
       {isPending ? (
