@@ -35,12 +35,26 @@ function reuseStatements(sqlite: Database.Database) {
       cache.delete(source);
       if (stmt.reader) stmt.raw(false).pluck(false).expand(false);
     } else {
-      stmt = prepare(source);
+      stmt = stepWritesToTheEnd(prepare(source));
       if (cache.size >= STATEMENT_CACHE) cache.delete(cache.keys().next().value!);
     }
     cache.set(source, stmt);
     return stmt;
   }) as typeof sqlite.prepare;
+}
+
+/**
+ * An INSERT/UPDATE/DELETE … RETURNING read with `.get()` hands back its first row before the statement has finished,
+ * and outside a transaction the commit happens when the statement is reset, where better-sqlite3 drops any error: on
+ * a full disk `.get()` returned a new id for a row that was never stored. Such a statement's `.get()` here steps it to
+ * the end (`.all()`), so a failed commit throws (SQLITE_FULL) like every other write.
+ */
+function stepWritesToTheEnd(stmt: Database.Statement): Database.Statement {
+  if (stmt.reader && !stmt.readonly) {
+    const all = stmt.all.bind(stmt);
+    stmt.get = ((...args: unknown[]) => all(...args)[0]) as Database.Statement["get"];
+  }
+  return stmt;
 }
 
 export function migrateDb(db: Db): void {

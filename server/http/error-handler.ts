@@ -1,6 +1,6 @@
 import type { ErrorRequestHandler, RequestHandler } from "express";
 import { ZodError } from "zod";
-import { HttpError } from "./http-error";
+import { HttpError, isStorageFull, storageFull } from "./http-error";
 import { zodFields } from "./validate";
 import { MixError } from "../../shared/mix/index";
 import multer from "multer";
@@ -14,6 +14,10 @@ type BodyParserError = Error & { type?: string; status?: number; statusCode?: nu
 /** The one place that decides an error's status and body. Unknown errors are logged and answered without details. */
 export const errorHandler: ErrorRequestHandler = (err: unknown, req, res, _next) => {
   if (res.headersSent) return;
+  if (isStorageFull(err)) {
+    console.error(`[storage full] ${req.method} ${req.originalUrl} refused: the disk is full`);
+    err = storageFull();
+  }
   if (err instanceof HttpError) {
     res.status(err.status).json({ error: { code: err.code, message: err.message, ...(err.fields ? { fields: err.fields } : {}) } });
     return;

@@ -19,3 +19,17 @@ export const unauthenticated = (message = "Sign in to continue") => new HttpErro
 export const forbidden = (message = "Your role does not allow this") => new HttpError(403, "forbidden", message);
 export const notFound = (what = "Record") => new HttpError(404, "not_found", `${what} not found`);
 export const conflict = (message: string, fields?: Record<string, string>) => new HttpError(409, "conflict", message, fields);
+
+/** The disk under the database or the uploads is full: nothing of the request was kept. */
+export const storageFull = () =>
+  new HttpError(
+    507,
+    "storage_full",
+    "The server's disk is full, so this was not saved (nothing of it was kept). Free space on the machine that runs Coatwright, or ask whoever looks after it, then try again.",
+  );
+
+/** A database or file-system error that means "no space left": SQLite's SQLITE_FULL, or ENOSPC/EDQUOT from a file write. */
+export function isStorageFull(err: unknown): boolean {
+  const code = (err as { code?: unknown } | null)?.code;
+  return code === "SQLITE_FULL" || code === "ENOSPC" || code === "EDQUOT";
+}

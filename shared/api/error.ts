@@ -21,6 +21,7 @@ export const ERROR_CODES = [
   "unsupported_media_type",
   "rate_limited",
   "upstream_failed",
+  "storage_full",
   "internal",
 ] as const;
 export type ErrorCode = (typeof ERROR_CODES)[number];

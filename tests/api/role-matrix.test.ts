@@ -1,7 +1,7 @@
 import { describe, expect, it } from "vitest";
 import { makeShop } from "../support/test-app";
 import type { RouteInfo } from "../../server/http/route-list";
-import type { MatrixRows, Who } from "./matrix/rows";
+import { callRow, type MatrixRows, type Who } from "./matrix/rows";
 import { keyPaths } from "../support/demo-shop";
 import { isMoneyKey, listedNotMoney } from "./security/money-keys";
 
@@ -31,20 +31,12 @@ describe("role matrix", async () => {
 
   const whos: Who[] = ["anonymous", "owner", "estimator", "painter", "customer"];
   for (const [key, c] of Object.entries(MATRIX)) {
-    const [method, routePath] = key.split(" ") as [string, string];
+    const routePath = key.split(" ")[1]!;
     it.each(whos)(`${key} as %s`, async (who) => {
       // A fresh shop for each call, so a delete or a stage move cannot change what the next call sees.
       const shop = await makeShop({ demoMode: true, outboxDir: probe.app.deps.dataDir });
       await c.prepare?.(shop);
-      const m = method.toLowerCase() as "get" | "post" | "patch" | "put" | "delete";
-      let req = shop.as(who)[m](c.path(shop));
-      if (c.body) req = req.send(c.body(shop));
-      if (c.attach) {
-        const file = c.attach(shop);
-        for (const [k, v] of Object.entries(file.fields ?? {})) req = req.field(k, v);
-        req = req.attach("file", file.data, file.filename);
-      }
-      const res = await req;
+      const res = await callRow(shop, key, c, who);
       expect({ route: routePath, who, status: res.status }).toEqual({ route: routePath, who, status: c.expect[who] });
       if (res.status >= 400) expect(res.body.error).toMatchObject({ code: expect.any(String), message: expect.any(String) });
       // Whatever a painter's call answers (reads and writes alike), it carries no money field.

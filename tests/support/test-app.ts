@@ -1,4 +1,4 @@
-import { mkdtempSync } from "node:fs";
+import { mkdtempSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
 import path from "node:path";
 import request from "supertest";
@@ -39,9 +39,21 @@ function freshDb() {
   return openDb(migrated);
 }
 
-/** A fresh app on a fresh migrated in-memory SQLite database. */
-export function makeApp(options: Partial<CreateAppOptions> = {}) {
-  const db = freshDb();
+/** The migrated empty schema written to a file and opened from there (WAL, as the server runs it). */
+function freshFileDb(file: string) {
+  freshDb().$client.close();
+  writeFileSync(file, migrated!);
+  return openDb(file);
+}
+
+export type MakeAppOptions = Partial<CreateAppOptions> & {
+  /** Keep the database in this file instead of in memory (for tests that reopen it, or fill its disk). */
+  dbFile?: string;
+};
+
+/** A fresh app on a fresh migrated SQLite database (in memory unless `dbFile` is given). */
+export function makeApp({ dbFile, ...options }: MakeAppOptions = {}) {
+  const db = dbFile ? freshFileDb(dbFile) : freshDb();
   const mail = memoryMailer();
   const app = createApp({
     db,
@@ -102,7 +114,7 @@ export function addItem(t: TestApp, jobId: number, name = "Fuel tank") {
  * A small shop: two customers with a job each, one user per role (the customer user linked to customer A),
  * a second painter, and signed-in cookies for every role.
  */
-export async function makeShop(options: Partial<CreateAppOptions> = {}) {
+export async function makeShop(options: MakeAppOptions = {}) {
   const t = makeApp(options);
   const customerA = addCustomer(t, "Avery Stone");
   const customerB = addCustomer(t, "Blake Moor");

@@ -15,9 +15,8 @@ import {
   updateMaterialInputSchema,
   uploadMaterialFileInputSchema,
 } from "../../../shared/schemas/material.schema";
-import { MAX_DOCUMENT_BYTES, readStored, removeStored, storeFile, uploadMiddleware } from "../uploads/storage";
+import { MAX_DOCUMENT_BYTES, readStored, removeStored, uploadMiddleware } from "../uploads/storage";
 import {
-  addFile,
   createLot,
   createMaterial,
   deleteFile,
@@ -31,6 +30,7 @@ import {
   lowStock,
   updateLot,
   updateMaterial,
+  uploadFile,
 } from "./materials.service";
 
 /**
@@ -82,9 +82,7 @@ export function materialsRouter(deps: AppDeps) {
   r.post("/:id/files", allow("office"), uploadMiddleware(MAX_DOCUMENT_BYTES), async (req, res) => {
     const id = params(req, idParamsSchema).id;
     const { kind } = body(req, uploadMaterialFileInputSchema);
-    getMaterial(deps, actorOf(res), id);
-    const stored = await storeFile(deps.uploadsDir, req.file, "document");
-    res.status(201).json(addFile(deps, actorOf(res), id, kind, stored));
+    res.status(201).json(await uploadFile(deps, actorOf(res), id, kind, req.file));
   });
   r.get("/:id/files/:fileId", allow("staff"), (req, res) => {
     const p = params(req, fileParamsSchema);

@@ -2,6 +2,7 @@ import { and, asc, count, eq, inArray, like, or, sql, type SQL } from "drizzle-o
 import type { AppDeps } from "../../deps";
 import type { Actor } from "../../auth/session";
 import { layerComponents, materialLots, materials, mixSheetLines, uploads, users } from "../../db/schema";
+import { keepStored, storeFile } from "../uploads/storage";
 import { badRequest, conflict, notFound } from "../../http/http-error";
 import { iso } from "../../http/dates";
 import type { RequestContext } from "../../http/context";
@@ -291,6 +292,13 @@ export function addFile(
     .returning()
     .get();
   return { id: row.id, kind, mime: row.mime, size: row.size, originalName: row.originalName, createdAt: iso(row.createdAt), uploadedByName: actor.name };
+}
+
+/** Checks a data sheet (or safety sheet) by its content, stores it and records it on the material: all or nothing. */
+export async function uploadFile(deps: AppDeps, actor: Actor, materialId: number, kind: MaterialFileKind, file: Express.Multer.File | undefined): Promise<MaterialFileDto> {
+  findMaterial(deps, materialId);
+  const stored = await storeFile(deps.uploadsDir, file, "document");
+  return keepStored(deps.uploadsDir, stored, () => addFile(deps, actor, materialId, kind, stored));
 }
 
 export function findFile(deps: AppDeps, materialId: number, fileId: number) {

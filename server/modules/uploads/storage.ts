@@ -3,9 +3,9 @@ import path from "node:path";
 import { randomBytes } from "node:crypto";
 import multer from "multer";
 import type { RequestHandler } from "express";
-import sharp from "sharp";
+import sharp, { type OutputInfo } from "sharp";
 import { fileTypeFromBuffer } from "file-type";
-import { HttpError } from "../../http/http-error";
+import { HttpError, isStorageFull, storageFull } from "../../http/http-error";
 
 export const MAX_PHOTO_BYTES = 15 * 1024 * 1024;
 export const MAX_DOCUMENT_BYTES = 20 * 1024 * 1024;
@@ -54,30 +54,54 @@ export async function storeFile(dir: string, file: Express.Multer.File | undefin
     const what = accept === "photo" ? "a JPEG, PNG or WebP photo" : "a PDF or a JPEG, PNG or WebP image";
     throw unsupported(`The file's content is not ${what}${detected ? ` (it looks like ${detected.mime})` : ""}`);
   }
-  mkdirSync(dir, { recursive: true });
   const base = randomBytes(16).toString("hex");
   const storedName = `${base}.${detected.ext}`;
+  const originalName = safeName(file.originalname);
   if (detected.mime === "application/pdf") {
-    writeFileSync(path.join(dir, storedName), file.buffer);
-    return { mime: detected.mime, size: file.size, originalName: safeName(file.originalname), storedName, thumbName: null, width: null, height: null };
+    writeAll(dir, [[storedName, file.buffer]]);
+    return { mime: detected.mime, size: file.size, originalName, storedName, thumbName: null, width: null, height: null };
   }
+  let clean: { data: Buffer; info: OutputInfo };
+  let thumb: Buffer;
   try {
-    const image = sharp(file.buffer, { failOn: "error" }).rotate();
-    const clean = await image.toBuffer({ resolveWithObject: true });
-    writeFileSync(path.join(dir, storedName), clean.data);
-    const thumbName = `${base}.thumb.webp`;
-    await sharp(clean.data).resize(400, 400, { fit: "inside", withoutEnlargement: true }).webp({ quality: 78 }).toFile(path.join(dir, thumbName));
-    return {
-      mime: detected.mime,
-      size: clean.data.length,
-      originalName: safeName(file.originalname),
-      storedName,
-      thumbName,
-      width: clean.info.width,
-      height: clean.info.height,
-    };
+    clean = await sharp(file.buffer, { failOn: "error" }).rotate().toBuffer({ resolveWithObject: true });
+    thumb = await sharp(clean.data).resize(400, 400, { fit: "inside", withoutEnlargement: true }).webp({ quality: 78 }).toBuffer();
   } catch {
     throw unsupported("The image could not be read; it may be damaged");
+  }
+  const thumbName = `${base}.thumb.webp`;
+  writeAll(dir, [
+    [storedName, clean.data],
+    [thumbName, thumb],
+  ]);
+  return { mime: detected.mime, size: clean.data.length, originalName, storedName, thumbName, width: clean.info.width, height: clean.info.height };
+}
+
+/** Writes every file or none: when one write fails (a full disk), what was written is removed again. */
+function writeAll(dir: string, files: [name: string, data: Buffer][]) {
+  const written: string[] = [];
+  try {
+    mkdirSync(dir, { recursive: true });
+    for (const [name, data] of files) {
+      written.push(name);
+      writeFileSync(path.join(dir, name), data);
+    }
+  } catch (err) {
+    removeStored(dir, ...written);
+    throw isStorageFull(err) ? storageFull() : err;
+  }
+}
+
+/**
+ * Records a stored file in the database with `record`; if that fails (a full disk, a record that is gone), the
+ * file is removed again, so no file is left that nothing points to.
+ */
+export function keepStored<T>(dir: string, stored: StoredFile, record: () => T): T {
+  try {
+    return record();
+  } catch (err) {
+    removeStored(dir, stored.storedName, stored.thumbName);
+    throw err;
   }
 }
 

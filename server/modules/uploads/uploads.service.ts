@@ -5,7 +5,7 @@ import { coatLogs, jobItems, materials, prepRecords, testPanels, uploads, users 
 import { badRequest, forbidden, HttpError, notFound } from "../../http/http-error";
 import { iso } from "../../http/dates";
 import { findJobFor } from "../jobs/jobs.access";
-import { readStored, removeStored, storeFile } from "./storage";
+import { keepStored, readStored, removeStored, storeFile } from "./storage";
 import {
   MAX_PHOTO_MB,
   type ListUploadsQuery,
@@ -128,7 +128,8 @@ export async function createUpload(
   if (!file) throw badRequest("Attach a file in the 'file' field", { file: "No file attached" });
   if (file.size > MAX_PHOTO_MB * MB) throw photoTooLarge(file.size);
   const stored = await storeFile(deps.uploadsDir, file, "photo");
-  const row = deps.db
+  const row = keepStored(deps.uploadsDir, stored, () =>
+    deps.db
     .insert(uploads)
     .values({
       ownerType: fields.ownerType,
@@ -142,7 +143,8 @@ export async function createUpload(
       createdAt: deps.now(),
     })
     .returning()
-    .get();
+    .get()!,
+  );
   return toUploadDto({ ...row, uploadedByName: actor.name });
 }
 

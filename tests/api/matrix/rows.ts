@@ -20,3 +20,17 @@ export const staff = (status: number) => ({ anonymous: 401, owner: status, estim
 export const office = (status: number) => ({ anonymous: 401, owner: status, estimator: status, painter: 403, customer: 403 });
 export const ownerOnly = (status: number) => ({ anonymous: 401, owner: status, estimator: 403, painter: 403, customer: 403 });
 export const customerOnly = (status: number) => ({ anonymous: 401, owner: 403, estimator: 403, painter: 403, customer: status });
+
+/** Calls a row's route on its shop as `who` (JSON body or multipart file, as the row says). */
+export function callRow(shop: Shop, key: string, c: MatrixCase, who: Who) {
+  const [method] = key.split(" ") as [string];
+  const m = method.toLowerCase() as "get" | "post" | "patch" | "put" | "delete";
+  let req = shop.as(who)[m](c.path(shop));
+  if (c.body) req = req.send(c.body(shop));
+  if (c.attach) {
+    const file = c.attach(shop);
+    for (const [k, v] of Object.entries(file.fields ?? {})) req = req.field(k, v);
+    req = req.attach("file", file.data, file.filename);
+  }
+  return req;
+}
