@@ -37,6 +37,8 @@ import { quotesRouter } from "./modules/quotes/quotes.router";
 import { messagesRouter } from "./modules/messages/messages.router";
 import { portalRouter } from "./modules/portal/portal.router";
 import { paymentsRouter } from "./modules/payments/payments.router";
+import { gunsRouter } from "./modules/guns/guns.router";
+import { finishRecordRouter } from "./modules/finish-record/finish-record.router";
 
 export type CreateAppOptions = {
   db: Db;
@@ -136,6 +138,8 @@ export function createApp(options: CreateAppOptions) {
     ["/messages", messagesRouter(deps)],
     ["/portal", portalRouter(deps)],
     ["/payments", paymentsRouter(deps)],
+    ["/guns", gunsRouter(deps)],
+    ["/jobs", finishRecordRouter(deps)],
   ];
   for (const [prefix, router] of mounts) api.use(prefix, router);
   api.use(notFoundHandler);

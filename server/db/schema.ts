@@ -11,4 +11,5 @@ export * from "./tables/mix-sheets";
 export * from "./tables/uploads";
 export * from "./tables/quotes";
 export * from "./tables/payments";
+export * from "./tables/equipment";
 export * from "./tables/booth";

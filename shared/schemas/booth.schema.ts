@@ -7,9 +7,9 @@ import type { Stage } from "../domain/stages";
 import type { Substrate } from "../domain/substrates";
 import { idSchema, optionalText, requiredText } from "./common.schema";
 import { optionalNumber } from "./prep.schema";
-
-/** Booth air temperature limits by unit (a booth outside these is not one anyone sprays in). */
-export const TEMP_LIMITS: Record<TempUnit, { min: number; max: number }> = { C: { min: -10, max: 60 }, F: { min: 14, max: 140 } };
+import { checkTemp } from "./booth-conditions.schema";
+import { checkSetup, spraySetupFields, type SpraySetupDto } from "./spray-setup.schema";
+export { TEMP_LIMITS } from "./booth-conditions.schema";
 
 const conditions = {
   boothTemp: optionalNumber("Booth temperature", -10, 140),
@@ -17,17 +17,6 @@ const conditions = {
   humidityPct: optionalNumber("Humidity", 0, 100),
   note: optionalText(500, "Note"),
 };
-
-function checkTemp(v: { boothTemp?: number | null; tempUnit?: TempUnit }, ctx: z.RefinementCtx) {
-  if (v.boothTemp == null) return;
-  if (!v.tempUnit) {
-    ctx.addIssue({ code: "custom", path: ["tempUnit"], message: "Say whether the temperature is °C or °F" });
-    return;
-  }
-  const { min, max } = TEMP_LIMITS[v.tempUnit];
-  if (v.boothTemp < min || v.boothTemp > max)
-    ctx.addIssue({ code: "custom", path: ["boothTemp"], message: `Booth temperature in °${v.tempUnit} must be between ${min} and ${max}` });
-}
 
 /** One tap on the booth card: the coat just sprayed. The time and painter come from the server. */
 export const createCoatLogInputSchema = z
@@ -38,8 +27,11 @@ export const createCoatLogInputSchema = z
     ...conditions,
     /** Needed only when an item's prep is not signed off before the first coat. */
     prepOverrideReason: optionalText(500, "Reason"),
+    /** The gun set-up really used (the booth card fills in the approved panel's as a start). */
+    ...spraySetupFields,
   })
-  .superRefine(checkTemp);
+  .superRefine(checkTemp)
+  .superRefine(checkSetup);
 export type CreateCoatLogInput = z.input<typeof createCoatLogInputSchema>;
 
 /** A correction is a new entry naming what it corrects; the original is never changed. */
@@ -76,6 +68,7 @@ export type CoatLogDto = {
   tempUnit: TempUnit | null;
   humidityPct: number | null;
   note: string | null;
+  setup: SpraySetupDto;
   mixSheetId: number | null;
   prepOverrideReason: string | null;
   correctsId: number | null;

@@ -4,6 +4,10 @@ import { idSchema, isoDateSchema, optionalText, requiredText } from "./common.sc
 import { pageQuerySchema } from "../api/pagination";
 import { optionalNumber } from "./prep.schema";
 import type { UploadDto } from "./upload.schema";
+import { checkSetup, spraySetupFields, type SpraySetupDto } from "./spray-setup.schema";
+import { ILLUMINANTS, PANEL_LIGHTS, type Illuminant, type PanelLight } from "../domain/spray-setup";
+import { TEMP_UNITS, type TempUnit } from "../domain/booth";
+import { checkTemp } from "./booth-conditions.schema";
 
 export const MAX_PANEL_COATS = 30;
 export const MAX_COMPARE = 6;
@@ -11,8 +15,23 @@ export const MAX_COMPARE = 6;
 const parts = (label: string) =>
   z.coerce.number({ error: `${label} must be a number` }).finite(`${label} must be a number`).positive(`${label} must be more than 0`).max(100, `${label} is at most 100`);
 
+/** A reading under another light than the main (daylight) one, with the illuminant the meter was set to. */
+export const panelReadingSchema = z.object({
+  light: z.enum(PANEL_LIGHTS, { error: `Light must be one of: ${PANEL_LIGHTS.join(", ")}` }),
+  illuminant: z.enum(ILLUMINANTS, { error: `Illuminant must be one of: ${ILLUMINANTS.join(", ")}` }),
+  labL: z.coerce.number({ error: "L* must be a number" }).finite().min(0, "L* is at least 0").max(100, "L* is at most 100"),
+  labA: z.coerce.number({ error: "a* must be a number" }).finite().min(-160, "a* is at least -160").max(160, "a* is at most 160"),
+  labB: z.coerce.number({ error: "b* must be a number" }).finite().min(-160, "b* is at least -160").max(160, "b* is at most 160"),
+});
+
+const readingsSchema = z
+  .array(panelReadingSchema, { error: "readings must be a list" })
+  .max(PANEL_LIGHTS.length, `At most ${PANEL_LIGHTS.length} readings`)
+  .refine((r) => new Set(r.map((x) => x.light)).size === r.length, "One reading per light");
+
 const panelFields = {
-  groundName: requiredText(120, "Ground coat"),
+  /** The ground coat: picked from the catalogue (groundMaterialId), or named when it is not in it. */
+  groundName: requiredText(120, "Ground coat").optional(),
   groundMaterialId: idSchema.nullable().optional(),
   candyName: requiredText(120, "Candy"),
   candyMaterialId: idSchema.nullable().optional(),
@@ -33,7 +52,19 @@ const panelFields = {
   labB: optionalNumber("b*", -160, 160),
   sprayedOn: z.preprocess((v) => (v === "" ? null : v), isoDateSchema.nullable()).optional(),
   notes: optionalText(2000, "Notes"),
+  /** Readings under the booth light and warm indoor light (the main reading above is daylight, D65). */
+  readings: readingsSchema.optional(),
+  ...spraySetupFields,
+  boothTemp: optionalNumber("Booth temperature", -10, 140),
+  tempUnit: z.preprocess((v) => (v === "" ? null : v), z.enum(TEMP_UNITS, { error: "Temperature unit must be C or F" }).nullable()).optional(),
+  humidityPct: optionalNumber("Humidity", 0, 100),
 };
+
+type PanelShape = { groundName?: string; groundMaterialId?: number | null; labL?: number | null; labA?: number | null; labB?: number | null };
+
+function groundGiven(v: PanelShape, ctx: z.RefinementCtx) {
+  if (!v.groundName && v.groundMaterialId == null) ctx.addIssue({ code: "custom", path: ["groundMaterialId"], message: "Pick the ground coat from the catalogue, or name it" });
+}
 
 function labAllOrNone(v: { labL?: number | null; labA?: number | null; labB?: number | null }, ctx: z.RefinementCtx) {
   const given = [v.labL, v.labA, v.labB].filter((x) => x !== null && x !== undefined).length;
@@ -43,10 +74,20 @@ function labAllOrNone(v: { labL?: number | null; labA?: number | null; labB?: nu
   }
 }
 
-export const createPanelInputSchema = z.object(panelFields).superRefine(labAllOrNone);
+export const createPanelInputSchema = z
+  .object(panelFields)
+  .superRefine(labAllOrNone)
+  .superRefine(groundGiven)
+  .superRefine(checkSetup)
+  .superRefine((v, ctx) => checkTemp({ boothTemp: v.boothTemp, tempUnit: v.tempUnit ?? undefined }, ctx));
 export type CreatePanelInput = z.input<typeof createPanelInputSchema>;
 
-export const updatePanelInputSchema = z.object(panelFields).partial().superRefine(labAllOrNone);
+export const updatePanelInputSchema = z
+  .object(panelFields)
+  .partial()
+  .superRefine(labAllOrNone)
+  .superRefine(checkSetup)
+  .superRefine((v, ctx) => checkTemp({ boothTemp: v.boothTemp, tempUnit: v.tempUnit ?? undefined }, ctx));
 export type UpdatePanelInput = z.input<typeof updatePanelInputSchema>;
 
 export const listPanelsQuerySchema = pageQuerySchema.extend({
@@ -105,13 +146,24 @@ export type PanelDto = {
   jobTitle: string | null;
   planLayerId: number | null;
   mixSheetId: number | null;
+  /** The main reading, under daylight (D65). */
   lab: Lab | null;
+  /** Readings under the other lights. */
+  readings: { light: PanelLight; illuminant: Illuminant; lab: Lab }[];
+  /** How it was sprayed, and the booth then. */
+  setup: SpraySetupDto;
+  conditions: { boothTemp: number | null; tempUnit: TempUnit | null; humidityPct: number | null };
+  /** The plan layer and the batch it was sprayed from, with the lots poured (staff only). */
+  planLayer: { id: number; name: string; planName: string; version: number } | null;
+  mixSheet: { id: number; status: "draft" | "mixed" | "void"; mixedAt: string | null; lots: { materialCode: string; materialName: string; lotNumber: string | null }[] } | null;
   sprayedOn: string | null;
   notes: string | null;
   createdById: string | null;
   createdByName: string | null;
   createdAt: string;
+  /** The first photo (any light), and every photo with the light it was taken under. */
   photo: UploadDto | null;
+  photos: UploadDto[];
   /** For a panel made for a job that has an approved panel (and both have readings). */
   vsApproved: ColourComparisonDto | null;
   isApprovedForJob: boolean;

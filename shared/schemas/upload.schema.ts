@@ -1,5 +1,6 @@
 import { z } from "zod";
 import { idSchema, optionalText } from "./common.schema";
+import { PANEL_LIGHTS, type PanelLight } from "../domain/spray-setup";
 
 /** What an upload belongs to. Photos go on jobs, items, prep records, coat logs and test panels; data sheets on materials. */
 export const UPLOAD_OWNER_TYPES = ["job", "job_item", "prep_record", "coat_log", "panel", "material"] as const;
@@ -21,6 +22,8 @@ export const createUploadFieldsSchema = z.object({
   ownerId: idSchema,
   caption: optionalText(200, "Caption"),
   shareable: formBoolean.optional(),
+  /** A test panel's photo: the light it was taken under. */
+  light: z.preprocess((v) => (v === "" ? undefined : v), z.enum(PANEL_LIGHTS, { error: `light must be one of: ${PANEL_LIGHTS.join(", ")}` }).optional()),
 });
 export type CreateUploadFields = z.input<typeof createUploadFieldsSchema>;
 
@@ -40,8 +43,9 @@ export const updateUploadInputSchema = z
   .object({
     shareable: z.boolean({ error: "shareable must be true or false" }).optional(),
     caption: optionalText(200, "Caption"),
+    light: z.enum(PANEL_LIGHTS, { error: `light must be one of: ${PANEL_LIGHTS.join(", ")}` }).nullable().optional(),
   })
-  .refine((v) => v.shareable !== undefined || v.caption !== undefined, { path: ["shareable"], message: "Nothing to change" });
+  .refine((v) => v.shareable !== undefined || v.caption !== undefined || v.light !== undefined, { path: ["shareable"], message: "Nothing to change" });
 export type UpdateUploadInput = z.input<typeof updateUploadInputSchema>;
 
 export type UploadDto = {
@@ -58,6 +62,8 @@ export type UploadDto = {
   height: number | null;
   caption: string | null;
   shareable: boolean;
+  /** For a test panel's photo: the light it was taken under. */
+  light: PanelLight | null;
   uploadedById: string | null;
   uploadedByName: string | null;
   createdAt: string;

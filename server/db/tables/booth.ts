@@ -6,7 +6,9 @@ import { jobItems, jobs, users } from "./core";
 import { materials } from "./materials";
 import { planLayers, planVersions } from "./plans";
 import { mixSheets } from "./mix-sheets";
-import { createdAt, updatedAt } from "./columns";
+import { createdAt, spraySetupColumns, updatedAt } from "./columns";
+import { guns } from "./equipment";
+import { ILLUMINANTS, PANEL_LIGHTS } from "../../../shared/domain/spray-setup";
 
 /**
  * Prep of one job item before it goes in the booth: one record per item. Editable until signed off;
@@ -74,6 +76,8 @@ export const coatLogs = sqliteTable(
     mixSheetId: integer("mix_sheet_id").references(() => mixSheets.id, { onDelete: "set null" }),
     /** Given when the first coat went on before every item's prep was signed off. */
     prepOverrideReason: text("prep_override_reason"),
+    gunId: integer("gun_id").references(() => guns.id, { onDelete: "set null" }),
+    ...spraySetupColumns(),
     correctsId: integer("corrects_id").references((): AnySQLiteColumn => coatLogs.id, { onDelete: "restrict" }),
     correctionReason: text("correction_reason"),
     voids: integer("voids", { mode: "boolean" }).notNull().default(false),
@@ -109,6 +113,11 @@ export const testPanels = sqliteTable(
     labB: real("lab_b"),
     sprayedOn: text("sprayed_on"),
     notes: text("notes"),
+    gunId: integer("gun_id").references(() => guns.id, { onDelete: "set null" }),
+    ...spraySetupColumns(),
+    boothTemp: real("booth_temp"),
+    tempUnit: text("temp_unit", { enum: TEMP_UNITS }),
+    humidityPct: real("humidity_pct"),
     createdBy: text("created_by").references(() => users.id, { onDelete: "set null" }),
     createdAt: createdAt(),
     updatedAt: updatedAt(),
@@ -118,4 +127,21 @@ export const testPanels = sqliteTable(
     index("test_panels_candy_idx").on(t.candyName),
     index("test_panels_job_idx").on(t.jobId),
   ],
+);
+
+/** Colour-meter readings of a panel under other lights than the main (daylight) one, each with its illuminant. */
+export const panelReadings = sqliteTable(
+  "panel_readings",
+  {
+    id: integer("id").primaryKey({ autoIncrement: true }),
+    panelId: integer("panel_id")
+      .notNull()
+      .references(() => testPanels.id, { onDelete: "cascade" }),
+    light: text("light", { enum: PANEL_LIGHTS }).notNull(),
+    illuminant: text("illuminant", { enum: ILLUMINANTS }).notNull(),
+    labL: real("lab_l").notNull(),
+    labA: real("lab_a").notNull(),
+    labB: real("lab_b").notNull(),
+  },
+  (t) => [uniqueIndex("panel_readings_panel_light_idx").on(t.panelId, t.light)],
 );

@@ -1,6 +1,7 @@
 import { index, integer, sqliteTable, text } from "drizzle-orm/sqlite-core";
 import { jobs, users } from "./core";
 import { createdAt } from "./columns";
+import { PANEL_LIGHTS } from "../../../shared/domain/spray-setup";
 
 /**
  * Every uploaded file (data sheets, safety sheets, photos), stored under DATA_DIR/uploads by a random name.
@@ -25,6 +26,8 @@ export const uploads = sqliteTable(
     caption: text("caption"),
     /** Staff mark a job photo as one the customer may see. */
     shareable: integer("shareable", { mode: "boolean" }).notNull().default(false),
+    /** The light a panel photo was taken under. */
+    light: text("light", { enum: PANEL_LIGHTS }),
     uploadedBy: text("uploaded_by").references(() => users.id, { onDelete: "set null" }),
     createdAt: createdAt(),
   },

@@ -7,6 +7,8 @@ import type { RequestContext } from "../../http/context";
 import { coatLogs, customers, jobItems, jobs, jobStageEvents, mixSheetLines, mixSheets, planVersions, plans, prepRecords, testPanels, uploads, users } from "../../db/schema";
 import { badRequest, conflict, forbidden, notFound } from "../../http/http-error";
 import { iso, isoOrNull } from "../../http/dates";
+import { checkGun, gunNames } from "../guns/guns.service";
+import { setupColumns, setupOf } from "../guns/spray-setup";
 import { findJobFor } from "../jobs/jobs.access";
 import { preparedQuery } from "../../db/prepared";
 import { freezePlanVersion, jobPlanRow, loadPlanVersion, type LoadedPlanVersion } from "../plans/plans.service";
@@ -82,7 +84,8 @@ const coatRows = (deps: AppDeps, jobId: number) => coatRowsQuery(deps.db).all({ 
 
 const asEntry = (c: CoatRow): CoatEntry => ({ id: c.id, layerId: c.layerId, coatNumber: c.coatNumber, at: c.at, correctsId: c.correctsId, voids: c.voids });
 
-function coatDtos(rows: { c: CoatRow; painterName: string | null }[], layerNames: Map<number, string>): CoatLogDto[] {
+function coatDtos(deps: AppDeps, rows: { c: CoatRow; painterName: string | null }[], layerNames: Map<number, string>): CoatLogDto[] {
+  const guns = rows.some((r) => r.c.gunId != null) ? gunNames(deps) : new Map<number, string>();
   const effective = new Map(effectiveCoats(rows.map((r) => asEntry(r.c))).map((e) => [e.id, e]));
   const voided = new Set(rows.filter((r) => r.c.voids && r.c.correctsId != null).map((r) => r.c.correctsId!));
   return rows.map(({ c, painterName }) => ({
@@ -98,6 +101,7 @@ function coatDtos(rows: { c: CoatRow; painterName: string | null }[], layerNames
     tempUnit: c.tempUnit,
     humidityPct: c.humidityPct,
     note: c.note,
+    setup: setupOf(c, guns),
     mixSheetId: c.mixSheetId,
     prepOverrideReason: c.prepOverrideReason,
     correctsId: c.correctsId,
@@ -214,7 +218,7 @@ export function getBooth(deps: AppDeps, actor: Actor, jobId: number): BoothDto {
   const planned = boothVersion(deps, job);
   const rows = coatRows(deps, jobId);
   const layerNames = new Map((planned?.version.layers ?? []).map((l) => [l.id, l.name]));
-  const coatLogsDto = coatDtos(rows, layerNames);
+  const coatLogsDto = coatDtos(deps, rows, layerNames);
   const sheets = mixSheetDtos(deps, jobId);
 
   let layers: BoothLayerDto[] = [];
@@ -319,7 +323,7 @@ function lastConditions(deps: AppDeps, jobId: number): BoothDto["lastConditions"
 export function listCoatLogs(deps: AppDeps, actor: Actor, jobId: number): CoatLogDto[] {
   const job = findJobFor(deps, actor, jobId);
   const planned = boothVersion(deps, job);
-  return coatDtos(coatRows(deps, jobId), new Map((planned?.version.layers ?? []).map((l) => [l.id, l.name])));
+  return coatDtos(deps, coatRows(deps, jobId), new Map((planned?.version.layers ?? []).map((l) => [l.id, l.name])));
 }
 
 function assertCanLog(deps: AppDeps, actor: Actor, jobId: number): JobRow {
@@ -364,6 +368,7 @@ export function logCoat(deps: AppDeps, ctx: RequestContext, input: z.output<type
     }
     override = `${input.prepOverrideReason} (prep not signed off: ${pending.join(", ")})`.slice(0, 800);
   }
+  checkGun(deps, input.gunId);
   const now = deps.now();
   deps.db.transaction((tx) => {
     tx.insert(coatLogs)
@@ -378,6 +383,7 @@ export function logCoat(deps: AppDeps, ctx: RequestContext, input: z.output<type
         tempUnit: input.boothTemp != null ? (input.tempUnit ?? null) : null,
         humidityPct: input.humidityPct ?? null,
         note: input.note ?? null,
+        ...setupColumns(input),
         mixSheetId: booth.openBatch?.mixSheetId ?? null,
         prepOverrideReason: override,
         createdAt: now,
@@ -440,6 +446,7 @@ export function correctCoatLog(deps: AppDeps, ctx: RequestContext, id: number, i
       tempUnit,
       humidityPct: input.humidityPct !== undefined ? input.humidityPct : current.humidityPct,
       note: input.note !== undefined ? input.note : current.note,
+      ...setupColumns(current),
       mixSheetId: original.mixSheetId,
       correctsId: id,
       correctionReason: input.reason,

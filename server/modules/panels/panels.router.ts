@@ -12,6 +12,8 @@ import {
   setApprovedPanelInputSchema,
   updatePanelInputSchema,
 } from "../../../shared/schemas/panel.schema";
+import { repeatPanel } from "../finish-record/repeat.service";
+import { repeatFinishInputSchema } from "../../../shared/schemas/finish-record.schema";
 import { comparePanels, createPanel, deletePanel, getPanel, jobColour, listPanels, panelLadder, setApprovedPanel, updatePanel } from "./panels.service";
 
 /** The test-panel library: all staff read and add panels; the office removes them. */
@@ -34,6 +36,9 @@ export function panelsRouter(deps: AppDeps) {
   });
   r.patch("/:id", allow("staff"), (req, res) => {
     res.json(updatePanel(deps, actorOf(res), params(req, idParamsSchema).id, body(req, updatePanelInputSchema)));
+  });
+  r.post("/:id/repeat", allow("office"), (req, res) => {
+    res.status(201).json(repeatPanel(deps, ctxOf(req, res), params(req, idParamsSchema).id, body(req, repeatFinishInputSchema)));
   });
   r.delete("/:id", allow("office"), (req, res) => {
     deletePanel(deps, actorOf(res), params(req, idParamsSchema).id);

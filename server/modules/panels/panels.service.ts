@@ -3,13 +3,15 @@ import type { z } from "zod";
 import type { AppDeps } from "../../deps";
 import type { Actor } from "../../auth/session";
 import type { RequestContext } from "../../http/context";
-import { jobs, mixSheets, planLayers, testPanels, uploads, users } from "../../db/schema";
+import { jobs, materials, mixSheetLines, mixSheets, panelReadings, planLayers, plans, planVersions, testPanels, uploads, users } from "../../db/schema";
 import { badRequest, conflict, forbidden, notFound } from "../../http/http-error";
 import { iso } from "../../http/dates";
 import { recordAudit } from "../audit/audit.service";
 import { findJobFor } from "../jobs/jobs.access";
 import { getSettings } from "../settings/settings.service";
 import { deleteUploadsOf, photosOf } from "../uploads/uploads.service";
+import { checkGun, gunNames } from "../guns/guns.service";
+import { setupOf } from "../guns/spray-setup";
 import { deltaE2000, equivalentCoats, tonerFraction } from "../../../shared/mix/index";
 import { colourVerdict, colourVerdictText } from "../../../shared/domain/colour-verdict";
 import type {
@@ -57,14 +59,65 @@ function selectPanels(deps: AppDeps) {
 }
 type Selected = Awaited<ReturnType<ReturnType<typeof selectPanels>["all"]>>[number];
 
+/** Readings under other lights, by panel. */
+function readingsOf(deps: AppDeps, panelIds: number[]): Map<number, PanelDto["readings"]> {
+  const out = new Map<number, PanelDto["readings"]>();
+  if (!panelIds.length) return out;
+  for (const r of deps.db.select().from(panelReadings).where(inArray(panelReadings.panelId, panelIds)).orderBy(asc(panelReadings.id)).all())
+    out.set(r.panelId, [...(out.get(r.panelId) ?? []), { light: r.light, illuminant: r.illuminant, lab: { L: r.labL, a: r.labA, b: r.labB } }]);
+  return out;
+}
+
+/** Plan layers by id, with their plan's name and version. */
+function layersOf(deps: AppDeps, layerIds: number[]): Map<number, NonNullable<PanelDto["planLayer"]>> {
+  if (!layerIds.length) return new Map();
+  const rows = deps.db
+    .select({ id: planLayers.id, name: planLayers.name, planName: plans.name, version: planVersions.version })
+    .from(planLayers)
+    .innerJoin(planVersions, eq(planLayers.versionId, planVersions.id))
+    .innerJoin(plans, eq(planVersions.planId, plans.id))
+    .where(inArray(planLayers.id, layerIds))
+    .all();
+  return new Map(rows.map((r) => [r.id, r]));
+}
+
+/** Mix sheets by id, with the lots poured into them. */
+function sheetsOf(deps: AppDeps, sheetIds: number[]): Map<number, NonNullable<PanelDto["mixSheet"]>> {
+  if (!sheetIds.length) return new Map();
+  const sheets = deps.db.select({ id: mixSheets.id, status: mixSheets.status, mixedAt: mixSheets.mixedAt }).from(mixSheets).where(inArray(mixSheets.id, sheetIds)).all();
+  const lines = deps.db
+    .select({ sheetId: mixSheetLines.mixSheetId, materialCode: materials.code, materialName: materials.name, lotNumber: mixSheetLines.lotNumber })
+    .from(mixSheetLines)
+    .innerJoin(materials, eq(mixSheetLines.materialId, materials.id))
+    .where(inArray(mixSheetLines.mixSheetId, sheetIds))
+    .orderBy(asc(mixSheetLines.position))
+    .all();
+  return new Map(
+    sheets.map((sh) => [
+      sh.id,
+      {
+        id: sh.id,
+        status: sh.status,
+        mixedAt: sh.mixedAt != null ? iso(sh.mixedAt) : null,
+        lots: lines.filter((l) => l.sheetId === sh.id).map(({ materialCode, materialName, lotNumber }) => ({ materialCode, materialName, lotNumber })),
+      },
+    ]),
+  );
+}
+
 /** Panels as the actor may see them: painters see job titles only for their own jobs; customers no shop notes. */
 function toDtos(deps: AppDeps, actor: Actor, rows: Selected[], t: Thresholds): PanelDto[] {
-  const photos = photosOf(deps, actor, "panel", rows.map((r) => r.p.id));
+  const ids = rows.map((r) => r.p.id);
+  const photos = photosOf(deps, actor, "panel", ids);
+  const readings = readingsOf(deps, ids);
+  const guns = gunNames(deps);
+  const customer = actor.role === "customer";
+  const layers = customer ? new Map() : layersOf(deps, [...new Set(rows.map((r) => r.p.planLayerId).filter((x): x is number => x != null))]);
+  const sheets = customer ? new Map() : sheetsOf(deps, [...new Set(rows.map((r) => r.p.mixSheetId).filter((x): x is number => x != null))]);
   const approvedIds = [...new Set(rows.map((r) => r.approvedPanelId).filter((id): id is number => id != null))];
   const approved = new Map(
     approvedIds.length ? deps.db.select().from(testPanels).where(inArray(testPanels.id, approvedIds)).all().map((p) => [p.id, labOf(p)]) : [],
   );
-  const customer = actor.role === "customer";
   return rows.map(({ p, jobTitle, jobPainter, approvedPanelId, createdByName }) => {
     const lab = labOf(p);
     const seesJob = p.jobId != null && (actor.role !== "painter" || jobPainter === actor.id);
@@ -86,12 +139,18 @@ function toDtos(deps: AppDeps, actor: Actor, rows: Selected[], t: Thresholds): P
       planLayerId: customer ? null : p.planLayerId,
       mixSheetId: customer ? null : p.mixSheetId,
       lab,
+      readings: readings.get(p.id) ?? [],
+      setup: setupOf(p, guns),
+      conditions: { boothTemp: p.boothTemp, tempUnit: p.tempUnit, humidityPct: p.humidityPct },
+      planLayer: (p.planLayerId != null ? layers.get(p.planLayerId) : null) ?? null,
+      mixSheet: (p.mixSheetId != null ? sheets.get(p.mixSheetId) : null) ?? null,
       sprayedOn: p.sprayedOn,
       notes: customer ? null : p.notes,
       createdById: customer ? null : p.createdBy,
       createdByName: customer ? null : createdByName,
       createdAt: iso(p.createdAt),
       photo: photos.get(p.id)?.[0] ?? null,
+      photos: photos.get(p.id) ?? [],
       vsApproved,
       isApprovedForJob: approvedPanelId != null && approvedPanelId === p.id,
     };
@@ -162,34 +221,56 @@ function checkRefs(deps: AppDeps, actor: Actor, input: { jobId?: number | null; 
   }
 }
 
+/** The ground's name: the catalogue material's when one is picked (it must exist), else the name given. */
+function groundNameOf(deps: AppDeps, input: { groundName?: string; groundMaterialId?: number | null }): string | undefined {
+  if (input.groundMaterialId == null) return input.groundName;
+  const m = deps.db.select({ name: materials.name }).from(materials).where(eq(materials.id, input.groundMaterialId)).get();
+  if (!m) throw badRequest("That ground coat is not in the catalogue", { groundMaterialId: "No such material" });
+  return m.name;
+}
+
+type PanelInput = z.output<typeof updatePanelInputSchema>;
+
+/** The columns an input sets (only the fields it carries), with the ground named from the catalogue. */
+function columnsOf(deps: AppDeps, input: PanelInput): Partial<PanelRow> {
+  const { readings: _readings, ...fields } = input;
+  const set: Partial<PanelRow> = {};
+  for (const [k, v] of Object.entries(fields)) if (v !== undefined) (set as Record<string, unknown>)[k] = v;
+  if (input.groundMaterialId != null) set.groundName = groundNameOf(deps, input);
+  return set;
+}
+
+function replaceReadings(tx: Pick<AppDeps["db"], "delete" | "insert">, panelId: number, readings: PanelInput["readings"]) {
+  if (readings === undefined) return;
+  tx.delete(panelReadings).where(eq(panelReadings.panelId, panelId)).run();
+  if (readings.length) tx.insert(panelReadings).values(readings.map((r) => ({ panelId, ...r }))).run();
+}
+
 export function createPanel(deps: AppDeps, actor: Actor, input: z.output<typeof createPanelInputSchema>): PanelDto {
   checkRefs(deps, actor, input);
+  checkGun(deps, input.gunId);
   const now = deps.now();
-  const row = deps.db
-    .insert(testPanels)
-    .values({
-      groundName: input.groundName,
-      groundMaterialId: input.groundMaterialId ?? null,
-      candyName: input.candyName,
-      candyMaterialId: input.candyMaterialId ?? null,
-      letDownClear: input.letDownClear,
-      letDownToner: input.letDownToner,
-      coats: input.coats,
-      jobId: input.jobId ?? null,
-      planLayerId: input.planLayerId ?? null,
-      mixSheetId: input.mixSheetId ?? null,
-      labL: input.labL ?? null,
-      labA: input.labA ?? null,
-      labB: input.labB ?? null,
-      sprayedOn: input.sprayedOn ?? null,
-      notes: input.notes ?? null,
-      createdBy: actor.id,
-      createdAt: now,
-      updatedAt: now,
-    })
-    .returning({ id: testPanels.id })
-    .get();
-  return getPanel(deps, actor, row.id);
+  const columns = columnsOf(deps, input);
+  const id = deps.db.transaction((tx) => {
+    const row = tx
+      .insert(testPanels)
+      .values({
+        ...columns,
+        groundName: columns.groundName!,
+        candyName: input.candyName,
+        letDownClear: input.letDownClear,
+        letDownToner: input.letDownToner,
+        coats: input.coats,
+        createdBy: actor.id,
+        createdAt: now,
+        updatedAt: now,
+      })
+      .returning({ id: testPanels.id })
+      .get()!;
+    replaceReadings(tx, row.id, input.readings);
+    return row.id;
+  });
+  return getPanel(deps, actor, id);
 }
 
 /** The office edits any panel; a painter the panels they made. */
@@ -201,13 +282,17 @@ export function updatePanel(deps: AppDeps, actor: Actor, id: number, input: z.ou
   const { p } = findPanelRow(deps, id);
   checkEditable(actor, p);
   checkRefs(deps, actor, input);
-  const merged = { ...p, ...Object.fromEntries(Object.entries(input).filter(([, v]) => v !== undefined)) } as PanelRow;
+  checkGun(deps, input.gunId);
+  const set = columnsOf(deps, input);
+  const merged = { ...p, ...set } as PanelRow;
   const labs = [merged.labL, merged.labA, merged.labB].filter((v) => v != null).length;
   if (labs !== 0 && labs !== 3) throw badRequest("Enter L*, a* and b* together, or none", { labL: "Enter all three readings or none" });
-  const set: Partial<PanelRow> = {};
-  for (const [k, v] of Object.entries(input)) if (v !== undefined) (set as Record<string, unknown>)[k] = v;
+  if (merged.inletPressure != null && !merged.pressureUnit) throw badRequest("Say whether the pressure is psi or bar", { pressureUnit: "Missing unit" });
+  if ((merged.distance != null || merged.fanWidth != null) && !merged.distanceUnit) throw badRequest("Say whether lengths are in cm or in", { distanceUnit: "Missing unit" });
+  if (merged.boothTemp != null && !merged.tempUnit) throw badRequest("Say whether the temperature is °C or °F", { tempUnit: "Missing unit" });
   deps.db.transaction((tx) => {
     tx.update(testPanels).set({ ...set, updatedAt: deps.now() }).where(eq(testPanels.id, id)).run();
+    replaceReadings(tx, id, input.readings);
     if (input.jobId !== undefined) tx.update(uploads).set({ jobId: input.jobId }).where(and(eq(uploads.ownerType, "panel"), eq(uploads.ownerId, id))).run();
   });
   return getPanel(deps, actor, id);
@@ -242,13 +327,14 @@ export function comparePanels(deps: AppDeps, actor: Actor, ids: number[]): Panel
 }
 
 /**
- * One candy over one ground, ordered by coats: colour depth follows toner fraction × coats (Beer–Lambert with
- * the same wet film per coat), so each rung also shows the coats at the reference let-down that give its depth.
+ * One candy over one ground, ordered by depth: colour depth follows toner fraction × coats (Beer–Lambert with the
+ * same wet film per coat), not the coat count (3 coats at 6:1 are deeper than 4 coats at 10:1). Each rung also shows
+ * the coats at the reference let-down that give its depth, and ΔE00 from the rung before it in that order.
  */
 export function panelLadder(deps: AppDeps, actor: Actor, q: z.output<typeof ladderQuerySchema>): PanelLadderDto {
   const rows = selectPanels(deps)
     .where(and(ci(testPanels.groundName, q.ground), ci(testPanels.candyName, q.candy)))
-    .orderBy(asc(testPanels.coats), asc(sql`${testPanels.letDownToner} / (${testPanels.letDownClear} + ${testPanels.letDownToner})`), asc(testPanels.id))
+    .orderBy(asc(sql`${testPanels.coats} * ${testPanels.letDownToner} / (${testPanels.letDownClear} + ${testPanels.letDownToner})`), asc(testPanels.coats), asc(testPanels.id))
     .all();
   if (!rows.length) throw notFound(`Test panels of ${q.candy} over ${q.ground}`);
   const panels = toDtos(deps, actor, rows, thresholdsOf(deps));

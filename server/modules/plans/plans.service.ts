@@ -172,7 +172,7 @@ function versionLocked(db: DbOrTx, versionId: number, frozenAt: number | null): 
   return (db.select({ n: count() }).from(mixSheets).where(eq(mixSheets.planVersionId, versionId)).get()?.n ?? 0) > 0;
 }
 
-function latestVersionRow(db: DbOrTx, planId: number) {
+export function latestVersionRow(db: DbOrTx, planId: number) {
   const row = db.select().from(planVersions).where(eq(planVersions.planId, planId)).orderBy(desc(planVersions.version)).limit(1).get();
   if (!row) throw notFound("Plan version");
   return row;
@@ -409,7 +409,7 @@ function auditSummary(name: string, version: number, layers: { kind: string; nam
 }
 
 /** A loaded version as a plan document (for copies). */
-function documentOf(name: string, description: string | null, v: LoadedPlanVersion): PlanDocument {
+export function documentOf(name: string, description: string | null, v: LoadedPlanVersion): PlanDocument {
   return {
     name,
     description,
@@ -433,7 +433,7 @@ function documentOf(name: string, description: string | null, v: LoadedPlanVersi
   };
 }
 
-function insertPlan(tx: DbOrTx, ctx: RequestContext, doc: PlanDocument, opts: { jobId: number | null; isTemplate: boolean; copiedFromPlanId: number | null; now: number }) {
+export function insertPlan(tx: DbOrTx, ctx: RequestContext, doc: PlanDocument, opts: { jobId: number | null; isTemplate: boolean; copiedFromPlanId: number | null; now: number }) {
   const plan = tx
     .insert(plans)
     .values({

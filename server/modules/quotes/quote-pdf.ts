@@ -1,18 +1,10 @@
-import PDFDocument from "pdfkit";
-import { createRequire } from "node:module";
+import { ACCENT, INK, MUTED, NUM, RULE, newPdfDocument } from "../../pdf/pdf-document";
 import type { ShopSettings } from "../../../shared/schemas/settings.schema";
 import { QUOTE_STATUS_LABELS, type QuoteStatus } from "../../../shared/schemas/quote.schema";
 import { SUBSTRATE_LABELS, type Substrate } from "../../../shared/domain/substrates";
 import { customerLineDetail, formatCents, formatPercent, taxLabel, type QuoteLine, type QuoteTotals, type TaxableKind } from "../../../shared/quote/index";
 import { longDate, mediumDate } from "../messages/compose";
 
-/** Inter, embedded from the installed @fontsource files (WOFF, which pdfkit's fontkit reads). Latin subset. */
-const require = createRequire(import.meta.url);
-const FONTS = {
-  regular: require.resolve("@fontsource/inter/files/inter-latin-400-normal.woff"),
-  medium: require.resolve("@fontsource/inter/files/inter-latin-500-normal.woff"),
-  bold: require.resolve("@fontsource/inter/files/inter-latin-700-normal.woff"),
-};
 
 export type QuotePdfData = {
   shop: ShopSettings;
@@ -34,45 +26,10 @@ export type QuotePdfData = {
   depositPercent: number;
 };
 
-/** Figures in columns: tabular digits and no kerning (Inter kerns "7." so tightly that $617.50 reads as $61750). */
-const NUM = { features: { kern: false, tnum: true } as unknown as PDFKit.Mixins.OpenTypeFeatures[] };
-
-const INK = "#17202a";
-const MUTED = "#4b5866";
-const RULE = "#c9d0d8";
-const ACCENT = "#9f1239";
 
 /** Renders a quote as a US Letter PDF and resolves with its bytes. */
 export function renderQuotePdf(d: QuotePdfData): Promise<Buffer> {
-  const doc = new PDFDocument({
-    size: "LETTER",
-    margins: { top: 54, bottom: 64, left: 54, right: 54 },
-    bufferPages: true,
-    info: { Title: `Quote #${d.quoteId} v${d.version}: ${d.job.title}`, Author: d.shop.shopName, Subject: "Quote", Creator: "Coatwright" },
-  });
-  doc.registerFont("body", FONTS.regular);
-  doc.registerFont("medium", FONTS.medium);
-  doc.registerFont("bold", FONTS.bold);
-  const chunks: Buffer[] = [];
-  doc.on("data", (c: Buffer) => chunks.push(c));
-  const done = new Promise<Buffer>((resolve, reject) => {
-    doc.on("end", () => resolve(Buffer.concat(chunks)));
-    doc.on("error", reject);
-  });
-
-  const left = doc.page.margins.left;
-  const width = doc.page.width - doc.page.margins.left - doc.page.margins.right;
-  const bottom = () => doc.page.height - doc.page.margins.bottom;
-  const ensure = (h: number) => {
-    if (doc.y + h > bottom()) doc.addPage();
-  };
-  const heading = (text: string) => {
-    ensure(40);
-    doc.moveDown(0.8);
-    doc.font("bold").fontSize(10.5).fillColor(ACCENT).text(text.toUpperCase(), left, doc.y, { characterSpacing: 0.6 });
-    doc.moveDown(0.25);
-    doc.fillColor(INK);
-  };
+  const { doc, done, left, width, bottom, ensure, heading, footer } = newPdfDocument({ Title: `Quote #${d.quoteId} v${d.version}: ${d.job.title}`, Author: d.shop.shopName, Subject: "Quote" });
 
   // ---- header: shop on the left, quote facts on the right ----
   const top = doc.y;
@@ -201,18 +158,7 @@ export function renderQuotePdf(d: QuotePdfData): Promise<Buffer> {
       { width },
     );
 
-  // ---- footer on every page ----
-  const range = doc.bufferedPageRange();
-  for (let i = range.start; i < range.start + range.count; i++) {
-    doc.switchToPage(i);
-    const y = doc.page.height - 40;
-    doc.font("body").fontSize(8).fillColor(MUTED);
-    // Writing inside the bottom margin: lift it so pdfkit does not start a new page.
-    const saved = doc.page.margins.bottom;
-    doc.page.margins.bottom = 0;
-    doc.text(`${d.shop.shopName}  ·  Quote #${d.quoteId} v${d.version}  ·  Page ${i - range.start + 1} of ${range.count}`, left, y, { width, align: "center", lineBreak: false });
-    doc.page.margins.bottom = saved;
-  }
+  footer(`${d.shop.shopName}  ·  Quote #${d.quoteId} v${d.version}`);
   doc.end();
   return done;
 }

@@ -89,6 +89,7 @@ export function toUploadDto(row: UploadRow & { uploadedByName?: string | null })
     height: row.height,
     caption: row.caption,
     shareable: row.shareable,
+    light: row.light,
     uploadedById: row.uploadedBy,
     uploadedByName: row.uploadedByName ?? null,
     createdAt: iso(row.createdAt),
@@ -139,6 +140,7 @@ export async function createUpload(
       ...stored,
       caption: fields.caption ?? null,
       shareable: jobId !== null && (fields.shareable ?? false),
+      light: fields.ownerType === "panel" ? (fields.light ?? null) : null,
       uploadedBy: actor.id,
       createdAt: deps.now(),
     })
@@ -209,7 +211,11 @@ export function updateUpload(deps: AppDeps, actor: Actor, id: number, input: z.o
   if (input.shareable && row.jobId === null) throw badRequest("Only photos of a customer's job can be shared", { shareable: "Not a job photo" });
   const updated = deps.db
     .update(uploads)
-    .set({ ...(input.shareable !== undefined ? { shareable: input.shareable } : {}), ...(input.caption !== undefined ? { caption: input.caption } : {}) })
+    .set({
+      ...(input.shareable !== undefined ? { shareable: input.shareable } : {}),
+      ...(input.caption !== undefined ? { caption: input.caption } : {}),
+      ...(input.light !== undefined && row.ownerType === "panel" ? { light: input.light } : {}),
+    })
     .where(eq(uploads.id, id))
     .returning()
     .get();

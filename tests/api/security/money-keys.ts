@@ -27,6 +27,7 @@ export const NOT_MONEY: Record<string, string> = {
   "/api/mix-sheets .lines[].amount": "how much of one component to pour or weigh",
   "/api/mix-sheets [].total": "list of a job's sheets: each batch's volume in its unit",
   "/api/mix-sheets [].totalMl": "list of a job's sheets: each batch's volume, mL",
+  "/api/jobs/:id/finish-record .layers[].batches[].totalMl": "finish record: each recorded batch's volume, mL",
 };
 
 /** True when a money-word key at "<route> <key path>" is one of the listed counts or volumes (keys match by route prefix). */
