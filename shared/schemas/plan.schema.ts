@@ -190,6 +190,8 @@ export type LayerEstimateDto = {
   vocGPerL: number | null;
   /** Volume solids of the mixed layer, %. */
   volumeSolidsPct: number | null;
+  /** One coat's dry and wet film (in the layer's film unit), and the coverage of the mixed layer at its transfer efficiency. */
+  film: { dryFilmPerCoat: number; wetFilmPerCoat: number; unit: "um" | "mil"; transferEfficiencyPct: number; m2PerL: number; ft2PerGal: number } | null;
   cautions: Caution[];
   problem: string | null;
 };

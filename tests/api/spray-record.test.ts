@@ -288,3 +288,24 @@ describe("repeating a recorded finish", () => {
     expect(layer).toMatchObject({ coats: 5, gunTip: "1.4 mm", pressurePsi: 24 });
   });
 });
+
+describe("film build and coverage on the plan", () => {
+  it("each layer shows its wet film per coat and its coverage at its transfer efficiency", async () => {
+    const s = await makeShop();
+    const plan = addBoothPlan(s, s.jobA.id);
+    s.db.update(materials).set({ volumeSolidsPct: 52 }).where(eq(materials.id, plan.materials.safe.id)).run();
+    s.db.update(planLayers).set({ dryFilmPerCoat: 1.5, dryFilmUnit: "mil", transferEfficiencyPct: 30 }).where(eq(planLayers.id, plan.layers[0]!.id)).run();
+    const est = (await s.as("painter").get(`/api/jobs/${s.jobA.id}/plan`)).body.estimate;
+    const film = est.layers[0].film;
+    // Ron Joseph, PCRC "Calculating Paint Coverage": 1 gal at VS 52 %, TE 30 %, 1.5 mil dry covers 166.8 ft²
+    // (references.md §2: 1604.1667 × 0.52 × 0.30 / 1.5).
+    expect(film.ft2PerGal).toBeCloseTo(166.83, 2);
+    // Same figure in metric: 1000 m²/(L·µm) × 0.52 × 0.30 / 38.1 µm.
+    expect(film.m2PerL).toBeCloseTo((1000 * 0.52 * 0.3) / 38.1, 9);
+    // Wet film = dry film / volume solids (references.md §2): 1.5 / 0.52 mil.
+    expect(film.wetFilmPerCoat).toBeCloseTo(1.5 / 0.52, 12);
+    expect(film).toMatchObject({ dryFilmPerCoat: 1.5, unit: "mil", transferEfficiencyPct: 30 });
+    // A layer without a dry film figure has no film line.
+    expect(est.layers[1].film).toBeNull();
+  });
+});

@@ -2,7 +2,7 @@ import { eq } from "drizzle-orm";
 import type { AppDeps } from "../../deps";
 import type { Actor } from "../../auth/session";
 import { jobItems } from "../../db/schema";
-import { M2_PER_FT2, MixError, mixVoc, mixVolumeSolids, resolveShares, volumeNeeded } from "../../../shared/mix/index";
+import { M2_PER_FT2, MixError, mixVoc, mixVolumeSolids, resolveShares, spreadingRate, volumeNeeded, wetFilmFromDry } from "../../../shared/mix/index";
 import { toMixComponents } from "../../../shared/domain/layer-mix";
 import { centsPerMl } from "../../../shared/domain/material-units";
 import type { Caution } from "../../../shared/domain/safety";
@@ -43,6 +43,7 @@ export type JobPlanEstimate = {
     costCents: number;
     vocGPerL: number | null;
     volumeSolidsPct: number | null;
+    film: LayerFilm | null;
     cautions: Caution[];
     problem: string | null;
   }[];
@@ -50,6 +51,25 @@ export type JobPlanEstimate = {
   totalCostCents: number;
   problems: string[];
 };
+
+/**
+ * Film build of one coat and what a volume of the mixed layer covers at the layer's transfer efficiency:
+ *   wet film = dry film / volume solids; coverage = 1000 m²/(L·µm) (or 1604.17 ft²/(gal·mil)) × VS × TE / dry film.
+ */
+export type LayerFilm = { dryFilmPerCoat: number; wetFilmPerCoat: number; unit: "um" | "mil"; transferEfficiencyPct: number; m2PerL: number; ft2PerGal: number };
+
+function filmOf(layer: LoadedLayer, volumeSolidsPct: number): LayerFilm | null {
+  if (layer.dryFilmPerCoat == null || layer.dryFilmPerCoat <= 0 || volumeSolidsPct <= 0) return null;
+  const input = { volumeSolidsPct, dryFilm: layer.dryFilmPerCoat, dryFilmUnit: layer.dryFilmUnit, transferEfficiencyPct: layer.transferEfficiencyPct };
+  return {
+    dryFilmPerCoat: layer.dryFilmPerCoat,
+    wetFilmPerCoat: wetFilmFromDry(layer.dryFilmPerCoat, volumeSolidsPct),
+    unit: layer.dryFilmUnit,
+    transferEfficiencyPct: layer.transferEfficiencyPct,
+    m2PerL: spreadingRate(input, "m2/L"),
+    ft2PerGal: spreadingRate(input, "ft2/gal"),
+  };
+}
 
 /** Categories that carry no solids when the catalogue leaves volume solids empty. */
 const SOLIDS_FREE = new Set(["reducer", "cleaner"]);
@@ -65,6 +85,7 @@ export function estimateLayer(layer: LoadedLayer, areaM2: number): LayerResult {
     exactCostCents: 0,
     vocGPerL: null,
     volumeSolidsPct: null,
+    film: null,
     problem,
     ...extra,
   });
@@ -83,8 +104,9 @@ export function estimateLayer(layer: LoadedLayer, areaM2: number): LayerResult {
   const noSolids = layer.components.find((c) => c.volumeSolidsPct == null && !SOLIDS_FREE.has(c.category));
   if (noSolids) return none(`${noSolids.materialCode} has no volume solids in the catalogue`, { vocGPerL });
   const vs = mixVolumeSolids(layer.components.map((c, i) => ({ volume: shares[i]!, volumeSolidsPct: c.volumeSolidsPct ?? 0 })));
+  const film = filmOf(layer, vs);
   if (layer.dryFilmPerCoat == null) return none("No dry film per coat is set", { vocGPerL, volumeSolidsPct: vs });
-  if (areaM2 <= 0) return none("The job has no items with an area", { vocGPerL, volumeSolidsPct: vs });
+  if (areaM2 <= 0) return none("The job has no items with an area", { vocGPerL, volumeSolidsPct: vs, film });
   if (vs <= 0) return none("The mixed layer has no solids", { vocGPerL, volumeSolidsPct: vs });
   const volumeMl = volumeNeeded(
     {
@@ -105,7 +127,7 @@ export function estimateLayer(layer: LoadedLayer, areaM2: number): LayerResult {
     if (perMl == null) problem ??= `${c.materialCode} is sold by weight but has no density, so its cost is left out`;
     else exact += shares[i]! * volumeMl * perMl;
   });
-  return { ...base, volumeMl, costCents: Math.round(exact), exactCostCents: exact, vocGPerL, volumeSolidsPct: vs, problem };
+  return { ...base, volumeMl, costCents: Math.round(exact), exactCostCents: exact, vocGPerL, volumeSolidsPct: vs, film, problem };
 }
 
 /** Total area of the job's items in m². */
