@@ -143,10 +143,13 @@ export type BoothDto = {
     customerName: string;
     dueDate: string | null;
     assignedPainterName: string | null;
-    approvedPanel: { id: number; label: string; thumbUrl: string | null } | null;
+    /** The agreed colour, with the set-up it was sprayed with: the target the booth card shows and prefills. */
+    approvedPanel: { id: number; label: string; thumbUrl: string | null; planLayerId: number | null; setup: SpraySetupDto } | null;
   };
   /** Whether this user may log coats here (painters on their jobs and the owner; estimators read only). */
   canLog: boolean;
+  /** The shop's guns in use, to say which one sprayed a coat. */
+  guns: { id: number; name: string }[];
   items: { id: number; name: string; substrate: Substrate; needsAdhesionPromoter: boolean; prepStatus: PrepStatus; prepRecordId: number | null }[];
   prepReady: boolean;
   plan: { planId: number; name: string; versionId: number; version: number; frozen: boolean } | null;

@@ -140,6 +140,7 @@ export type MixSheetSummaryDto = {
   id: number;
   jobId: number;
   jobTitle: string;
+  layerId: number;
   layerName: string;
   layerKind: LayerKind;
   status: MixSheetStatus;

@@ -29,12 +29,15 @@ const readingsSchema = z
   .max(PANEL_LIGHTS.length, `At most ${PANEL_LIGHTS.length} readings`)
   .refine((r) => new Set(r.map((x) => x.light)).size === r.length, "One reading per light");
 
+/** An optional reference; an empty pick ("") from a form means none. */
+const optionalId = z.preprocess((v) => (v === "" ? null : v), idSchema.nullable()).optional();
+
 const panelFields = {
   /** The ground coat: picked from the catalogue (groundMaterialId), or named when it is not in it. */
-  groundName: requiredText(120, "Ground coat").optional(),
-  groundMaterialId: idSchema.nullable().optional(),
+  groundName: z.preprocess((v) => (v === "" ? undefined : v), requiredText(120, "Ground coat").optional()),
+  groundMaterialId: optionalId,
   candyName: requiredText(120, "Candy"),
-  candyMaterialId: idSchema.nullable().optional(),
+  candyMaterialId: optionalId,
   /** Let-down ratio, clear : toner (e.g. 6 : 1). */
   letDownClear: parts("Clear parts"),
   letDownToner: parts("Toner parts"),
@@ -43,9 +46,9 @@ const panelFields = {
     .int("Coats is a whole number")
     .min(1, "At least one coat")
     .max(MAX_PANEL_COATS, `At most ${MAX_PANEL_COATS} coats`),
-  jobId: idSchema.nullable().optional(),
-  planLayerId: idSchema.nullable().optional(),
-  mixSheetId: idSchema.nullable().optional(),
+  jobId: optionalId,
+  planLayerId: optionalId,
+  mixSheetId: optionalId,
   /** Optional colour-meter reading, CIELAB (D65 as the meter reports it). */
   labL: optionalNumber("L*", 0, 100),
   labA: optionalNumber("a*", -160, 160),
@@ -60,11 +63,13 @@ const panelFields = {
   humidityPct: optionalNumber("Humidity", 0, 100),
 };
 
-type PanelShape = { groundName?: string; groundMaterialId?: number | null; labL?: number | null; labA?: number | null; labB?: number | null };
-
-function groundGiven(v: PanelShape, ctx: z.RefinementCtx) {
-  if (!v.groundName && v.groundMaterialId == null) ctx.addIssue({ code: "custom", path: ["groundMaterialId"], message: "Pick the ground coat from the catalogue, or name it" });
-}
+/** The ground is picked from the catalogue or named (checked with the other fields where zod can). */
+const groundGiven = (v: { groundName?: string; groundMaterialId?: number | null }) => !!v.groundName || v.groundMaterialId != null;
+const groundGivenParams = {
+  path: ["groundMaterialId"],
+  message: "Pick the ground coat from the catalogue, or name it",
+  when: (payload: { value: unknown }) => typeof payload.value === "object" && payload.value !== null,
+};
 
 function labAllOrNone(v: { labL?: number | null; labA?: number | null; labB?: number | null }, ctx: z.RefinementCtx) {
   const given = [v.labL, v.labA, v.labB].filter((x) => x !== null && x !== undefined).length;
@@ -77,7 +82,7 @@ function labAllOrNone(v: { labL?: number | null; labA?: number | null; labB?: nu
 export const createPanelInputSchema = z
   .object(panelFields)
   .superRefine(labAllOrNone)
-  .superRefine(groundGiven)
+  .refine(groundGiven, groundGivenParams)
   .superRefine(checkSetup)
   .superRefine((v, ctx) => checkTemp({ boothTemp: v.boothTemp, tempUnit: v.tempUnit ?? undefined }, ctx));
 export type CreatePanelInput = z.input<typeof createPanelInputSchema>;

@@ -88,6 +88,7 @@ export function createAppRouter(queryClient: QueryClient) {
             { path: "booth/:jobId", lazy: page(() => import("./routes/staff/booth-card")) },
             { path: "jobs/:jobId/prep", lazy: page(() => import("./routes/staff/job-prep")) },
             { path: "jobs/:jobId/ticket", lazy: page(() => import("./routes/staff/job-ticket")) },
+            { path: "jobs/:jobId/finish-record", lazy: page(() => import("./routes/staff/job-finish-record")) },
             { path: "panels", lazy: page(() => import("./routes/staff/panels")) },
             { path: "panels/new", lazy: page(() => import("./routes/staff/new-panel")) },
             { path: "panels/compare", lazy: page(() => import("./routes/staff/panels-compare")) },
@@ -110,6 +111,7 @@ export function createAppRouter(queryClient: QueryClient) {
             { path: "quotes", lazy: page(() => import("./routes/portal/my-quotes")) },
             { path: "quotes/:quoteId", lazy: page(() => import("./routes/portal/portal-quote")) },
             { path: "jobs/:jobId", lazy: page(() => import("./routes/portal/portal-job")) },
+            { path: "jobs/:jobId/finish-record", lazy: page(() => import("./routes/portal/portal-finish-record")) },
           ],
         },
         // A quote opened from the e-mail link: no sign-in, no navigation, that one quote.

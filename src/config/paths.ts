@@ -30,6 +30,7 @@ export const paths = {
   booth: (jobId: number) => `/booth/${jobId}`,
   jobPrep: (jobId: number) => `/jobs/${jobId}/prep`,
   jobTicket: (jobId: number) => `/jobs/${jobId}/ticket`,
+  jobFinishRecord: (jobId: number) => `/jobs/${jobId}/finish-record`,
   panels: "/panels",
   panel: (id: number) => `/panels/${id}`,
   newPanel: (jobId?: number) => (jobId ? `/panels/new?jobId=${jobId}` : "/panels/new"),
@@ -46,6 +47,7 @@ export const paths = {
   portalQuotes: "/portal/quotes",
   portalQuote: (id: number) => `/portal/quotes/${id}`,
   portalJob: (id: number) => `/portal/jobs/${id}`,
+  portalFinishRecord: (id: number) => `/portal/jobs/${id}/finish-record`,
   portalLink: (token: string) => `/portal/link/${token}`,
 } as const;
 

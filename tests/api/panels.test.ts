@@ -163,7 +163,10 @@ describe("the panel library", () => {
     expect(res.status).toBe(400);
     expect(Object.keys(res.body.error.fields).sort()).toEqual(["labA", "labB"]);
     const range = await s.as("painter").post("/api/panels").send({ groundName: "", candyName: "Candy garnet", letDownClear: 0, letDownToner: 1, coats: 0.5, labL: 140, labA: 0, labB: 0 });
-    expect(Object.keys(range.body.error.fields).sort()).toEqual(["coats", "groundName", "labL", "letDownClear"]);
+    expect(Object.keys(range.body.error.fields).sort()).toEqual(["coats", "labL", "letDownClear"]);
+    // No ground at all: it is asked for where it is picked from the catalogue.
+    const noGround = await s.as("painter").post("/api/panels").send({ groundName: "", candyName: "Candy garnet", letDownClear: 6, letDownToner: 1, coats: 4 });
+    expect(Object.keys(noGround.body.error.fields)).toEqual(["groundMaterialId"]);
     const p = addPanel(s, { createdBy: s.painter.id });
     const half = await s.as("painter").patch(`/api/panels/${p.id}`).send({ labL: 20 });
     expect(half.status).toBe(400);

@@ -13,6 +13,7 @@ export const SHARED_DISPLAY = new Set([
   "src/features/jobs/components/stage-badge.tsx",
   "src/features/jobs/components/item-area.ts",
   "src/features/panels/components/panel-swatch.tsx",
+  "src/features/finish-record/components/finish-record-view.tsx",
 ]);
 
 export const isStaffCode = (module: string) => STAFF_CODE.some((re) => re.test(module)) && !SHARED_DISPLAY.has(module);

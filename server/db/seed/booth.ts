@@ -1,12 +1,14 @@
 import { and, asc, desc, eq } from "drizzle-orm";
 import sharp from "sharp";
 import { converter } from "culori";
-import { coatLogs, jobItems, jobs, jobStageEvents, materials, mixSheets, planVersions, prepRecords, testPanels, uploads } from "../schema";
+import { coatLogs, guns, jobItems, jobs, jobStageEvents, materials, mixSheets, panelReadings, planVersions, prepRecords, testPanels, uploads } from "../schema";
 import { storeFile } from "../../modules/uploads/storage";
 import { freezePlanVersion, jobPlanRow, loadPlanVersion } from "../../modules/plans/plans.service";
 import { needsAdhesionPromoter } from "../../../shared/domain/substrates";
 import { coatCount } from "../../../shared/domain/booth";
 import type { Stage } from "../../../shared/domain/stages";
+import type { LayerKind } from "../../../shared/domain/layers";
+import type { PanelLight, SpraySetup } from "../../../shared/domain/spray-setup";
 import type { SeedContext } from "./core";
 
 /*
@@ -69,17 +71,49 @@ async function photo(ctx: SeedContext, rgb: { r: number; g: number; b: number },
   return storeFile(ctx.uploadsDir, { buffer, size: buffer.length, originalname: name } as Express.Multer.File, "photo");
 }
 
-async function addPhoto(ctx: SeedContext, owner: { ownerType: "job" | "prep_record" | "panel"; ownerId: number; jobId: number | null }, rgb: { r: number; g: number; b: number }, name: string, extra: { caption?: string; shareable?: boolean; by?: string | null; at: number }) {
+async function addPhoto(
+  ctx: SeedContext,
+  owner: { ownerType: "job" | "prep_record" | "panel"; ownerId: number; jobId: number | null },
+  rgb: { r: number; g: number; b: number },
+  name: string,
+  extra: { caption?: string; shareable?: boolean; by?: string | null; at: number; light?: PanelLight },
+) {
   const stored = await photo(ctx, rgb, name, owner.ownerType === "job");
   if (!stored) return;
   ctx.db
     .insert(uploads)
-    .values({ ...owner, kind: "photo", ...stored, caption: extra.caption ?? null, shareable: extra.shareable ?? false, uploadedBy: extra.by ?? null, createdAt: extra.at })
+    .values({ ...owner, kind: "photo", ...stored, caption: extra.caption ?? null, shareable: extra.shareable ?? false, light: extra.light ?? null, uploadedBy: extra.by ?? null, createdAt: extra.at })
     .run();
 }
 
+/** The shop's guns (invented names, described the way a painter would). */
+const GUNS = [
+  { name: "Gun 1 (primer and sealer)", description: "HVLP, 1.8 mm tip" },
+  { name: "Gun 2 (ground and candy)", description: "HVLP, 1.3 mm tip, kept clean for colour" },
+  { name: "Gun 3 (clear)", description: "Reduced-pressure, 1.3 mm tip, clear only" },
+  { name: "Touch-up gun", description: "HVLP mini, 0.8 mm tip, for small parts and repairs" },
+];
+
+/** A typical set-up per layer kind (common practice for HVLP guns: about 25–30 psi at the inlet, 6–8 in from the part). */
+function setupFor(kind: LayerKind, gunIds: number[], metric: boolean): SpraySetup {
+  const base = { pressureUnit: metric ? ("bar" as const) : ("psi" as const), distanceUnit: metric ? ("cm" as const) : ("in" as const) };
+  const psi = (p: number) => (metric ? Math.round((p / 14.5038) * 10) / 10 : p);
+  const len = (inches: number) => (metric ? Math.round(inches * 2.54) : inches);
+  switch (kind) {
+    case "sealer":
+    case "prep":
+      return { ...base, gunId: gunIds[0]!, tipMm: 1.8, inletPressure: psi(26), distance: len(6), fanWidth: len(10), overlapPct: 50 };
+    case "clear":
+      return { ...base, gunId: gunIds[2]!, tipMm: 1.3, inletPressure: psi(29), distance: len(6), fanWidth: len(10), overlapPct: 50 };
+    case "candy":
+      return { ...base, gunId: gunIds[1]!, tipMm: 1.3, inletPressure: psi(24), distance: len(7), fanWidth: len(8), overlapPct: 75 };
+    default:
+      return { ...base, gunId: gunIds[1]!, tipMm: 1.3, inletPressure: psi(28), distance: len(6), fanWidth: len(9), overlapPct: 50 };
+  }
+}
+
 /** Codes of the ground and toner in a job's latest plan version, and its candy coats (what the demo panels follow). */
-function planRecipe(ctx: SeedContext, jobId: number): { groundCode?: string; tonerCode?: string; candyCoats?: number } {
+function planRecipe(ctx: SeedContext, jobId: number): { groundCode?: string; tonerCode?: string; candyCoats?: number; candyLayerId?: number } {
   const plan = jobPlanRow(ctx.db, jobId);
   if (!plan) return {};
   const latest = ctx.db.select({ id: planVersions.id }).from(planVersions).where(eq(planVersions.planId, plan.id)).orderBy(desc(planVersions.version)).limit(1).get();
@@ -88,7 +122,7 @@ function planRecipe(ctx: SeedContext, jobId: number): { groundCode?: string; ton
   const ground = layers.find((l) => l.kind === "ground_coat")?.components.find((c) => c.category === "ground_coat");
   const candyLayer = layers.find((l) => l.kind === "candy");
   const toner = candyLayer?.components.find((c) => c.category === "toner");
-  return { groundCode: ground?.materialCode, tonerCode: toner?.materialCode, candyCoats: candyLayer ? coatCount(candyLayer.coats) : undefined };
+  return { groundCode: ground?.materialCode, tonerCode: toner?.materialCode, candyCoats: candyLayer ? coatCount(candyLayer.coats) : undefined, candyLayerId: candyLayer?.id };
 }
 
 function stageAt(ctx: SeedContext, jobId: number, stage: Stage) {
@@ -110,6 +144,10 @@ type PanelSeed = {
   jobId?: number | null;
   notes?: string | null;
   by: string;
+  setup?: SpraySetup;
+  planLayerId?: number | null;
+  mixSheetId?: number | null;
+  conditions?: { boothTemp: number; tempUnit: "C" | "F"; humidityPct: number };
 };
 
 /** One test panel row, linked to the catalogue's ground and toner where the codes exist. */
@@ -131,6 +169,10 @@ function insertPanel(ctx: SeedContext, p: PanelSeed): number {
       labB: p.lab?.b ?? null,
       sprayedOn: new Date(p.at).toISOString().slice(0, 10),
       notes: p.notes ?? null,
+      ...p.setup,
+      planLayerId: p.planLayerId ?? null,
+      mixSheetId: p.mixSheetId ?? null,
+      ...p.conditions,
       createdBy: p.by,
       createdAt: p.at,
       updatedAt: p.at,
@@ -141,6 +183,7 @@ function insertPanel(ctx: SeedContext, p: PanelSeed): number {
 
 export async function seedBooth(ctx: SeedContext) {
   const jobsInOrder = [...ctx.jobs].sort((a, b) => a.createdAt - b.createdAt);
+  const gunIds = GUNS.map((g) => ctx.db.insert(guns).values({ ...g, createdAt: ctx.now - 400 * 86_400_000, updatedAt: ctx.now - 400 * 86_400_000 }).returning({ id: guns.id }).get()!.id);
 
   // ---- Prep records: signed off on every job that reached the booth; part-done on jobs in prep.
   let prepIndex = 0;
@@ -241,6 +284,7 @@ export async function seedBooth(ctx: SeedContext) {
             tempUnit: cond.u,
             humidityPct: cond.h + (c % 2),
             note: layer.kind === "candy" && c === stopAt ? "Checked depth against the approved panel under the booth lights." : null,
+            ...setupFor(layer.kind, gunIds, cond.u === "C"),
             mixSheetId: sheet?.id ?? null,
             createdAt: at,
           })
@@ -288,6 +332,7 @@ export async function seedBooth(ctx: SeedContext) {
           at,
           notes: clear === 8 ? "Let down 8:1 to see how far the extra coats take it." : null,
           by: n % 2 ? ctx.userIds.painter : ctx.userIds.painter2,
+          setup: setupFor("candy", gunIds, n % 4 === 0),
         });
         library.push({ ground: ground.name, candy: candy.name, coats, lab, id });
         await addPhoto(ctx, { ownerType: "panel", ownerId: id, jobId: null }, swatchRgb(exact), `panel-${id}.jpg`, { by: ctx.userIds.painter, at });
@@ -310,9 +355,42 @@ export async function seedBooth(ctx: SeedContext) {
     const exact = panelColour(ground.rgb, candy.absorb, coats, 6, 1);
     const lab = { L: round2(exact.L), a: round2(exact.a), b: round2(exact.b) };
     const at = job.createdAt + 2 * 86_400_000;
-    const id = insertPanel(ctx, { ground, candy, clear: 6, coats, lab, at, jobId: job.id, notes: "Customer chose this one in daylight at the shop door.", by: job.painterId ?? ctx.userIds.painter });
+    const candySheet =
+      recipe.candyLayerId != null
+        ? ctx.db.select({ id: mixSheets.id }).from(mixSheets).where(and(eq(mixSheets.layerId, recipe.candyLayerId), eq(mixSheets.status, "mixed"))).orderBy(asc(mixSheets.id)).get()
+        : undefined;
+    const id = insertPanel(ctx, {
+      ground,
+      candy,
+      clear: 6,
+      coats,
+      lab,
+      at,
+      jobId: job.id,
+      notes: "Customer chose this one in daylight at the shop door.",
+      by: job.painterId ?? ctx.userIds.painter,
+      setup: setupFor("candy", gunIds, approvedCount % 3 === 2),
+      planLayerId: recipe.candyLayerId ?? null,
+      mixSheetId: candySheet?.id ?? null,
+      conditions: approvedCount % 3 === 2 ? { boothTemp: 21, tempUnit: "C", humidityPct: 47 } : { boothTemp: 70, tempUnit: "F", humidityPct: 50 },
+    });
+    // Read again under the booth's fluorescent tubes and a warm indoor lamp: the candy shifts a little under each.
+    ctx.db
+      .insert(panelReadings)
+      .values([
+        { panelId: id, light: "booth", illuminant: "F11", labL: round2(lab.L - 0.4), labA: round2(lab.a - 1.1), labB: round2(lab.b + 0.9) },
+        { panelId: id, light: "warm_indoor", illuminant: "A", labL: round2(lab.L + 0.6), labA: round2(lab.a + 2.3), labB: round2(lab.b + 3.1) },
+      ])
+      .run();
     ctx.db.update(jobs).set({ approvedPanelId: id }).where(eq(jobs.id, job.id)).run();
-    await addPhoto(ctx, { ownerType: "panel", ownerId: id, jobId: job.id }, swatchRgb(exact), `approved-${job.id}.jpg`, { caption: "Approved colour panel", shareable: true, by: job.painterId, at });
+    await addPhoto(ctx, { ownerType: "panel", ownerId: id, jobId: job.id }, swatchRgb(exact), `approved-${job.id}.jpg`, { caption: "Approved colour panel, daylight", shareable: true, by: job.painterId, at, light: "daylight" });
+    await addPhoto(ctx, { ownerType: "panel", ownerId: id, jobId: job.id }, swatchRgb({ L: lab.L + 0.6, a: lab.a + 2.3, b: lab.b + 3.1 }), `approved-${job.id}-warm.jpg`, {
+      caption: "The same panel under a warm indoor lamp",
+      shareable: true,
+      by: job.painterId,
+      at: at + MIN,
+      light: "warm_indoor",
+    });
     // Jobs at the booth also have a check panel sprayed with the batch: one a match, one only close.
     if (["in_booth", "curing"].includes(job.stage)) {
       const drift = approvedCount % 2 ? 0.5 : 1.6;

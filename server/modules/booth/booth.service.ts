@@ -4,7 +4,7 @@ import type { z } from "zod";
 import type { AppDeps } from "../../deps";
 import type { Actor } from "../../auth/session";
 import type { RequestContext } from "../../http/context";
-import { coatLogs, customers, jobItems, jobs, jobStageEvents, mixSheetLines, mixSheets, planVersions, plans, prepRecords, testPanels, uploads, users } from "../../db/schema";
+import { coatLogs, customers, guns, jobItems, jobs, jobStageEvents, mixSheetLines, mixSheets, planVersions, plans, prepRecords, testPanels, uploads, users } from "../../db/schema";
 import { badRequest, conflict, forbidden, notFound } from "../../http/http-error";
 import { iso, isoOrNull } from "../../http/dates";
 import { checkGun, gunNames } from "../guns/guns.service";
@@ -178,6 +178,7 @@ const itemsQuery = preparedQuery((db) =>
     .orderBy(asc(jobItems.id))
     .prepare(),
 );
+const activeGunsQuery = preparedQuery((db) => db.select({ id: guns.id, name: guns.name }).from(guns).where(eq(guns.active, true)).orderBy(asc(guns.name)).prepare());
 const panelQuery = preparedQuery((db) => db.select().from(testPanels).where(eq(testPanels.id, p("panelId"))).prepare());
 const panelPhotoQuery = preparedQuery((db) =>
   db
@@ -211,7 +212,13 @@ export function getBooth(deps: AppDeps, actor: Actor, jobId: number): BoothDto {
     const panel = panelQuery(deps.db).get({ panelId: job.approvedPanelId });
     if (panel) {
       const photo = panelPhotoQuery(deps.db).get({ panelId: panel.id });
-      approvedPanel = { id: panel.id, label: panelLabel(panel), thumbUrl: photo?.thumb ? `/api/uploads/${photo.id}/thumb` : null };
+      approvedPanel = {
+        id: panel.id,
+        label: panelLabel(panel),
+        thumbUrl: photo?.thumb ? `/api/uploads/${photo.id}/thumb` : null,
+        planLayerId: panel.planLayerId,
+        setup: setupOf(panel, panel.gunId != null ? gunNames(deps) : new Map()),
+      };
     }
   }
 
@@ -288,6 +295,7 @@ export function getBooth(deps: AppDeps, actor: Actor, jobId: number): BoothDto {
       approvedPanel,
     },
     canLog: canLogCoats(actor, job),
+    guns: activeGunsQuery(deps.db).all({}),
     items,
     prepReady,
     plan: planned

@@ -45,16 +45,17 @@ export function renderFinishRecordPdf(d: FinishRecordDto, shopName: string): Pro
   }
 
   for (const layer of d.layers) {
-    heading(`${layer.position + 1}. ${layer.name} (${LAYER_KIND_LABELS[layer.kind]})`);
+    heading(`${layer.position}. ${layer.name} (${LAYER_KIND_LABELS[layer.kind]})`);
     if (layer.components.length) line(`Mix: ${layer.components.map(component).join("; ")}`);
-    line(`Planned ${layer.plannedCoats} coats, flash ${layer.flashMinutes} min, dry ${layer.dryMinutes} min before the next layer`, { color: MUTED });
+    if (layer.kind === "prep") line("Done through the prep records above.", { color: MUTED });
+    else line(`Planned ${layer.plannedCoats} ${layer.plannedCoats === 1 ? "coat" : "coats"}, flash ${layer.flashMinutes} min, dry ${layer.dryMinutes} min before the next layer`, { color: MUTED });
     if (layer.materials.length)
       line(`Materials: ${layer.materials.map((m) => `${m.code} ${m.name}${m.lots.length ? ` (lot ${m.lots.join(", ")})` : ""}`).join("; ")}`);
     for (const b of layer.batches) {
       line(`Batch #${b.id}, mixed ${when(b.mixedAt)}${b.mixedByName ? ` by ${b.mixedByName}` : ""}: ${ml(b.totalMl)}${b.vocGPerL != null ? `, VOC ${Math.round(b.vocGPerL)} g/L` : ""}`, { font: "medium", indent: 12 });
       for (const l of b.lines) line(`${l.materialCode} ${l.materialName} (${l.label}): planned ${ml(l.plannedMl)}, poured ${ml(l.pouredMl)}${l.lotNumber ? `, lot ${l.lotNumber}` : ""}`, { indent: 24 });
     }
-    if (!layer.coats.length) line("No coats logged.", { indent: 12, color: MUTED });
+    if (!layer.coats.length && layer.kind !== "prep") line("No coats logged.", { indent: 12, color: MUTED });
     for (const c of layer.coats) {
       const parts = [`Coat ${c.coatNumber}: ${when(c.at)}`, c.painterName, conditions(c), c.setup.summary].filter(Boolean);
       line(parts.join("  ·  "), { indent: 12 });

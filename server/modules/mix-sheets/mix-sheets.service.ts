@@ -467,6 +467,7 @@ export function listMixSheets(deps: AppDeps, actor: Actor, q: ListMixSheetsQuery
     id: s.id,
     jobId: s.jobId,
     jobTitle,
+    layerId: s.layerId,
     layerName,
     layerKind,
     status: s.status,

@@ -1,4 +1,4 @@
-import { useParams } from "react-router";
+import { Link, useParams } from "react-router";
 import { useQuery } from "@tanstack/react-query";
 import type { Stage } from "@shared/domain/stages";
 import { isApiError } from "@/lib/api-client";
@@ -10,6 +10,9 @@ import { portalQueries } from "@/features/portal/api/portal.queries";
 import { PortalJobDetails } from "@/features/portal/components/portal-job-details";
 import { ApprovedColour } from "@/features/portal/components/approved-colour";
 import { InPageNotFound } from "../in-page-not-found";
+
+/** Stages from which the job has a finish record to read. */
+const SPRAYED: readonly Stage[] = ["in_booth", "curing", "finishing", "ready", "delivered"];
 
 export default function PortalJobRoute() {
   const { jobId } = useParams();
@@ -25,6 +28,13 @@ export default function PortalJobRoute() {
       <div className="mt-6">
         <ApprovedColour jobId={data.id} />
       </div>
+      {SPRAYED.includes(data.stage as Stage) ? (
+        <p className="mt-6">
+          <Link to={paths.portalFinishRecord(data.id)} className="inline-flex min-h-12 items-center text-lg font-semibold text-candy-700 underline underline-offset-2">
+            What was sprayed: the finish record
+          </Link>
+        </p>
+      ) : null}
     </>
   );
 }

@@ -25,6 +25,7 @@ import { StageHistory } from "@/features/jobs/components/stage-history";
 import { StageMoveOptions } from "@/features/jobs/components/stage-move-options";
 import { userQueries } from "@/features/users/api/users.queries";
 import { JobBoothSummary } from "@/features/booth/components/job-booth-summary";
+import { JobFinishRecordPanel } from "@/features/finish-record/components/job-finish-record-panel";
 import { JobColourPanel } from "@/features/panels/components/job-colour-panel";
 import { PhotoPanel } from "@/features/uploads/components/photo-panel";
 import { JobMessagesPanel } from "@/features/quotes/components/job-messages-panel";
@@ -87,6 +88,7 @@ function JobPage({ job }: { job: JobDetailDto }) {
           <JobItemsPanel jobId={job.id} items={job.items} canEdit={office} />
           {job.stage !== "inquiry" || office ? <JobPlanSummary jobId={job.id} /> : null}
           <JobBoothSummary jobId={job.id} paths={{ booth: paths.booth(job.id), prep: paths.jobPrep(job.id), ticket: paths.jobTicket(job.id) }} />
+          <JobFinishRecordPanel job={job} canRepeat={office} />
           <JobColourPanel jobId={job.id} canApprove={office} panelHref={paths.panel} newPanelHref={paths.newPanel(job.id)} />
           <Panel>
             <PhotoPanel owner={{ ownerType: "job", ownerId: job.id }} listJobId={job.id} title="Job photos" canShare canDeleteAll={office} currentUserId={user.id} />

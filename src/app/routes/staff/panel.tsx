@@ -1,7 +1,7 @@
 import { useState } from "react";
 import { useQuery } from "@tanstack/react-query";
 import { Link, useNavigate, useParams } from "react-router";
-import { Layers3, Pencil, Trash2 } from "lucide-react";
+import { Layers3, Pencil, Repeat2, Trash2 } from "lucide-react";
 import { roleCan } from "@shared/domain/roles";
 import { isApiError } from "@/lib/api-client";
 import { Alert } from "@/components/ui/alert";
@@ -20,6 +20,8 @@ import { VerdictBadge } from "@/features/panels/components/verdict-badge";
 import { PhotoPanel } from "@/features/uploads/components/photo-panel";
 import { formatDate } from "@/utils/format-date";
 import type { PanelDto } from "@shared/schemas/panel.schema";
+import { PANEL_LIGHT_LABELS } from "@shared/domain/spray-setup";
+import { RepeatFinishDialog } from "@/features/finish-record/components/repeat-finish-dialog";
 import { InPageNotFound } from "../in-page-not-found";
 
 export default function PanelRoute() {
@@ -39,6 +41,7 @@ function PanelPage({ panel }: { panel: PanelDto }) {
   const office = roleCan(user.role, "office");
   const navigate = useNavigate();
   const [editing, setEditing] = useState(false);
+  const [repeating, setRepeating] = useState(false);
   const remove = useDeletePanel();
   const approve = useSetApprovedPanel(panel.jobId ?? 0);
   const facets = useQuery(panelQueries.list({ pageSize: 1 }));
@@ -47,7 +50,19 @@ function PanelPage({ panel }: { panel: PanelDto }) {
     ["Candy", panel.candyName],
     ["Let-down (clear : toner)", `${panel.letDownClear}:${panel.letDownToner} · toner ${(panel.tonerFraction * 100).toFixed(2)}% of the mix`],
     ["Coats", String(panel.coats)],
-    ["Meter reading", formatLab(panel.lab)],
+    ["Meter reading (daylight, D65)", formatLab(panel.lab)],
+    ...panel.readings.map((r): [string, string] => [`Reading, ${PANEL_LIGHT_LABELS[r.light].toLowerCase()} (${r.illuminant})`, formatLab(r.lab)]),
+    ["Spray set-up", panel.setup.summary || "—"],
+    [
+      "Booth",
+      [panel.conditions.boothTemp != null ? `${panel.conditions.boothTemp} °${panel.conditions.tempUnit ?? ""}` : null, panel.conditions.humidityPct != null ? `${panel.conditions.humidityPct} % RH` : null]
+        .filter(Boolean)
+        .join(", ") || "—",
+    ],
+    ...(panel.planLayer ? [["Plan layer", `${panel.planLayer.name} (${panel.planLayer.planName}, version ${panel.planLayer.version})`] as [string, string]] : []),
+    ...(panel.mixSheet
+      ? [["Batch", `#${panel.mixSheet.id}${panel.mixSheet.lots.length ? ` · ${panel.mixSheet.lots.map((l) => `${l.materialCode} lot ${l.lotNumber ?? "—"}`).join(", ")}` : ""}`] as [string, string]]
+      : []),
     ["Sprayed on", panel.sprayedOn ? formatDate(panel.sprayedOn) : "—"],
     ["Made by", panel.createdByName ?? "—"],
   ];
@@ -61,6 +76,11 @@ function PanelPage({ panel }: { panel: PanelDto }) {
             <ButtonLink to={paths.panelsLadder(panel.groundName, panel.candyName)} variant="secondary" icon={<Layers3 aria-hidden className="size-5" />}>
               Depth ladder
             </ButtonLink>
+            {office && panel.planLayer ? (
+              <Button variant="secondary" icon={<Repeat2 aria-hidden className="size-4" />} onClick={() => setRepeating(true)}>
+                Repeat as a new job…
+              </Button>
+            ) : null}
             {office || panel.createdById === user.id ? (
               <Button variant="secondary" icon={<Pencil aria-hidden className="size-4" />} onClick={() => setEditing(true)}>
                 Edit
@@ -135,12 +155,22 @@ function PanelPage({ panel }: { panel: PanelDto }) {
           </Panel>
         </div>
       </div>
+      {repeating ? (
+        <RepeatFinishDialog
+          from={{ panelId: panel.id }}
+          defaultCustomerId={null}
+          defaultTitle={`${panel.candyName} over ${panel.groundName}`}
+          onClose={() => setRepeating(false)}
+        />
+      ) : null}
       {editing ? (
         <EditPanelDialog panel={panel} grounds={facets.data?.facets.grounds ?? []} candies={facets.data?.facets.candies ?? []} onClose={() => setEditing(false)} />
       ) : null}
     </>
   );
 }
+
+const text = (n: number | null) => (n == null ? "" : String(n));
 
 function EditPanelDialog({ panel, grounds, candies, onClose }: { panel: PanelDto; grounds: string[]; candies: string[]; onClose: () => void }) {
   const update = useUpdatePanel(panel.id);
@@ -160,6 +190,22 @@ function EditPanelDialog({ panel, grounds, candies, onClose }: { panel: PanelDto
           labB: panel.lab ? String(panel.lab.b) : "",
           sprayedOn: panel.sprayedOn ?? "",
           notes: panel.notes ?? "",
+          groundMaterialId: panel.groundMaterialId != null ? String(panel.groundMaterialId) : "",
+          jobId: panel.jobId ?? undefined,
+          planLayerId: panel.planLayer ? String(panel.planLayer.id) : "",
+          mixSheetId: panel.mixSheet ? String(panel.mixSheet.id) : "",
+          gunId: panel.setup.gunId != null ? String(panel.setup.gunId) : "",
+          tipMm: text(panel.setup.tipMm),
+          inletPressure: text(panel.setup.inletPressure),
+          pressureUnit: panel.setup.pressureUnit ?? "psi",
+          distance: text(panel.setup.distance),
+          fanWidth: text(panel.setup.fanWidth),
+          distanceUnit: panel.setup.distanceUnit ?? "in",
+          overlapPct: text(panel.setup.overlapPct),
+          boothTemp: text(panel.conditions.boothTemp),
+          tempUnit: panel.conditions.tempUnit ?? "F",
+          humidityPct: text(panel.conditions.humidityPct),
+          readings: panel.readings.map((r) => ({ light: r.light, illuminant: r.illuminant, labL: String(r.lab.L), labA: String(r.lab.a), labB: String(r.lab.b) })),
         }}
         submitLabel="Save panel"
         onCancel={onClose}

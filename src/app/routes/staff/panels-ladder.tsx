@@ -11,8 +11,8 @@ import { formatLab, PanelSwatch } from "@/features/panels/components/panel-swatc
 import { formatNumber } from "@/utils/format-quantity";
 
 /**
- * One candy over one ground, ordered by coats. Colour depth follows toner fraction × coats, so each rung also
- * shows how many coats at another let-down give the same depth (mix engine: equivalent coats).
+ * One candy over one ground, ordered by depth (toner fraction × coats), not by the coat count: 3 coats at 6:1 are
+ * deeper than 4 at 10:1. Each rung shows how many coats at one let-down give its depth (mix engine: equivalent coats).
  */
 export default function PanelsLadderRoute() {
   const [params, setParams] = useSearchParams();
@@ -31,7 +31,7 @@ export default function PanelsLadderRoute() {
   if (!ground || !candy) return <Alert tone="info">Choose a ground and a candy in the panel library first.</Alert>;
   return (
     <>
-      <PageHeader title={`Depth ladder: ${candy} over ${ground}`} description="The same candy over the same ground, from fewest to most coats." />
+      <PageHeader title={`Depth ladder: ${candy} over ${ground}`} description="The same candy over the same ground, from the lightest to the deepest (coats turned into one let-down)." />
       <fieldset className="mb-5 flex flex-wrap items-end gap-3 rounded-xl border border-primer-200 bg-white p-4 shadow-card">
         <legend className="sr-only">Let-down to compare against</legend>
         <p className="w-full text-base text-ink-950">Equivalent coats at another let-down (clear : toner):</p>
@@ -48,7 +48,7 @@ export default function PanelsLadderRoute() {
       ) : ladder.error ? (
         <Alert tone={isApiError(ladder.error) && ladder.error.status === 404 ? "info" : "error"}>{ladder.error.message}</Alert>
       ) : (
-        <ol className="grid grid-cols-[repeat(auto-fill,minmax(10rem,1fr))] gap-4" aria-label="Panels from fewest to most coats">
+        <ol className="grid grid-cols-[repeat(auto-fill,minmax(10rem,1fr))] gap-4" aria-label="Panels from the lightest to the deepest">
           {ladder.data.rungs.map((r) => (
             <li key={r.panel.id} className="flex flex-col gap-1.5 rounded-xl border border-primer-200 bg-white p-3 shadow-card">
               <PanelSwatch panel={r.panel} />
@@ -56,7 +56,7 @@ export default function PanelsLadderRoute() {
                 {r.panel.coats} coats at {r.panel.letDownClear}:{r.panel.letDownToner}
               </Link>
               <p className="text-sm text-ink-950">
-                ≙ <strong className="tabular-nums">{formatNumber(r.equivalentCoats, 2)}</strong> coats at {ladder.data.reference.clear}:{ladder.data.reference.toner}
+                as deep as <strong className="tabular-nums">{formatNumber(r.equivalentCoats, 2)}</strong> coats at {ladder.data.reference.clear}:{ladder.data.reference.toner}
               </p>
               <p className="text-xs text-primer-800 tabular-nums">Depth (toner fraction × coats) {formatNumber(r.depth, 3)}</p>
               <p className="text-xs text-primer-800 tabular-nums">{formatLab(r.panel.lab)}</p>

@@ -8,6 +8,7 @@ import { useCurrentUser } from "@/features/auth/hooks/use-current-user";
 import { VocLimitsNote } from "@/features/compliance/components/voc-notes";
 import { settingsQueries, useUpdateSettings } from "@/features/settings/api/settings.queries";
 import { SettingsForm } from "@/features/settings/components/settings-form";
+import { GunsPanel } from "@/features/guns/components/guns-panel";
 
 export default function SettingsRoute() {
   return (
@@ -49,6 +50,9 @@ function SettingsPage() {
           }}
         />
       ) : null}
+      <div className="mt-8 max-w-3xl">
+        <GunsPanel />
+      </div>
     </>
   );
 }

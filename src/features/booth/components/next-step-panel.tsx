@@ -12,9 +12,10 @@ import { SafetyCautions } from "@/components/ui/safety-cautions";
 import { cn } from "@/utils/cn";
 import { PhotoUploadButton } from "@/features/uploads/components/photo-panel";
 import { useLogCoat } from "../api/booth.queries";
-import { useLogCoatForm } from "../hooks/use-log-coat-form";
+import { useLogCoatForm, type LogFields } from "../hooks/use-log-coat-form";
 import { formatMinutes } from "../hooks/use-server-now";
 import { ConditionInput } from "./condition-input";
+import { setupPrefill, SpraySetupPanel } from "./spray-setup-fields";
 import { formatClock, PotLifeTimer, StepTimer } from "./booth-timers";
 
 
@@ -122,6 +123,7 @@ function LogCoatForm({ card, prepPath }: { card: BoothDto; prepPath: string }) {
   const [overriding, setOverriding] = useState(false);
   const [noting, setNoting] = useState(false);
   const last = card.lastConditions;
+  const [setup] = useState(() => setupPrefill(card, next.layerId, next.layerKind));
   const form = useLogCoatForm(
     { jobId: card.job.id, layerId: next.layerId, coatNumber: next.coat },
     {
@@ -130,6 +132,7 @@ function LogCoatForm({ card, prepPath }: { card: BoothDto; prepPath: string }) {
       humidityPct: last?.humidityPct != null ? String(last.humidityPct) : "",
       note: "",
       prepOverrideReason: "",
+      ...setup.fields,
     },
   );
   const { values, errors, set } = form;
@@ -236,6 +239,7 @@ function LogCoatForm({ card, prepPath }: { card: BoothDto; prepPath: string }) {
         </div>
         <ConditionInput label="Humidity" suffix="%" error={errors.humidityPct} onStep={(d) => step("humidityPct", d, 50)} {...field("humidityPct")} />
       </div>
+      <SpraySetupPanel guns={card.guns} target={setup.target} values={values} errors={errors} set={(f, v) => set(f, v as LogFields[typeof f])} />
       {noting || errors.note ? (
         <TextField label="Note (optional)" placeholder="e.g. light orange peel on the left side" className="min-h-12 text-lg" error={errors.note} autoFocus {...field("note")} />
       ) : (

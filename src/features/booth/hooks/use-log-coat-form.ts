@@ -3,13 +3,14 @@ import type { UseFormSetError } from "react-hook-form";
 import type { z } from "zod";
 import { createCoatLogInputSchema } from "@shared/schemas/booth.schema";
 import { applyServerErrors } from "@/lib/form-errors";
+import { SETUP_FIELD_NAMES, type SetupFields } from "../components/spray-setup-fields";
 
 type LogInput = z.input<typeof createCoatLogInputSchema>;
 export type LogValues = z.output<typeof createCoatLogInputSchema>;
 /** What the painter can change on the form; job, layer and coat come from the card. */
-export type LogFields = { boothTemp: string; tempUnit: "C" | "F"; humidityPct: string; note: string; prepOverrideReason: string };
+export type LogFields = { boothTemp: string; tempUnit: "C" | "F"; humidityPct: string; note: string; prepOverrideReason: string } & SetupFields;
 type FieldName = keyof LogFields | "coatNumber";
-const FIELDS = ["boothTemp", "tempUnit", "humidityPct", "note", "prepOverrideReason", "coatNumber"] as const;
+const FIELDS = ["boothTemp", "tempUnit", "humidityPct", "note", "prepOverrideReason", "coatNumber", ...SETUP_FIELD_NAMES] as const;
 
 /**
  * State for the booth's log-a-coat form, checked with the same zod schema as the server. Plain React state instead

@@ -17,6 +17,8 @@ export function mixWords(layer: Pick<PlanLayerDto, "components">): string {
   return [ratio, ...extra].filter(Boolean).join("; ");
 }
 
+/** Volume units of the US system: coverage is then shown per gallon in ft², else per litre in m². */
+const US_UNITS = new Set<VolumeUnit>(["floz", "cup", "pint", "quart", "gallon"]);
 const film = (l: PlanLayerDto) => (l.dryFilmPerCoat == null ? null : `${formatNumber(l.dryFilmPerCoat, 2)} ${l.dryFilmUnit === "mil" ? "mil" : "µm"}`);
 
 /**
@@ -62,6 +64,16 @@ export function PlanLayersView({
                 {l.pressurePsi != null ? <Fact label="Pressure">{formatNumber(l.pressurePsi, 1)} psi</Fact> : null}
                 {l.overlapPct != null ? <Fact label="Overlap">{formatNumber(l.overlapPct, 0)} %</Fact> : null}
                 {film(l) ? <Fact label="Dry film / coat">{film(l)}</Fact> : null}
+                {e?.film ? (
+                  <Fact label="Wet film / coat">
+                    {formatNumber(e.film.wetFilmPerCoat, 2)} {e.film.unit === "mil" ? "mil" : "µm"}
+                  </Fact>
+                ) : null}
+                {e?.film ? (
+                  <Fact label={`Coverage at ${formatNumber(e.film.transferEfficiencyPct, 0)} % transfer`}>
+                    {US_UNITS.has(unit) ? `${formatNumber(e.film.ft2PerGal, 0)} ft²/gal` : `${formatNumber(e.film.m2PerL, 1)} m²/L`}
+                  </Fact>
+                ) : null}
                 {l.potLifeMinutes ? <Fact label="Pot life">{l.potLifeMinutes} min</Fact> : null}
                 {e && e.volumeMl > 0 ? <Fact label="Estimated volume">{formatVolume(e.volumeMl, unit)}</Fact> : null}
                 {e?.vocGPerL != null ? <Fact label="Mixed VOC">{formatNumber(e.vocGPerL, 0)} g/L</Fact> : null}

@@ -1,4 +1,5 @@
 import { queryOptions, useMutation, useQueryClient } from "@tanstack/react-query";
+import type { FinishRecordDto } from "@shared/schemas/finish-record.schema";
 import { api, apiUrl } from "@/lib/api-client";
 import type { JobColourDto } from "@shared/schemas/panel.schema";
 import type { CheckoutDto } from "@shared/schemas/payment.schema";
@@ -18,6 +19,7 @@ export const portalKeys = {
   jobs: (token?: string | null) => [...portalKeys.all, "jobs", token ?? null] as const,
   job: (id: number, token?: string | null) => [...portalKeys.all, "job", id, token ?? null] as const,
   jobColour: (id: number) => [...portalKeys.all, "job", id, "colour"] as const,
+  finishRecord: (id: number) => [...portalKeys.all, "job", id, "finish-record"] as const,
 };
 
 export const portalQueries = {
@@ -59,7 +61,15 @@ export const portalQueries = {
       queryKey: portalKeys.jobColour(id),
       queryFn: ({ signal }) => api.get<JobColourDto>(`/jobs/${id}/colour`, { signal }),
     }),
+  /** What was sprayed on the job, in the customer's version (no notes, no costs). */
+  finishRecord: (id: number) =>
+    queryOptions({
+      queryKey: portalKeys.finishRecord(id),
+      queryFn: ({ signal }) => api.get<FinishRecordDto>(`/jobs/${id}/finish-record`, { signal }),
+    }),
 };
+
+export const portalFinishRecordPdfUrl = (id: number) => apiUrl(`/jobs/${id}/finish-record.pdf`);
 
 export const portalPdfUrl = (id: number, token?: string | null) => apiUrl(`/portal/quotes/${id}/pdf`, withToken(token));
 

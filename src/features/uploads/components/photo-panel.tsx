@@ -2,6 +2,7 @@ import { useId, useRef, useState } from "react";
 import { useQuery } from "@tanstack/react-query";
 import { Camera, Eye, EyeOff, Trash2 } from "lucide-react";
 import { MAX_PHOTO_MB, type UploadDto } from "@shared/schemas/upload.schema";
+import { PANEL_LIGHT_LABELS, PANEL_LIGHTS, type PanelLight } from "@shared/domain/spray-setup";
 import { isApiError } from "@/lib/api-client";
 import { Alert } from "@/components/ui/alert";
 import { Button } from "@/components/ui/button";
@@ -135,6 +136,25 @@ function PhotoTile({ photo, canShare, canDelete }: { photo: UploadDto; canShare:
       <p className="truncate text-xs text-primer-800" title={label}>
         {label}
       </p>
+      {photo.ownerType === "panel" ? (
+        // A panel's colour depends on the light it is seen under: each photo says which.
+        <label className="flex flex-col gap-0.5 text-xs font-semibold text-ink-950">
+          Light
+          <select
+            className="min-h-11 rounded-md border border-primer-300 bg-white px-1 text-sm font-normal"
+            value={photo.light ?? ""}
+            disabled={update.isPending}
+            onChange={(e) => update.mutate({ id: photo.id, light: (e.target.value || null) as PanelLight | null }, { onError: (err) => toast.error(err.message) })}
+          >
+            <option value="">Not said</option>
+            {PANEL_LIGHTS.map((l) => (
+              <option key={l} value={l}>
+                {PANEL_LIGHT_LABELS[l]}
+              </option>
+            ))}
+          </select>
+        </label>
+      ) : null}
       <div className="flex gap-1.5">
         {canShare && photo.jobId !== null ? (
           <button
