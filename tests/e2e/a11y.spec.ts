@@ -67,16 +67,18 @@ async function demoIds() {
   const cust = sessions.customer.page;
   const myQuotes = (await getJson<{ items: { id: number; status: string; jobTitle: string }[] }>(cust, "/api/portal/quotes")).items;
   const openQuote = myQuotes.find((q) => q.status === "sent" || q.status === "viewed") ?? myQuotes[0]!;
-  const myJobs = (await getJson<{ items: { id: number; title: string; photos: unknown[] }[] }>(cust, "/api/portal/jobs")).items;
+  const myJobs = (await getJson<{ items: { id: number; title: string; stage: string; photos: unknown[] }[] }>(cust, "/api/portal/jobs")).items;
   const myJob = myJobs.find((j) => j.photos.length > 0) ?? myJobs[0]!;
+  const mySprayedJob = myJobs.find((j) => ["in_booth", "curing", "finishing", "ready", "delivered"].includes(j.stage))!;
+  const delivered = (await getJson<{ items: { id: number; title: string }[] }>(owner, "/api/jobs?stage=delivered&pageSize=5")).items[0]!;
   // The signed link the quote e-mail carries (quotes.spec.ts follows one from a real e-mail), minted with the server's secret.
   const secret = loadAppSecret(process.env.APP_SECRET, path.join(dataDir, "secret"));
   const linkToken = signQuoteLink(secret, openQuote.id, Date.now() + 7 * 86_400_000);
 
-  for (const [what, v] of Object.entries({ customer, material, plan, boothJob, sheet, draft, openQuote, myJob, version: versions[0] }))
+  for (const [what, v] of Object.entries({ customer, material, plan, boothJob, sheet, draft, openQuote, myJob, mySprayedJob, delivered, version: versions[0] }))
     expect(v, `demo data has a ${what}`).toBeTruthy();
   expect(measured.length, "demo panels with meter readings").toBeGreaterThanOrEqual(2);
-  return { customer, material, plan, version: versions[0]!, panel: measured[0]!, compare: measured.slice(0, 3).map((p) => p.id), draft, boothJob, jobPlan, sheet, openQuote, myJob, linkToken };
+  return { customer, material, plan, version: versions[0]!, panel: measured[0]!, compare: measured.slice(0, 3).map((p) => p.id), draft, boothJob, jobPlan, sheet, openQuote, myJob, mySprayedJob, delivered, linkToken };
 }
 
 type Screen = {
@@ -104,6 +106,7 @@ const SCREENS: Screen[] = [
   { role: "owner", name: "new job", url: () => "/jobs/new", heading: exact("New job") },
   { role: "owner", name: "job", url: (i) => `/jobs/${i.boothJob.id}`, heading: (i) => i.boothJob.title },
   { role: "owner", name: "job's finish plan", url: (i) => `/jobs/${i.boothJob.id}/plan`, heading: (i) => i.jobPlan.name },
+  { role: "owner", name: "finish record", url: (i) => `/jobs/${i.delivered.id}/finish-record`, heading: (i) => i.delivered.title },
   { role: "owner", name: "customers", url: () => "/customers", heading: exact("Customers") },
   { role: "owner", name: "new customer", url: () => "/customers/new", heading: exact("New customer") },
   { role: "owner", name: "customer", url: (i) => `/customers/${i.customer.id}`, heading: (i) => i.customer.name },
@@ -144,6 +147,7 @@ const SCREENS: Screen[] = [
   // The customer.
   { role: "customer", name: "my jobs", url: () => "/portal", heading: exact("My jobs") },
   { role: "customer", name: "job", url: (i) => `/portal/jobs/${i.myJob.id}`, heading: (i) => i.myJob.title },
+  { role: "customer", name: "finish record of my job", url: (i) => `/portal/jobs/${i.mySprayedJob.id}/finish-record`, heading: (i) => i.mySprayedJob.title },
   { role: "customer", name: "my quotes", url: () => "/portal/quotes", heading: exact("My quotes") },
   { role: "customer", name: "quote awaiting an answer", url: (i) => `/portal/quotes/${i.openQuote.id}`, heading: (i) => i.openQuote.jobTitle },
   { role: "customer", name: "account", url: () => "/portal/account", heading: exact("Account") },

@@ -9,8 +9,11 @@ import { panelQueries } from "@/features/panels/api/panels.queries";
 import { formatLab, PanelSwatch } from "@/features/panels/components/panel-swatch";
 import { VerdictBadge } from "@/features/panels/components/verdict-badge";
 import { formatDate } from "@/utils/format-date";
+import { formatNumber } from "@/utils/format-quantity";
+import { equivalentCoats } from "@shared/mix/index";
+import { PANEL_LIGHT_LABELS, PANEL_LIGHTS } from "@shared/domain/spray-setup";
 
-/** Panels side by side, with ΔE00 between each pair that has readings. */
+/** Panels side by side from the lightest to the deepest, with ΔE00 between each pair that has readings. */
 export default function PanelsCompareRoute() {
   const [params] = useSearchParams();
   const ids = (params.get("ids") ?? "").split(",").map(Number).filter((n) => Number.isInteger(n) && n > 0);
@@ -18,13 +21,28 @@ export default function PanelsCompareRoute() {
   if (ids.length < 2) return <Alert tone="info">Pick at least two panels in the library to compare.</Alert>;
   if (compare.error) return <Alert tone="error">{compare.error.message}</Alert>;
   if (!compare.data) return <Spinner label="Loading panels…" />;
-  const { panels, pairs, thresholds } = compare.data;
+  const { pairs, thresholds } = compare.data;
+  // Lightest first: colour depth follows toner fraction × coats, not the coat count across let-downs.
+  const panels = [...compare.data.panels].sort((a, b) => a.tonerFraction * a.coats - b.tonerFraction * b.coats || a.id - b.id);
+  const ref = { clear: panels[0]!.letDownClear, toner: panels[0]!.letDownToner };
   const rows: [string, (p: (typeof panels)[number]) => string][] = [
     ["Ground", (p) => p.groundName],
     ["Candy", (p) => p.candyName],
     ["Let-down", (p) => `${p.letDownClear}:${p.letDownToner} (toner ${(p.tonerFraction * 100).toFixed(1)}%)`],
     ["Coats", (p) => String(p.coats)],
-    ["Reading", (p) => formatLab(p.lab)],
+    ["Depth (toner fraction × coats)", (p) => formatNumber(p.tonerFraction * p.coats, 3)],
+    [`As deep as, at ${ref.clear}:${ref.toner}`, (p) => `${formatNumber(equivalentCoats(p.coats, { clear: p.letDownClear, toner: p.letDownToner }, ref), 2)} coats`],
+    ["Reading, daylight (D65)", (p) => formatLab(p.lab)],
+    ...PANEL_LIGHTS.filter((l) => l !== "daylight" && panels.some((p) => p.readings.some((r) => r.light === l))).map(
+      (l): [string, (p: (typeof panels)[number]) => string] => [
+        `Reading, ${PANEL_LIGHT_LABELS[l].toLowerCase()}`,
+        (p) => {
+          const r = p.readings.find((x) => x.light === l);
+          return r ? `${formatLab(r.lab)} (${r.illuminant})` : "—";
+        },
+      ],
+    ),
+    ["Spray set-up", (p) => p.setup.summary || "—"],
     ["Sprayed", (p) => (p.sprayedOn ? formatDate(p.sprayedOn) : "—")],
     ["Job", (p) => p.jobTitle ?? "—"],
   ];
