@@ -6,6 +6,8 @@ import { computeMedianRun } from "lighthouse/core/lib/median-run.js";
 type Lhr = NonNullable<Awaited<ReturnType<typeof lighthouse>>>["lhr"];
 
 export type LighthouseScores = {
+  /** False when no run of the page gave a result after its retries (then the scores are null). */
+  ok: boolean;
   performance: number | null;
   accessibility: number | null;
   /** Every run's performance score, in run order (the reported one is the median run's). */
@@ -40,16 +42,45 @@ async function runOnce(url: string, cookie: string | undefined, desktop: boolean
 
 const score = (lhr: Lhr, id: string) => (lhr.categories[id]?.score == null ? null : Math.round(lhr.categories[id]!.score! * 100));
 
+/** Tries per Lighthouse run: a run that throws (e.g. "Some runs were missing an FCP value" on a busy machine) is retried twice. */
+export const LIGHTHOUSE_TRIES = 3;
+
+/** One run, retried up to twice when Lighthouse throws or reports a runtime error; null when every try failed. */
+async function runWithRetries(url: string, cookie: string | undefined, desktop: boolean, problems: string[]): Promise<Lhr | null> {
+  for (let attempt = 1; attempt <= LIGHTHOUSE_TRIES; attempt++) {
+    try {
+      const lhr = await runOnce(url, cookie, desktop);
+      if (lhr.runtimeError) throw new Error(`${lhr.runtimeError.code}: ${lhr.runtimeError.message}`);
+      if (lhr.audits["first-contentful-paint"]?.numericValue == null) throw new Error("no first contentful paint in this run");
+      return lhr;
+    } catch (error) {
+      problems.push(`try ${attempt} failed: ${error instanceof Error ? error.message : String(error)}`);
+    }
+  }
+  return null;
+}
+
 /**
  * Scores one page of the running app, 0-100, as the median of LIGHTHOUSE_RUNS runs (Lighthouse's own median-run
  * pick: the run closest to the median first paint and time to interactive). A signed-in page gets the session
  * cookie on every request. `notes` gives the median run's metrics and names the audits that lost points (e.g. text
- * compression), so a low score says why.
+ * compression), so a low score says why. Never throws: a page whose runs all failed is reported with ok: false.
  */
 export async function scorePage(url: string, cookie?: string, desktop = false): Promise<LighthouseScores> {
   const runs: Lhr[] = [];
-  for (let i = 0; i < LIGHTHOUSE_RUNS; i++) runs.push(await runOnce(url, cookie, desktop));
-  const median = computeMedianRun(runs) as Lhr;
+  const problems: string[] = [];
+  for (let i = 0; i < LIGHTHOUSE_RUNS; i++) {
+    const lhr = await runWithRetries(url, cookie, desktop, problems);
+    if (lhr) runs.push(lhr);
+  }
+  if (runs.length === 0) return { ok: false, performance: null, accessibility: null, performanceRuns: [], benchmarkIndex: [], notes: [`every run failed: ${problems.join("; ")}`] };
+  let median: Lhr;
+  try {
+    median = computeMedianRun(runs) as Lhr;
+  } catch (error) {
+    problems.push(`median pick failed (${error instanceof Error ? error.message : String(error)}), first run reported`);
+    median = runs[0]!;
+  }
   const { categories, audits } = median;
   const notes = (categories.performance?.auditRefs ?? [])
     .filter((ref) => ref.weight === 0 && audits[ref.id]?.details?.type === "opportunity" && (audits[ref.id]?.score ?? 1) < 0.9)
@@ -58,10 +89,11 @@ export async function scorePage(url: string, cookie?: string, desktop = false): 
     .map((id) => `${id.replace(/-/g, " ")} ${audits[id]?.displayValue ?? "?"}`);
   const failedA11y = (categories.accessibility?.auditRefs ?? []).filter((ref) => ref.weight > 0 && audits[ref.id]?.score === 0).map((ref) => `a11y: ${audits[ref.id]!.title}`);
   return {
+    ok: true,
     performance: score(median, "performance"),
     accessibility: score(median, "accessibility"),
     performanceRuns: runs.map((r) => score(r, "performance")),
     benchmarkIndex: runs.map((r) => Math.round(r.environment.benchmarkIndex)),
-    notes: [...metrics, ...notes, ...failedA11y],
+    notes: [...metrics, ...notes, ...failedA11y, ...problems],
   };
 }

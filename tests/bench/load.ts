@@ -8,15 +8,26 @@ export const LOAD = {
   seconds: Number(process.env.BENCH_SECONDS ?? 10),
 };
 
-export type LoadResult = { reqPerSec: number; p50Ms: number; p99Ms: number; errors: number; non2xx: number; requests: number; cpuUsPerRequest: number };
-type Run = { requests: number; seconds: number; latencies: number[]; errors: number; non2xx: number; cpuUs: number; allRequests: number };
+export type LoadResult = {
+  reqPerSec: number;
+  p50Ms: number;
+  p99Ms: number;
+  errors: number;
+  non2xx: number;
+  /** How many answers of each non-2xx status (so a failed run says why). */
+  non2xxByStatus: Record<string, number>;
+  requests: number;
+  cpuUsPerRequest: number;
+};
+type Run = { requests: number; seconds: number; latencies: number[]; errors: number; non2xx: number; statuses: Record<string, number>; cpuUs: number; allRequests: number };
 
 /**
  * One autocannon run; every response's latency is kept so runs can be merged. With `skipSeconds`, requests sent in
  * the first seconds of the run are a warm-up on the same connections and are left out of the figures.
  */
-function run(server: Child, opts: autocannon.Options, skipSeconds = 0): Promise<Run> {
+export function run(server: Child, opts: autocannon.Options, skipSeconds = 0): Promise<Run> {
   const latencies: number[] = [];
+  const statuses: Record<string, number> = {};
   const started = performance.now();
   const cpuBefore = server.cpuMs();
   return new Promise((resolve, reject) => {
@@ -29,17 +40,19 @@ function run(server: Child, opts: autocannon.Options, skipSeconds = 0): Promise<
             latencies,
             errors: r.errors + r.timeouts,
             non2xx: r.non2xx,
+            statuses,
             cpuUs: (server.cpuMs() - cpuBefore) * 1000,
             allRequests: r.requests.total,
           }),
     );
-    instance.on("response", (_client, _status, _bytes, ms) => {
+    instance.on("response", (_client, status, _bytes, ms) => {
+      if (status < 200 || status >= 300) statuses[status] = (statuses[status] ?? 0) + 1;
       if (performance.now() - ms - started >= skipSeconds * 1000) latencies.push(ms);
     });
   });
 }
 
-function merge(runs: Run[]): LoadResult {
+export function merge(runs: Run[]): LoadResult {
   const latencies = runs.flatMap((r) => r.latencies).sort((a, b) => a - b);
   const at = (q: number) => Math.round(latencies[Math.min(latencies.length - 1, Math.floor(q * latencies.length))] ?? 0);
   const requests = runs.reduce((n, r) => n + r.requests, 0);
@@ -49,6 +62,10 @@ function merge(runs: Run[]): LoadResult {
     p99Ms: at(0.99),
     errors: runs.reduce((n, r) => n + r.errors, 0),
     non2xx: runs.reduce((n, r) => n + r.non2xx, 0),
+    non2xxByStatus: runs.reduce<Record<string, number>>((all, r) => {
+      for (const [k, v] of Object.entries(r.statuses)) all[k] = (all[k] ?? 0) + v;
+      return all;
+    }, {}),
     requests,
     // Server CPU per answered request over whole runs (warm-up included): less swayed by other load on the machine.
     cpuUsPerRequest: Math.round(runs.reduce((n, r) => n + r.cpuUs, 0) / runs.reduce((n, r) => n + r.allRequests, 0)),
@@ -74,35 +91,61 @@ export async function compareGet(appServer: Child, baselineServer: Child, path: 
   return { app: merge(app), baseline: merge(bare) };
 }
 
+/** A write request: its path and JSON body. */
+export type WriteRequest = { path: string; body: string };
+
 /**
- * POST one coat per request. Each connection takes a job of its own from the pool and logs its coats in order, so
- * every request is the coat the booth card shows next (valid, 201); then it takes the next job. The run stops before
- * the pool could run dry.
+ * POST at 50 connections, each request taken from `next()` (a coat not yet logged, a sheet not yet recorded), so
+ * every request is a valid write. `seconds` measured after `warmup` seconds on the same connections.
  */
-export async function loadCoatLogs(server: Child, cookie: string, pool: SprayJob[]): Promise<LoadResult> {
-  const queue = [...pool];
+export function writeLoad(server: Child, cookie: string, next: () => WriteRequest, seconds: number, warmup: number, maxRequests: number): Promise<Run> {
   const headers = { cookie, "content-type": "application/json" };
-  const coatsLeft = () => queue.reduce((n, j) => n + j.coats.length, 0);
-  const opts = (seconds: number): autocannon.Options => ({
-    url: `${server.url}/api/coat-logs`,
-    duration: seconds,
-    // Jobs a connection has started are not in the queue: keep a whole job per connection in reserve.
-    maxOverallRequests: Math.max(LOAD.connections, coatsLeft() - LOAD.connections * Math.max(...pool.map((j) => j.coats.length))),
-    setupClient: (client) => {
-      let job: SprayJob | undefined;
-      let step = 0;
-      const next = () => {
-        if (!job || step === job.coats.length) {
-          job = queue.shift();
-          step = 0;
-          if (!job) throw new Error("the spray pool ran dry");
-        }
-        return JSON.stringify({ jobId: job.jobId, ...job.coats[step++], boothTemp: 21, tempUnit: "C", humidityPct: 48 });
-      };
-      client.setRequests([{ method: "POST", path: "/api/coat-logs", headers, setupRequest: (req) => ({ ...req, body: next() }) }]);
+  return run(
+    server,
+    {
+      url: server.url,
+      duration: warmup + seconds,
+      maxOverallRequests: maxRequests,
+      setupClient: (client) => {
+        client.setRequests([{ method: "POST", path: "/", headers, setupRequest: (req) => ({ ...req, ...next() }) }]);
+      },
     },
-  });
-  // One run: the first seconds warm up the same connections that are then measured. (A fresh connection's first
-  // coat can wait behind the established ones for a second or two at this load; the report says so.)
-  return merge([await run(server, opts(LOAD.warmupSeconds + LOAD.seconds), LOAD.warmupSeconds)]);
+    warmup,
+  );
+}
+
+/**
+ * A write route on the real app and on the bare baseline (the same statements in one transaction), in alternating
+ * slices like compareGet. The app takes a fresh write from `next()` each time; the baseline replays its one request.
+ */
+export async function compareWrite(appServer: Child, baselineServer: Child, next: () => WriteRequest, baselineRequest: () => WriteRequest, cookie: string, budget: number) {
+  const slices = 4;
+  const app: Run[] = [];
+  const bare: Run[] = [];
+  for (let slice = 0; slice < slices; slice++) {
+    const warmup = slice === 0 ? LOAD.warmupSeconds : 1;
+    app.push(await writeLoad(appServer, cookie, next, LOAD.seconds / slices, warmup, Math.floor(budget / slices)));
+    // Both write the same database file: let the last answers of one finish before the other starts.
+    await new Promise((r) => setTimeout(r, 500));
+    bare.push(await writeLoad(baselineServer, cookie, baselineRequest, LOAD.seconds / slices, warmup, 10_000_000));
+    await new Promise((r) => setTimeout(r, 500));
+  }
+  return { app: merge(app), baseline: merge(bare) };
+}
+
+/** Every coat of the pool's jobs, in the order each job's booth card asks for them; `next()` hands out the next one. */
+export function coatQueue(pool: SprayJob[]) {
+  // Round-robin over the jobs: a job's next coat comes many requests later, so two connections never race for one job.
+  const byJob = pool.map((j) => ({ jobId: j.jobId, coats: [...j.coats] }));
+  let i = 0;
+  const left = () => byJob.reduce((n, j) => n + j.coats.length, 0);
+  const next = (): WriteRequest => {
+    for (let tries = 0; tries < byJob.length; tries++) {
+      const job = byJob[i++ % byJob.length]!;
+      const coat = job.coats.shift();
+      if (coat) return { path: "/api/coat-logs", body: JSON.stringify({ jobId: job.jobId, ...coat, boothTemp: 21, tempUnit: "C", humidityPct: 48 }) };
+    }
+    throw new Error("the spray pool ran dry");
+  };
+  return { next, left };
 }

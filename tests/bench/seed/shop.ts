@@ -6,10 +6,13 @@ import { migrateDb, openDb } from "../../../server/db/client";
 import { seedDemo } from "../../../server/db/seed/index";
 import { insertBoothRecords, insertPrep } from "./booth";
 import { insertCustomers, insertJobs, type People } from "./jobs";
-import { loadTemplates, planCopier } from "./plans";
+import { loadTemplates, planCopier, type SeedLayer } from "./plans";
 import { DAY, HOUR, MIN, dateOnly, makeRand } from "./random";
 
 export const TARGET = { jobs: 10_000, coatLogs: 100_000, mixSheets: 20_000 };
+/** The shop ten times over, for how cost grows with it. */
+export const LARGE = { jobs: 100_000, coatLogs: 1_000_000, mixSheets: 200_000 };
+export type ShopSize = typeof TARGET;
 
 const count = (sqlite: Database.Database, table: string) => (sqlite.prepare(`select count(*) as n from ${table}`).get() as { n: number }).n;
 
@@ -17,7 +20,7 @@ const count = (sqlite: Database.Database, table: string) => (sqlite.prepare(`sel
  * The large shop: the real migrations and the normal demo seed (so the demo accounts exist), then invented bulk data
  * through prepared statements in one transaction, up to TARGET in total.
  */
-export async function seedLargeShop(dataDir: string, now = Date.now()) {
+export async function seedLargeShop(dataDir: string, now = Date.now(), target: ShopSize = TARGET) {
   mkdirSync(dataDir, { recursive: true });
   const dbFile = path.join(dataDir, "coatwright.db");
   const db = openDb(dbFile);
@@ -32,9 +35,9 @@ export async function seedLargeShop(dataDir: string, now = Date.now()) {
   sqlite.transaction(() => {
     const people = peopleOf(sqlite);
     const customerIds = [...(sqlite.prepare("select id from customers").pluck().all() as number[]), ...insertCustomers(sqlite, rand, 2400, now)];
-    const jobs = insertJobs(sqlite, rand, people, customerIds, TARGET.jobs - count(sqlite, "jobs"), now);
+    const jobs = insertJobs(sqlite, rand, people, customerIds, target.jobs - count(sqlite, "jobs"), now);
     insertPrep(sqlite, rand, jobs, now);
-    insertBoothRecords(sqlite, rand, jobs, { coats: TARGET.coatLogs - count(sqlite, "coat_logs"), sheets: TARGET.mixSheets - count(sqlite, "mix_sheets") }, now);
+    insertBoothRecords(sqlite, rand, jobs, { coats: target.coatLogs - count(sqlite, "coat_logs"), sheets: target.mixSheets - count(sqlite, "mix_sheets") }, now);
   })();
   const totals = Object.fromEntries(["jobs", "job_items", "job_stage_events", "customers", "plans", "plan_layers", "prep_records", "coat_logs", "mix_sheets", "mix_sheet_lines"].map((t) => [t, count(sqlite, t)]));
   sqlite.close();
@@ -63,7 +66,7 @@ function peopleOf(sqlite: Database.Database): People {
   };
 }
 
-export type SprayJob = { jobId: number; coats: { layerId: number; coatNumber: number }[] };
+export type SprayJob = { jobId: number; versionId: number; coats: { layerId: number; coatNumber: number }[]; layers: SeedLayer[] };
 
 /**
  * Jobs ready for the booth for the coat-log measurement: in prep, assigned to `painterEmail`, prep signed off, a
@@ -93,9 +96,42 @@ export function addSprayPool(dbFile: string, painterEmail: string, n: number, no
       insertPrep.run(jobId, itemId, painter, now - 2 * HOUR, painter, now - HOUR, now - 2 * HOUR, now - HOUR);
       const plan = copyPlan(template, jobId, at);
       const coats = plan.layers.filter((l) => l.kind !== "prep").flatMap((l) => Array.from({ length: coatCount(l.coats) }, (_, c) => ({ layerId: l.id, coatNumber: c + 1 })));
-      return { jobId, coats };
+      return { jobId, versionId: plan.versionId, coats, layers: plan.layers };
     }),
   )();
   sqlite.close();
   return pool;
+}
+
+/**
+ * A draft mix sheet for every layer with a mix of the pool's jobs, lines split by parts as the engine would (percent
+ * components taken of the parts total): what the mix-sheet record measurement records, one sheet per request.
+ */
+export function addDraftSheets(dbFile: string, pool: SprayJob[], painterEmail: string, now = Date.now()): number[] {
+  const sqlite = new Database(dbFile);
+  sqlite.pragma("busy_timeout = 5000");
+  const painter = sqlite.prepare("select id from users where email = ?").pluck().get(painterEmail) as string;
+  const insertSheet = sqlite.prepare(
+    `insert into mix_sheets (job_id, plan_version_id, layer_id, status, mode, amount, unit, weigh, total_ml, voc_g_per_l, pot_life_minutes, created_by, created_at)
+     values (?, ?, ?, 'draft', 'total', 300, 'mL', 0, 300, null, null, ?, ?)`,
+  );
+  const insertLine = sqlite.prepare("insert into mix_sheet_lines (mix_sheet_id, position, material_id, label, planned_ml) values (?, ?, ?, ?, ?)");
+  // Recording takes stock from the lots: enough on the shelf for every sheet of the run, so none is refused for stock.
+  sqlite.prepare("update material_lots set quantity_on_hand = quantity_on_hand + 100000").run();
+  const ids = sqlite.transaction(() =>
+    pool.flatMap((job) =>
+      job.layers
+        .filter((l) => l.components.length > 0)
+        .map((layer) => {
+          const partsTotal = layer.components.reduce((n, c) => n + (c.parts ?? 0), 0) || 1;
+          const shares = layer.components.map((c) => c.parts ?? ((c.percent ?? 0) / 100) * partsTotal);
+          const sum = shares.reduce((a, b) => a + b, 0);
+          const id = Number(insertSheet.run(job.jobId, job.versionId, layer.id, painter, now).lastInsertRowid);
+          layer.components.forEach((c, i) => insertLine.run(id, i + 1, c.materialId, c.label, (300 * shares[i]!) / sum));
+          return id;
+        }),
+    ),
+  )();
+  sqlite.close();
+  return ids;
 }
