@@ -1,4 +1,4 @@
-import { existsSync, readdirSync, readFileSync, rmSync } from "node:fs";
+import { existsSync, readdirSync, readFileSync, rmSync, statSync } from "node:fs";
 import path from "node:path";
 
 /**
@@ -59,8 +59,13 @@ export function readBackup(folder: string): BackupInfo | null {
 
 /** Every complete backup in `dir`, newest first. */
 export function listBackups(dir: string): BackupInfo[] {
-  if (!existsSync(dir)) return [];
-  return readdirSync(dir)
+  let entries: string[];
+  try {
+    entries = readdirSync(dir);
+  } catch {
+    return []; // no folder yet, or something else in its place (a failed backup says so)
+  }
+  return entries
     .filter((n) => NAME.test(n))
     .sort()
     .reverse()
@@ -83,6 +88,6 @@ export function pruneBackups(dir: string, keep: number): string[] {
 
 /** Removes backups left half-written by a crash or a full disk. */
 export function removePartials(dir: string) {
-  if (!existsSync(dir)) return;
+  if (!existsSync(dir) || !statSync(dir).isDirectory()) return;
   for (const n of readdirSync(dir)) if (n.endsWith(PARTIAL)) rmSync(path.join(dir, n), { recursive: true, force: true });
 }

@@ -13,7 +13,8 @@ export function filesUnder(dir: string, prefix = ""): string[] {
   return out;
 }
 
-const sameFile = (a: Stats, b: Stats) => a.size === b.size && Math.trunc(a.mtimeMs) === Math.trunc(b.mtimeMs);
+// Times go through utimes as floating-point seconds, so a copy's time can differ from its source's by under a millisecond.
+const sameFile = (a: Stats, b: Stats) => a.size === b.size && Math.abs(a.mtimeMs - b.mtimeMs) < 2;
 
 /**
  * Copies the files under `from` into `to` (which must not exist yet), keeping their modification times. A file
