@@ -20,6 +20,7 @@ export function writeUpload(uploadsDir: string, name: string, bytes: number, see
   const buf = Buffer.alloc(bytes);
   let x = seed;
   for (let i = 0; i < bytes; i++) buf[i] = (x = (x * 1103515245 + 12345) & 0x7fffffff) >> 16;
+  mkdirSync(uploadsDir, { recursive: true });
   writeFileSync(path.join(uploadsDir, name), buf);
   return buf;
 }
