@@ -109,8 +109,9 @@ export async function main() {
     log.info("Stopped");
     process.exit(0);
   };
-  process.once("SIGINT", shutdown);
-  process.once("SIGTERM", shutdown);
+  // A second signal while stopping is ignored (not the default kill), so a supervisor that repeats itself waits too.
+  process.on("SIGINT", shutdown);
+  process.on("SIGTERM", shutdown);
   return http.server;
 }
 
