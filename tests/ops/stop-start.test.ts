@@ -49,7 +49,7 @@ describe("stopping with requests in flight", () => {
     server.proc.kill("SIGTERM");
     signalledAt = Date.now();
     // Once the server has begun to stop, a new connection is refused.
-    while (!server.stdout().includes("Stopping")) await new Promise((r) => setTimeout(r, 5));
+    for (let waited = 0; waited < 2000 && !server.stdout().includes("Stopping"); waited += 5) await new Promise((r) => setTimeout(r, 5));
     const late = await new Promise<string>((resolve) => {
       const socket = connect(Number(new URL(base).port), "127.0.0.1");
       socket.once("connect", () => (socket.destroy(), resolve("connected")));
