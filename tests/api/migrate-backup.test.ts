@@ -1,35 +1,16 @@
 import { describe, expect, it } from "vitest";
-import { cpSync, mkdirSync, mkdtempSync, readFileSync, writeFileSync } from "node:fs";
+import { mkdirSync, mkdtempSync, readFileSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
 import path from "node:path";
 import Database from "better-sqlite3";
-import { MIGRATIONS_FOLDER, migrateDb, openDb } from "../../server/db/client";
+import { migrateDb, openDb } from "../../server/db/client";
 import { customers } from "../../server/db/schema";
 import { migrateWithBackup, pendingMigrations } from "../../server/backups/migrate-with-backup";
 import { listBackups } from "../../server/backups/backup-files";
 import { silentLogger } from "../../server/log/logger";
-import { liveDataDir, writeUpload } from "../support/backup-fixtures";
+import { appliedIn, liveDataDir, migrationCount, olderRelease, writeUpload } from "../support/backup-fixtures";
 
-type Journal = { entries: { tag: string }[] };
-const journal = JSON.parse(readFileSync(path.join(MIGRATIONS_FOLDER, "meta/_journal.json"), "utf8")) as Journal;
-const total = journal.entries.length;
-
-/** The migrations folder as it was one release ago: the newest migration not there yet. */
-function olderRelease() {
-  const dir = mkdtempSync(path.join(tmpdir(), "cw-old-migrations-"));
-  cpSync(MIGRATIONS_FOLDER, dir, { recursive: true });
-  writeFileSync(path.join(dir, "meta/_journal.json"), JSON.stringify({ ...journal, entries: journal.entries.slice(0, -1) }));
-  return dir;
-}
-
-const appliedIn = (file: string) => {
-  const db = new Database(file, { readonly: true });
-  try {
-    return (db.prepare("select count(*) as n from __drizzle_migrations").get() as { n: number }).n;
-  } finally {
-    db.close();
-  }
-};
+const total = migrationCount();
 
 /** A shop's data folder on last release's schema, with a customer and a photo. */
 function shopOnLastRelease() {

@@ -1,8 +1,9 @@
 import { execFileSync } from "node:child_process";
-import { mkdirSync, mkdtempSync, writeFileSync } from "node:fs";
+import Database from "better-sqlite3";
+import { cpSync, mkdirSync, mkdtempSync, readFileSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
 import path from "node:path";
-import { migrateDb, openDb } from "../../server/db/client";
+import { MIGRATIONS_FOLDER, migrateDb, openDb } from "../../server/db/client";
 
 /** A data folder with a migrated database file (WAL, like the server's) and an uploads folder. */
 export function liveDataDir() {
@@ -37,4 +38,29 @@ export function smallDisk(size: string): { dir: string; unmount: () => void } | 
     return null;
   }
   return { dir, unmount: () => execFileSync("umount", [dir], { stdio: "ignore" }) };
+}
+
+type Journal = { entries: { tag: string }[] };
+const readJournal = () => JSON.parse(readFileSync(path.join(MIGRATIONS_FOLDER, "meta/_journal.json"), "utf8")) as Journal;
+
+/** How many migrations this version ships. */
+export const migrationCount = () => readJournal().entries.length;
+
+/** The migrations folder as it was one release ago: the newest migration not there yet. */
+export function olderRelease() {
+  const journal = readJournal();
+  const dir = mkdtempSync(path.join(tmpdir(), "cw-old-migrations-"));
+  cpSync(MIGRATIONS_FOLDER, dir, { recursive: true });
+  writeFileSync(path.join(dir, "meta/_journal.json"), JSON.stringify({ ...journal, entries: journal.entries.slice(0, -1) }));
+  return dir;
+}
+
+/** How many migrations the database file has applied. */
+export function appliedIn(file: string) {
+  const db = new Database(file, { readonly: true });
+  try {
+    return (db.prepare("select count(*) as n from __drizzle_migrations").get() as { n: number }).n;
+  } finally {
+    db.close();
+  }
 }
