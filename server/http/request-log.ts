@@ -63,8 +63,8 @@ export function requestLog(logger: Logger): RequestHandler {
     customLogLevel: (_req, res, err) => (err || res.statusCode >= 500 ? "error" : "info"),
     customSuccessObject: (req, res, val: Record<string, unknown>) => line(req, res, val.durationMs),
     customErrorObject: (req, res, err, val: Record<string, unknown>) => ({ ...line(req, res, val.durationMs), err }),
-    customSuccessMessage: (req, res) => `${req.method} ${routeOf(req, res) ?? loggablePath(req.originalUrl ?? "")} ${res.writableEnded ? res.statusCode : "aborted"}`,
-    customErrorMessage: (req, res) => `${req.method} ${routeOf(req, res) ?? loggablePath(req.originalUrl ?? "")} ${res.statusCode}`,
+    customSuccessMessage: (req: Req, res) => `${req.method} ${routeOf(req, res) ?? loggablePath(req.originalUrl ?? "")} ${res.writableEnded ? res.statusCode : "aborted"}`,
+    customErrorMessage: (req: Req, res) => `${req.method} ${routeOf(req, res) ?? loggablePath(req.originalUrl ?? "")} ${res.statusCode}`,
   }) as unknown as RequestHandler;
 }
 
