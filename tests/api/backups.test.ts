@@ -10,18 +10,9 @@ import { createBackupService } from "../../server/backups/backup-service";
 import { resolveBackup, restoreBackup } from "../../server/backups/restore-backup";
 import { createLogger, silentLogger } from "../../server/log/logger";
 import { makeShop } from "../support/test-app";
-import { liveDataDir, smallDisk, writeUpload } from "../support/backup-fixtures";
+import { customerNames as names, liveDataDir, smallDisk, writeUpload } from "../support/backup-fixtures";
 
 const journal = JSON.parse(readFileSync(path.resolve(import.meta.dirname, "../../drizzle/meta/_journal.json"), "utf8")) as { entries: unknown[] };
-const names = (file: string) => {
-  const db = new Database(file, { readonly: true });
-  try {
-    return (db.prepare("select name from customers order by id").all() as { name: string }[]).map((r) => r.name);
-  } finally {
-    db.close();
-  }
-};
-
 describe("taking a backup", () => {
   it("copies the live database online, checks it, copies the uploads beside it and describes it in a manifest", async () => {
     const live = liveDataDir();

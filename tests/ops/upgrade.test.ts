@@ -2,23 +2,13 @@ import { afterEach, describe, expect, it } from "vitest";
 import { mkdirSync, mkdtempSync, readdirSync } from "node:fs";
 import { tmpdir } from "node:os";
 import path from "node:path";
-import Database from "better-sqlite3";
 import { migrateDb, openDb } from "../../server/db/client";
 import { customers } from "../../server/db/schema";
-import { appliedIn, migrationCount, olderRelease } from "../support/backup-fixtures";
+import { appliedIn, customerNames, migrationCount, olderRelease } from "../support/backup-fixtures";
 import { cleanUp, freePort, runTs, startServer, waitUp, type ServerProcess } from "../support/server-process";
 
 let server: ServerProcess | undefined;
 afterEach(() => cleanUp(server));
-
-const customerNames = (file: string) => {
-  const db = new Database(file, { readonly: true });
-  try {
-    return (db.prepare("select name from customers order by id").all() as { name: string }[]).map((r) => r.name);
-  } finally {
-    db.close();
-  }
-};
 
 describe("upgrading and rolling back", () => {
   it("a new version backs up the old database before migrating it, and restoring that backup rolls the upgrade back", async () => {

@@ -64,3 +64,13 @@ export function appliedIn(file: string) {
     db.close();
   }
 }
+
+/** The customers' names in a database file, in id order. */
+export function customerNames(file: string) {
+  const db = new Database(file, { readonly: true });
+  try {
+    return (db.prepare("select name from customers order by id").all() as { name: string }[]).map((r) => r.name);
+  } finally {
+    db.close();
+  }
+}
