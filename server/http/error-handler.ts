@@ -15,7 +15,8 @@ type BodyParserError = Error & { type?: string; status?: number; statusCode?: nu
 export const errorHandler: ErrorRequestHandler = (err: unknown, _req, res, _next) => {
   if (res.headersSent) return;
   if (isStorageFull(err)) {
-    console.error(`[storage full] ${req.method} ${req.originalUrl} refused: the disk is full`);
+    // The request's log line (a 5xx, so at error level) carries the disk error: the owner's log says why it was refused.
+    res.err = err instanceof Error ? err : new Error(String(err));
     err = storageFull();
   }
   if (err instanceof HttpError) {
