@@ -62,3 +62,18 @@ export function copyFiles(from: string, to: string, previous: string | null): { 
   }
   return { files, bytes, linked };
 }
+
+/** Bytes `copyFiles` would write: the files under `from` that `previous` does not already hold unchanged. */
+export function bytesToCopy(from: string, previous: string | null): number {
+  let bytes = 0;
+  for (const rel of filesUnder(from)) {
+    try {
+      const st = statSync(path.join(from, rel));
+      const old = previous ? path.join(previous, rel) : null;
+      if (!(old && existsSync(old) && sameFile(statSync(old), st))) bytes += st.size;
+    } catch {
+      /* deleted since the listing */
+    }
+  }
+  return bytes;
+}

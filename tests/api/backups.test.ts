@@ -133,19 +133,40 @@ describe("a failed backup", () => {
     expect((await request(s.app).get("/api/health")).body.backupFailing).toBe(false);
   });
 
-  const disk = smallDisk("1m");
+  const disk = smallDisk("4m");
   afterAll(() => disk?.unmount());
-  it.skipIf(!disk)("on a full disk fails cleanly: no partial folder, earlier backups untouched, the failure reported", async () => {
+  it.skipIf(!disk)("that would not fit on its disk is refused before anything is written, and the owner is told why", async () => {
     const live = liveDataDir();
-    const dir = path.join(disk!.dir, "backups");
+    const dir = path.join(disk!.dir, "refused");
     const ok = await takeBackup({ sqlite: live.db.$client, uploadsDir: live.uploadsDir, backupDir: dir, kind: "scheduled", now: Date.now() - 60_000 });
-    // 2 MB of photos cannot fit on a 1 MB disk.
-    writeUpload(live.uploadsDir, "cccccccccccccccccccccccccccccccc.jpg", 2_000_000, 3);
+    // 6 MB of photos cannot fit on a 4 MB disk.
+    writeUpload(live.uploadsDir, "cccccccccccccccccccccccccccccccc.jpg", 6_000_000, 3);
     const service = createBackupService({ dir, everyHours: 24, keep: 5, sqlite: live.db.$client, uploadsDir: live.uploadsDir, log: silentLogger, now: Date.now });
-    await expect(service.run("scheduled")).rejects.toThrow(/ENOSPC|no space/i);
+    await expect(service.run("scheduled")).rejects.toThrow(/Not enough room for a backup in .*: it needs about [78] MB and [1-4] MB is free/);
+    expect(readdirSync(dir)).toEqual([ok.name]);
+    expect(service.status().lastFailure?.message).toMatch(/Not enough room/);
+    live.db.$client.close();
+  });
+
+  it.skipIf(!disk)("when the disk fills up part-way, leaves no partial folder and the earlier backups untouched", async () => {
+    const live = liveDataDir();
+    const dir = path.join(disk!.dir, "filled");
+    const ok = await takeBackup({ sqlite: live.db.$client, uploadsDir: live.uploadsDir, backupDir: dir, kind: "scheduled", now: Date.now() - 60_000 });
+    writeUpload(live.uploadsDir, "dddddddddddddddddddddddddddddddd.jpg", 6_000_000, 4);
+    // Past the room check (as if something else filled the disk meanwhile): the copy itself runs out of space.
+    await expect(takeBackup({ sqlite: live.db.$client, uploadsDir: live.uploadsDir, backupDir: dir, kind: "scheduled", checkRoom: false })).rejects.toThrow(/ENOSPC/);
     expect(readdirSync(dir)).toEqual([ok.name]);
     expect(listBackups(dir).map((b) => b.name)).toEqual([ok.name]);
-    expect(service.status().lastFailure?.message).toMatch(/ENOSPC|no space/i);
+    live.db.$client.close();
+  });
+
+  it.skipIf(!disk)("on the data's own disk leaves a reserve for the shop's own writes", async () => {
+    // Data and backups on one 4 MB disk: a backup of the empty shop (under 1 MB) would fit, but not with 64 MB left over.
+    const live = liveDataDir(disk!.dir);
+    await expect(takeBackup({ sqlite: live.db.$client, uploadsDir: live.uploadsDir, backupDir: live.backupDir, kind: "manual" })).rejects.toThrow(
+      /it needs about [12] MB and [1-3] MB is free \(a backup never takes the last 64 MB of the disk the shop's data is on\)/,
+    );
+    expect(readdirSync(live.backupDir)).toEqual([]);
     live.db.$client.close();
   });
 });

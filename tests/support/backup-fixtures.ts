@@ -6,8 +6,8 @@ import path from "node:path";
 import { MIGRATIONS_FOLDER, migrateDb, openDb } from "../../server/db/client";
 
 /** A data folder with a migrated database file (WAL, like the server's) and an uploads folder. */
-export function liveDataDir() {
-  const dir = mkdtempSync(path.join(tmpdir(), "cw-backup-"));
+export function liveDataDir(parent = tmpdir()) {
+  const dir = mkdtempSync(path.join(parent, "cw-backup-"));
   const dbFile = path.join(dir, "coatwright.db");
   const uploadsDir = path.join(dir, "uploads");
   mkdirSync(uploadsDir, { recursive: true });
