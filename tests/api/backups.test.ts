@@ -1,4 +1,4 @@
-import { afterAll, describe, expect, it } from "vitest";
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import request from "supertest";
 import { existsSync, mkdirSync, readdirSync, readFileSync, statSync, writeFileSync } from "node:fs";
 import path from "node:path";
@@ -10,7 +10,7 @@ import { createBackupService } from "../../server/backups/backup-service";
 import { resolveBackup, restoreBackup } from "../../server/backups/restore-backup";
 import { createLogger, silentLogger } from "../../server/log/logger";
 import { makeShop } from "../support/test-app";
-import { customerNames as names, liveDataDir, smallDisk, writeUpload } from "../support/backup-fixtures";
+import { canMountSmallDisk, customerNames as names, liveDataDir, smallDisk, writeUpload } from "../support/backup-fixtures";
 
 const journal = JSON.parse(readFileSync(path.resolve(import.meta.dirname, "../../drizzle/meta/_journal.json"), "utf8")) as { entries: unknown[] };
 describe("taking a backup", () => {
@@ -133,9 +133,13 @@ describe("a failed backup", () => {
     expect((await request(s.app).get("/api/health")).body.backupFailing).toBe(false);
   });
 
-  const disk = smallDisk("4m");
+  // Mounted only when one of these runs, and always unmounted after.
+  let disk: ReturnType<typeof smallDisk>;
+  beforeAll(() => {
+    if (canMountSmallDisk) disk = smallDisk("4m");
+  });
   afterAll(() => disk?.unmount());
-  it.skipIf(!disk)("that would not fit on its disk is refused before anything is written, and the owner is told why", async () => {
+  it.skipIf(!canMountSmallDisk)("that would not fit on its disk is refused before anything is written, and the owner is told why", async () => {
     const live = liveDataDir();
     const dir = path.join(disk!.dir, "refused");
     const ok = await takeBackup({ sqlite: live.db.$client, uploadsDir: live.uploadsDir, backupDir: dir, kind: "scheduled", now: Date.now() - 60_000 });
@@ -148,7 +152,7 @@ describe("a failed backup", () => {
     live.db.$client.close();
   });
 
-  it.skipIf(!disk)("when the disk fills up part-way, leaves no partial folder and the earlier backups untouched", async () => {
+  it.skipIf(!canMountSmallDisk)("when the disk fills up part-way, leaves no partial folder and the earlier backups untouched", async () => {
     const live = liveDataDir();
     const dir = path.join(disk!.dir, "filled");
     const ok = await takeBackup({ sqlite: live.db.$client, uploadsDir: live.uploadsDir, backupDir: dir, kind: "scheduled", now: Date.now() - 60_000 });
@@ -160,7 +164,7 @@ describe("a failed backup", () => {
     live.db.$client.close();
   });
 
-  it.skipIf(!disk)("on the data's own disk leaves a reserve for the shop's own writes", async () => {
+  it.skipIf(!canMountSmallDisk)("on the data's own disk leaves a reserve for the shop's own writes", async () => {
     // Data and backups on one 4 MB disk: a backup of the empty shop (under 1 MB) would fit, but not with 64 MB left over.
     const live = liveDataDir(disk!.dir);
     await expect(takeBackup({ sqlite: live.db.$client, uploadsDir: live.uploadsDir, backupDir: live.backupDir, kind: "manual" })).rejects.toThrow(

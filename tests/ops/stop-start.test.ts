@@ -22,7 +22,9 @@ type Outcome = { ok: true; status: number; at: number } | { ok: false; error: st
 describe("stopping with requests in flight", () => {
   it("SIGTERM with 40 sign-ins in flight: no new connections, all 40 answered, database closed, exit 0", async () => {
     const dataDir = mkdtempSync(path.join(tmpdir(), "cw-stop-"));
-    server = startServer({ PORT: String(await freePort()), DATA_DIR: dataDir, BACKUP_EVERY_HOURS: "0", SIGNIN_LIMIT_PER_ADDRESS: "1000" });
+    // The grace time is raised from its 10 s so a busy test machine cannot turn slow sign-ins into cut ones (the
+    // bound itself is the next test's subject).
+    server = startServer({ PORT: String(await freePort()), DATA_DIR: dataDir, BACKUP_EVERY_HOURS: "0", SIGNIN_LIMIT_PER_ADDRESS: "1000", SHUTDOWN_GRACE_SECONDS: "30" });
     await waitUp(server);
     const { base } = server;
 
@@ -49,7 +51,7 @@ describe("stopping with requests in flight", () => {
     server.proc.kill("SIGTERM");
     signalledAt = Date.now();
     // Once the server has begun to stop, a new connection is refused.
-    for (let waited = 0; waited < 2000 && !server.stdout().includes("Stopping"); waited += 5) await new Promise((r) => setTimeout(r, 5));
+    for (let waited = 0; waited < 5000 && !server.stdout().includes("Stopping"); waited += 5) await new Promise((r) => setTimeout(r, 5));
     const late = await new Promise<string>((resolve) => {
       const socket = connect(Number(new URL(base).port), "127.0.0.1");
       socket.once("connect", () => (socket.destroy(), resolve("connected")));
@@ -67,7 +69,8 @@ describe("stopping with requests in flight", () => {
     expect(outcomes.filter((o) => o.at >= signalledAt).length).toBeGreaterThanOrEqual(10);
     expect(late).toBe("ECONNREFUSED");
     expect(exit).toEqual({ code: 0, signal: null });
-    expect(stoppedIn).toBeLessThan(10_000);
+    expect(stoppedIn).toBeLessThan(30_000);
+    expect(server.stdout()).not.toMatch(/"cut":/);
     // Closed cleanly: SQLite folded the WAL back in and removed it, and every sign-in's session is there.
     expect(existsSync(path.join(dataDir, "coatwright.db-wal"))).toBe(false);
     const db = new Database(path.join(dataDir, "coatwright.db"), { readonly: true });
@@ -140,7 +143,8 @@ describe("starting on a port that is taken", () => {
 
   it("says what is wrong with a bad setting instead of a stack trace", async () => {
     const dataDir = path.join(mkdtempSync(path.join(tmpdir(), "cw-badenv-")), "data");
-    const run = runTs("server/index.ts", { PORT: "3000", DATA_DIR: dataDir, BACKUP_KEEP: "0" });
+    const run = runTs("server/index.ts", { PORT: String(await freePort()), DATA_DIR: dataDir, BACKUP_KEEP: "0" });
+    server = { ...run, base: "" }; // stopped after the test if it did not exit by itself
     expect((await run.exited).code).toBe(1);
     expect(run.stderr()).toMatch(/BACKUP_KEEP: BACKUP_KEEP must keep at least one backup/);
     expect(run.stderr()).not.toMatch(/\n\s+at /);

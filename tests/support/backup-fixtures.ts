@@ -1,6 +1,6 @@
 import { execFileSync } from "node:child_process";
 import Database from "better-sqlite3";
-import { cpSync, mkdirSync, mkdtempSync, readFileSync, writeFileSync } from "node:fs";
+import { cpSync, mkdirSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
 import path from "node:path";
 import { MIGRATIONS_FOLDER, migrateDb, openDb } from "../../server/db/client";
@@ -37,8 +37,21 @@ export function smallDisk(size: string): { dir: string; unmount: () => void } | 
   } catch {
     return null;
   }
-  return { dir, unmount: () => execFileSync("umount", [dir], { stdio: "ignore" }) };
+  return {
+    dir,
+    unmount: () => {
+      execFileSync("umount", [dir], { stdio: "ignore" });
+      rmSync(dir, { recursive: true, force: true });
+    },
+  };
 }
+
+/** Whether this machine lets the tests mount a small disk (checked once, nothing left mounted). */
+export const canMountSmallDisk = (() => {
+  const probe = smallDisk("64k");
+  probe?.unmount();
+  return probe !== null;
+})();
 
 type Journal = { entries: { tag: string }[] };
 const readJournal = () => JSON.parse(readFileSync(path.join(MIGRATIONS_FOLDER, "meta/_journal.json"), "utf8")) as Journal;
