@@ -99,8 +99,8 @@ export async function main() {
   const shutdown = async (signal: NodeJS.Signals) => {
     if (stopping) return;
     stopping = true;
-    log.info({ signal, inFlight: http.inFlight() }, "Stopping: no new connections; finishing the requests in flight");
-    const { cut } = await http.close(env.SHUTDOWN_GRACE_SECONDS * 1000);
+    log.info({ signal, inFlight: http.inFlight() }, "Stopping: finishing the requests in flight");
+    const { cut } = await http.close(env.SHUTDOWN_GRACE_SECONDS * 1000, () => log.info({ inFlight: http.inFlight() }, "No longer accepting connections"));
     if (cut) log.warn({ cut }, `Cut ${cut} request(s) still running after ${env.SHUTDOWN_GRACE_SECONDS} s`);
     await app.deps.backups.stop();
     await atMost(2000, outbox?.close());

@@ -50,8 +50,8 @@ describe("stopping with requests in flight", () => {
     await answered;
     server.proc.kill("SIGTERM");
     signalledAt = Date.now();
-    // Once the server has begun to stop, a new connection is refused.
-    for (let waited = 0; waited < 5000 && !server.stdout().includes("Stopping"); waited += 5) await new Promise((r) => setTimeout(r, 5));
+    // Once the server has stopped listening, a new connection is refused.
+    for (let waited = 0; waited < 5000 && !server.stdout().includes("No longer accepting connections"); waited += 5) await new Promise((r) => setTimeout(r, 5));
     const late = await new Promise<string>((resolve) => {
       const socket = connect(Number(new URL(base).port), "127.0.0.1");
       socket.once("connect", () => (socket.destroy(), resolve("connected")));
