@@ -11,7 +11,9 @@ export type Guard = RequestHandler & { access: Access | "public" };
  * `allow("office")`, `allow("staff")`, … or `allow("public")`. 401 when signed out, 403 for a role outside the group.
  */
 export function allow(access: Access | "public"): Guard {
-  const handler: RequestHandler = (_req, res, next) => {
+  const handler: RequestHandler = (req, res, next) => {
+    // The route pattern for the request's log line, noted here because every API route starts with its guard.
+    res.locals.route ??= req.route?.path === "/" ? req.baseUrl : `${req.baseUrl}${req.route?.path ?? ""}`;
     if (access === "public") return next();
     const actor = res.locals.actor;
     if (!actor) return next(unauthenticated());

@@ -47,6 +47,11 @@ export const shopSettingsSchema = z.object({
   /** Optional VOC mass caps from the shop's air permit, in kg. */
   vocMonthlyCapKg: z.coerce.number().positive().max(1e6).nullable().default(null),
   vocYearlyCapKg: z.coerce.number().positive().max(1e7).nullable().default(null),
+  /** The owner's dashboard warns when the free space left for the data folder falls below this many GB. */
+  lowDiskWarningGb: z.coerce
+    .number({ error: "Low-disk warning must be a number of GB" })
+    .min(0, "Low-disk warning cannot be negative")
+    .max(100_000, "Low-disk warning is limited to 100000 GB"),
 });
 export type ShopSettings = z.infer<typeof shopSettingsSchema>;
 
@@ -79,4 +84,5 @@ export const DEFAULT_SETTINGS: ShopSettings = {
   vocLimits: [],
   vocMonthlyCapKg: null,
   vocYearlyCapKg: null,
+  lowDiskWarningGb: 2,
 };

@@ -1,6 +1,7 @@
 import { and, asc, desc, eq, inArray, isNull, or, type SQL } from "drizzle-orm";
 import type Stripe from "stripe";
 import type { AppDeps } from "../../deps";
+import type { Logger } from "../../log/logger";
 import { checkoutSessions, customers, jobStageEvents, jobs, payments, quoteVersions, refunds, users, webhookEvents } from "../../db/schema";
 import { badRequest, conflict, HttpError, notFound } from "../../http/http-error";
 import type { RequestContext } from "../../http/context";
@@ -31,14 +32,14 @@ function requirePayments(deps: AppDeps) {
   return deps.payments;
 }
 
-function upstream(err: unknown, doing: string): never {
+function upstream(log: Logger, err: unknown, doing: string): never {
   const message = err instanceof Error ? err.message : String(err);
   // The provider answered and refused the request (e.g. a refund larger than what it still holds): a conflict
   // the shop can act on, not an outage. Anything else (unreachable, 5xx) is a bad gateway.
   const providerStatus = (err as { statusCode?: unknown })?.statusCode;
   if (typeof providerStatus === "number" && providerStatus >= 400 && providerStatus < 500)
     throw new HttpError(409, "conflict", `The payment provider refused to ${doing}: ${message}`);
-  console.error(`[payments] ${doing} failed:`, message);
+  log.error({ err: { message } }, `payments: ${doing} failed`);
   throw new HttpError(502, "upstream_failed", `The payment provider could not ${doing}: ${message}`);
 }
 
@@ -75,9 +76,9 @@ export async function createCheckout(deps: AppDeps, viewer: PortalViewer, quoteI
       cancel_url: `${back}?cancelled=1`,
     });
   } catch (err) {
-    upstream(err, "start the checkout");
+    upstream(deps.log, err, "start the checkout");
   }
-  if (!session.url) upstream(new Error("no checkout address was returned"), "start the checkout");
+  if (!session.url) upstream(deps.log, new Error("no checkout address was returned"), "start the checkout");
   deps.db
     .insert(checkoutSessions)
     .values({
@@ -346,7 +347,7 @@ export async function requestRefund(deps: AppDeps, ctx: RequestContext, id: numb
       metadata: { paymentId: String(p.id), requestedBy: ctx.actor.id, reason: input.reason ?? "" },
     });
   } catch (err) {
-    upstream(err, "make the refund");
+    upstream(deps.log, err, "make the refund");
   }
   deps.db.transaction((tx) =>
     recordAudit(tx, ctx, { kind: "money", entity: "payment", entityId: p.id, action: "refund_requested", after: { amountCents: amount, refundId: refund.id, reason: input.reason ?? null } }, deps.now()),
