@@ -26,3 +26,14 @@ export function requiredText(max: number, label: string) {
 
 /** Calendar date as YYYY-MM-DD (a due date has no time of day). */
 export const isoDateSchema = z.iso.date({ error: "Use a date like 2026-12-31" });
+
+type Patched<T extends z.ZodRawShape> = { [K in keyof T]: z.ZodOptional<T[K] extends z.ZodDefault<infer Inner> ? Inner : T[K]> };
+
+/**
+ * The PATCH form of an object schema: every field optional, and no field's `.default()` filled in. (`.partial()`
+ * alone still applies defaults, so a PATCH that sent one field reset every defaulted field it left out.)
+ */
+export function patchSchemaOf<T extends z.ZodRawShape>(schema: z.ZodObject<T>): z.ZodObject<Patched<T>> {
+  const shape = Object.fromEntries(Object.entries(schema.shape).map(([key, field]) => [key, ((field instanceof z.ZodDefault ? field.removeDefault() : field) as z.ZodType).optional()]));
+  return z.object(shape) as unknown as z.ZodObject<Patched<T>>;
+}
