@@ -1,7 +1,17 @@
 import { z } from "zod";
 
-/** Positive integer id from a path or body (coerced from strings). */
-export const idSchema = z.coerce.number({ error: "Must be a number" }).int("Must be a whole number").positive("Must be a positive id");
+/**
+ * A whole number sent as text (an address, a query string, a form field) is read only when it is plain decimal
+ * digits: "0x10", "1e1", " 16" or "016" stay text and fail the number check, where `Number()` would read them as 16
+ * or 10 and reach another record.
+ */
+export const fromDigits = (v: unknown) => (typeof v === "string" && /^(0|[1-9][0-9]{0,15})$/.test(v) ? Number(v) : v);
+
+/** Positive integer id from a path, query, form field (decimal digits only) or JSON body (a number). */
+export const idSchema = z.preprocess(
+  fromDigits,
+  z.number({ error: "Must be a number (digits only)" }).int("Must be a whole number").positive("Must be a positive id").max(Number.MAX_SAFE_INTEGER, "Must be a valid id"),
+);
 
 export const idParamsSchema = z.object({ id: idSchema });
 
