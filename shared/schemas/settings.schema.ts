@@ -2,6 +2,7 @@ import { z } from "zod";
 import { VOLUME_UNIT_IDS } from "../mix/index";
 import { AREA_UNITS } from "../domain/substrates";
 import { LAYER_KINDS } from "../domain/layers";
+import { patchSchemaOf } from "./common.schema";
 
 /** Kinds of quote line a shop may charge sales tax on (which kinds are taxed depends on the state). */
 export const TAXABLE_LINE_KINDS = ["labour", "materials", "supplies", "sublet"] as const;
@@ -55,7 +56,7 @@ export const shopSettingsSchema = z.object({
 });
 export type ShopSettings = z.infer<typeof shopSettingsSchema>;
 
-export const updateShopSettingsSchema = shopSettingsSchema.partial().refine((s) => s.deltaEMatch === undefined || s.deltaEClose === undefined || s.deltaEMatch <= s.deltaEClose, {
+export const updateShopSettingsSchema = patchSchemaOf(shopSettingsSchema).refine((s) => s.deltaEMatch === undefined || s.deltaEClose === undefined || s.deltaEMatch <= s.deltaEClose, {
   path: ["deltaEClose"],
   message: "The 'close' threshold must be at least the 'match' threshold",
 });
