@@ -91,6 +91,7 @@ export const PATCH_SPECS: Record<string, PatchSpec> = {
       ),
       vocMonthlyCapKg: one("vocMonthlyCapKg", fc.option(decimal(1, 1000), { nil: null })),
       vocYearlyCapKg: one("vocYearlyCapKg", fc.option(decimal(1, 10000), { nil: null })),
+      lowDiskWarningGb: one("lowDiskWarningGb", decimal(0, 1000)),
     },
   },
   "PATCH /api/customers/:id": {
