@@ -7,6 +7,7 @@ import type { Db } from "./db/client";
 import type { AppDeps } from "./deps";
 import { createLucia } from "./auth/lucia";
 import { sessionMiddleware } from "./auth/session";
+import { createSignInLimits } from "./auth/sign-in-limits";
 import { originCheck } from "./http/origin-check";
 import { errorHandler, notFoundHandler } from "./http/error-handler";
 import { listRoutes } from "./http/route-list";
@@ -58,6 +59,11 @@ export type CreateAppOptions = {
 };
 
 export function createApp(options: CreateAppOptions) {
+  const rateLimits: AppDeps["rateLimits"] = {
+    signIn: { perAddress: 30, perAccount: 8, windowMs: 15 * 60_000 },
+    passwordReset: 10,
+    ...options.rateLimits,
+  };
   const deps: AppDeps = {
     db: options.db,
     lucia: createLucia(options.db),
@@ -68,11 +74,8 @@ export function createApp(options: CreateAppOptions) {
     dataDir: options.dataDir ?? "./data",
     uploadsDir: path.join(options.dataDir ?? "./data", "uploads"),
     now: options.now ?? Date.now,
-    rateLimits: {
-      signIn: { perAddress: 30, perAccount: 8, windowMs: 15 * 60_000 },
-      passwordReset: 10,
-      ...options.rateLimits,
-    },
+    rateLimits,
+    signInLimits: createSignInLimits(rateLimits.signIn),
     clientDir: options.clientDir ?? null,
     appSecret: options.appSecret ?? randomBytes(32).toString("hex"),
     payments: options.payments ? createPayments(options.payments) : null,
