@@ -14,6 +14,9 @@ import { listRoutes } from "./http/route-list";
 import type { Mailer } from "./mail/mailer";
 import { createPayments, type PaymentsConfig } from "./payments/provider";
 import { keepRawBody } from "./http/raw-body";
+import { errorBodiesCarryRequestId, requestLog } from "./http/request-log";
+import { silentLogger, type Logger } from "./log/logger";
+import { createBackupService, type BackupSettings } from "./backups/backup-service";
 import { gzippedAssets } from "./http/gzipped-assets";
 import { authRouter } from "./modules/auth/auth.router";
 import { healthRouter } from "./modules/health/health.router";
@@ -56,9 +59,16 @@ export type CreateAppOptions = {
   appSecret?: string;
   /** Card payments through the provider's SDK (the real service or the local stand-in); none when omitted. */
   payments?: PaymentsConfig | null;
+  /** Where request lines and events go; nothing is logged when omitted (tests). */
+  logger?: Logger;
+  /** Backup folder, interval and how many to keep; defaults DATA_DIR/backups, 24 hours, 14. */
+  backups?: Partial<BackupSettings>;
 };
 
 export function createApp(options: CreateAppOptions) {
+  const dataDir = options.dataDir ?? "./data";
+  const log = options.logger ?? silentLogger;
+  const now = options.now ?? Date.now;
   const rateLimits: AppDeps["rateLimits"] = {
     signIn: { perAddress: 30, perAccount: 8, windowMs: 15 * 60_000 },
     passwordReset: 10,
@@ -71,18 +81,31 @@ export function createApp(options: CreateAppOptions) {
     publicUrl: (options.publicUrl ?? "http://localhost:3000").replace(/\/$/, ""),
     demoMode: options.demoMode ?? false,
     outboxDir: options.outboxDir ?? null,
-    dataDir: options.dataDir ?? "./data",
-    uploadsDir: path.join(options.dataDir ?? "./data", "uploads"),
-    now: options.now ?? Date.now,
+    dataDir,
+    uploadsDir: path.join(dataDir, "uploads"),
+    now,
     rateLimits,
     signInLimits: createSignInLimits(rateLimits.signIn),
     clientDir: options.clientDir ?? null,
     appSecret: options.appSecret ?? randomBytes(32).toString("hex"),
     payments: options.payments ? createPayments(options.payments) : null,
+    log,
+    backups: createBackupService({
+      dir: options.backups?.dir ?? path.join(dataDir, "backups"),
+      everyHours: options.backups?.everyHours ?? 24,
+      keep: options.backups?.keep ?? 14,
+      sqlite: options.db.$client,
+      uploadsDir: path.join(dataDir, "uploads"),
+      log,
+      now,
+    }),
   };
 
   const app = express();
   app.disable("x-powered-by");
+  // First, so every answer (static files and refusals included) carries X-Request-Id and gets its log line.
+  app.use(requestLog(log));
+  app.use(errorBodiesCarryRequestId);
   if (options.trustProxy) app.set("trust proxy", 1);
   app.use(
     helmet({

@@ -28,6 +28,14 @@ const envSchema = z.object({
   STRIPE_API_HOST: z.string().min(1).optional(),
   STRIPE_API_PORT: z.coerce.number().int().positive().max(65535).optional(),
   STRIPE_API_PROTOCOL: z.enum(["http", "https"]).optional(),
+  /** Scheduled online backups: where they go, how often (hours, fractions allowed; 0 turns the schedule off), how many to keep. */
+  BACKUP_DIR: z.string().min(1).optional(),
+  BACKUP_EVERY_HOURS: z.coerce.number({ error: "BACKUP_EVERY_HOURS must be a number of hours" }).min(0).max(24 * 366).default(24),
+  BACKUP_KEEP: z.coerce.number().int().min(1, "BACKUP_KEEP must keep at least one backup").max(10_000).default(14),
+  /** Log level of the JSON log on stdout. */
+  LOG_LEVEL: z.enum(["fatal", "error", "warn", "info", "debug", "trace", "silent"]).default("info"),
+  /** How long a stop (SIGTERM, SIGINT) waits for requests in flight before closing their connections. */
+  SHUTDOWN_GRACE_SECONDS: z.coerce.number().min(0).max(600).default(10),
 });
 
 export type Env = z.infer<typeof envSchema>;
@@ -47,6 +55,7 @@ export function readEnv(source: NodeJS.ProcessEnv = process.env) {
     uploadsDir: path.join(dataDir, "uploads"),
     outboxDir: path.join(dataDir, "outbox"),
     secretFile: path.join(dataDir, "secret"),
+    backupDir: path.resolve(env.BACKUP_DIR ?? path.join(dataDir, "backups")),
     demoMode: env.DEMO_MODE ? env.DEMO_MODE === "1" : !env.SMTP_HOST,
   };
 }

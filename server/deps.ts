@@ -3,6 +3,8 @@ import type { AppLucia } from "./auth/lucia";
 import type { Mailer } from "./mail/mailer";
 import type { Payments } from "./payments/provider";
 import type { SignInLimits } from "./auth/sign-in-limits";
+import type { Logger } from "./log/logger";
+import type { BackupService } from "./backups/backup-service";
 
 /** Everything a router or service needs from the outside world; tests build their own. */
 export type AppDeps = {
@@ -26,4 +28,7 @@ export type AppDeps = {
   appSecret: string;
   /** The card-payment provider's SDK (real or the local stand-in); null when online payments are not set up. */
   payments: Payments | null;
+  log: Logger;
+  /** Scheduled and on-demand backups of the database and uploads (main() starts the schedule). */
+  backups: BackupService;
 };

@@ -57,6 +57,6 @@ function stepWritesToTheEnd(stmt: Database.Statement): Database.Statement {
   return stmt;
 }
 
-export function migrateDb(db: Db): void {
-  migrate(db, { migrationsFolder: MIGRATIONS_FOLDER });
+export function migrateDb(db: Db, migrationsFolder = MIGRATIONS_FOLDER): void {
+  migrate(db, { migrationsFolder });
 }

@@ -12,10 +12,11 @@ export const notFoundHandler: RequestHandler = (req, res) => {
 type BodyParserError = Error & { type?: string; status?: number; statusCode?: number };
 
 /** The one place that decides an error's status and body. Unknown errors are logged and answered without details. */
-export const errorHandler: ErrorRequestHandler = (err: unknown, req, res, _next) => {
+export const errorHandler: ErrorRequestHandler = (err: unknown, _req, res, _next) => {
   if (res.headersSent) return;
   if (isStorageFull(err)) {
-    console.error(`[storage full] ${req.method} ${req.originalUrl} refused: the disk is full`);
+    // The request's log line (a 5xx, so at error level) carries the disk error: the owner's log says why it was refused.
+    res.err = err instanceof Error ? err : new Error(String(err));
     err = storageFull();
   }
   if (err instanceof HttpError) {
@@ -55,6 +56,7 @@ export const errorHandler: ErrorRequestHandler = (err: unknown, req, res, _next)
     res.status(status).json({ error: { code: "bad_request", message: e.message || "Bad request" } });
     return;
   }
-  console.error(`[error] ${req.method} ${req.originalUrl}`, err);
+  // The request's log line (http/request-log.ts) carries the error and its stack, under the request id the body quotes.
+  res.err = err instanceof Error ? err : new Error(String(err));
   res.status(500).json({ error: { code: "internal", message: "Something went wrong on our side. Nothing you sent was lost; try again." } });
 };

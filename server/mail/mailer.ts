@@ -1,5 +1,6 @@
 import nodemailer from "nodemailer";
 import { HttpError } from "../http/http-error";
+import { silentLogger, type Logger } from "../log/logger";
 
 export type MailMessage = {
   to: string;
@@ -14,7 +15,7 @@ export type Mailer = { send(message: MailMessage): Promise<{ messageId: string }
 export type SmtpSettings = { host: string; port: number; secure?: boolean; user?: string; pass?: string; from: string };
 
 /** Sends through any SMTP server: a real relay in production, the local outbox stand-in in the demo and tests. */
-export function createSmtpMailer(settings: SmtpSettings): Mailer {
+export function createSmtpMailer(settings: SmtpSettings, log: Logger = silentLogger): Mailer {
   const transport = nodemailer.createTransport({
     host: settings.host,
     port: settings.port,
@@ -30,7 +31,7 @@ export function createSmtpMailer(settings: SmtpSettings): Mailer {
         const info = await transport.sendMail({ from: settings.from, ...message });
         return { messageId: String(info.messageId) };
       } catch (err) {
-        console.error("[mail] sending failed:", (err as Error).message);
+        log.error({ err: { message: (err as Error).message, code: (err as { code?: unknown }).code } }, "mail: sending failed");
         throw new HttpError(502, "upstream_failed", "The mail server could not be reached, so nothing was sent. Try again in a moment.");
       }
     },

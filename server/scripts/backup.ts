@@ -1,36 +1,27 @@
 import Database from "better-sqlite3";
-import { existsSync, mkdirSync } from "node:fs";
-import path from "node:path";
+import { existsSync } from "node:fs";
 import { readEnv } from "../config";
+import { pruneBackups } from "../backups/backup-files";
+import { takeBackup } from "../backups/take-backup";
 
 /**
- * `npm run backup [-- <file>]`: a consistent copy of the live database through SQLite's online backup API,
- * safe while the server is running and writing. Default file: DATA_DIR/backups/coatwright-<time>.db.
+ * `npm run backup`: a backup now, the same as a scheduled one (database through SQLite's online backup API,
+ * integrity-checked, uploads copied beside it) into BACKUP_DIR. Safe while the server runs and writes.
  */
-export async function backupDatabase(dbFile: string, dest: string) {
-  if (!existsSync(dbFile)) throw new Error(`No database at ${dbFile}`);
-  mkdirSync(path.dirname(dest), { recursive: true });
-  const db = new Database(dbFile, { fileMustExist: true });
-  try {
-    db.pragma("busy_timeout = 5000");
-    await db.backup(dest);
-  } finally {
-    db.close();
-  }
-  const copy = new Database(dest, { readonly: true });
-  try {
-    const check = copy.pragma("integrity_check", { simple: true });
-    if (check !== "ok") throw new Error(`Backup failed its integrity check: ${String(check)}`);
-  } finally {
-    copy.close();
-  }
-  return dest;
+const env = readEnv();
+if (!existsSync(env.dbFile)) {
+  console.error(`No database at ${env.dbFile}`);
+  process.exit(1);
 }
-
-if (import.meta.url === `file://${process.argv[1]}`) {
-  const env = readEnv();
-  const stamp = new Date().toISOString().replace(/[:.]/g, "-");
-  const dest = path.resolve(process.argv[2] ?? path.join(env.dataDir, "backups", `coatwright-${stamp}.db`));
-  await backupDatabase(env.dbFile, dest);
-  console.log(`Backed up ${env.dbFile} to ${dest}`);
+const sqlite = new Database(env.dbFile, { fileMustExist: true });
+sqlite.pragma("busy_timeout = 5000");
+try {
+  const info = await takeBackup({ sqlite, uploadsDir: env.uploadsDir, backupDir: env.backupDir, kind: "manual" });
+  pruneBackups(env.backupDir, env.BACKUP_KEEP);
+  console.log(`Backed up ${env.dbFile} and ${info.uploads.files} uploaded files to ${info.path}`);
+} catch (err) {
+  console.error(`The backup failed: ${(err as Error).message}`);
+  process.exitCode = 1;
+} finally {
+  sqlite.close();
 }

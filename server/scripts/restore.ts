@@ -1,44 +1,26 @@
-import Database from "better-sqlite3";
-import { copyFileSync, existsSync, rmSync } from "node:fs";
 import { readEnv } from "../config";
+import { listBackups } from "../backups/backup-files";
+import { resolveBackup, restoreBackup } from "../backups/restore-backup";
 
 /**
- * `npm run restore -- <backup file>`: puts a backup back as the live database. Stop the server first:
- * the restore refuses while another process holds the database open for writing.
+ * `npm run restore -- <backup>`: puts a backup's database and uploads back. Stop the server first. Without an
+ * argument, lists the backups in BACKUP_DIR.
  */
-export function restoreDatabase(backupFile: string, dbFile: string) {
-  if (!existsSync(backupFile)) throw new Error(`No backup at ${backupFile}`);
-  const src = new Database(backupFile, { readonly: true, fileMustExist: true });
-  try {
-    const check = src.pragma("integrity_check", { simple: true });
-    if (check !== "ok") throw new Error(`The backup is damaged (${String(check)}); nothing was restored`);
-  } finally {
-    src.close();
-  }
-  if (existsSync(dbFile)) {
-    // In WAL mode only exclusive locking mode fails while another connection (a running server) has the file open.
-    const live = new Database(dbFile, { timeout: 0 });
-    try {
-      live.pragma("locking_mode = EXCLUSIVE");
-      live.exec("BEGIN EXCLUSIVE; COMMIT;");
-    } catch {
-      throw new Error("The database is in use; stop the server before restoring");
-    } finally {
-      live.close();
-    }
-  }
-  for (const suffix of ["-wal", "-shm"]) rmSync(dbFile + suffix, { force: true });
-  copyFileSync(backupFile, dbFile);
-  return dbFile;
+const env = readEnv();
+const arg = process.argv[2];
+if (!arg) {
+  const all = listBackups(env.backupDir);
+  console.log(all.length ? `Backups in ${env.backupDir} (newest first):` : `No backups in ${env.backupDir}.`);
+  for (const b of all) console.log(`  ${b.name}  ${(b.totalBytes / 1e6).toFixed(1)} MB, ${b.uploads.files} uploaded files, app ${b.appVersion}`);
+  console.log("Usage: npm run restore -- <backup name or folder>");
+  process.exit(all.length ? 0 : 2);
 }
-
-if (import.meta.url === `file://${process.argv[1]}`) {
-  const env = readEnv();
-  const file = process.argv[2];
-  if (!file) {
-    console.error("Usage: npm run restore -- <backup file>");
-    process.exit(2);
-  }
-  restoreDatabase(file, env.dbFile);
-  console.log(`Restored ${file} into ${env.dbFile}`);
+try {
+  const backup = resolveBackup(arg, env.backupDir);
+  const result = restoreBackup(backup, { dbFile: env.dbFile, uploadsDir: env.uploadsDir });
+  console.log(`Restored ${backup.info?.name ?? backup.dbPath} into ${env.dataDir}${result.restoredUploads ? " (database and uploads)" : " (database only; uploads left as they were)"}.`);
+  if (result.setAside) console.log(`What it replaced was moved to ${result.setAside}; delete that folder once you are sure.`);
+} catch (err) {
+  console.error((err as Error).message);
+  process.exit(1);
 }

@@ -21,7 +21,7 @@ import Stripe from "stripe";
  *
  * For tests (and a curious developer) it can misbehave on purpose: deliver every event twice, hold events and
  * deliver them in reverse order, or report a paid amount different from the session's. See `control` and the
- * /_control endpoints.
+ * /_control endpoints (which need the secret key, as the API does).
  */
 
 export const TEST_CARDS = { pays: "4242424242424242", declined: "4000000000000002" } as const;
@@ -482,7 +482,13 @@ export async function startPaymentsStandIn(options: PaymentsStandInOptions = {})
       return true;
     },
   };
+  // The controls change what the stand-in reports as paid and re-send events, so they need the stand-in's own
+  // secret key (as its API does), like any other caller of a payment provider.
   const ctl = express.Router();
+  ctl.use((req, res, next) => {
+    if (req.headers.authorization !== `Bearer ${apiKey}`) return apiError(res, 401, "The stand-in's controls need its secret key: Authorization: Bearer <secret key>.");
+    next();
+  });
   ctl.use(express.json());
   ctl.post("/mode", (req, res) => {
     const b = req.body ?? {};

@@ -1,11 +1,15 @@
 import { z } from "zod";
 
-/** Every failed API response has this body. `fields` maps a field path ("email", "items.0.name") to a message. */
+/**
+ * Every failed API response has this body. `fields` maps a field path ("email", "items.0.name") to a message;
+ * `requestId` is the id of the request in the server's log (also sent as X-Request-Id), for a user to quote.
+ */
 export const apiErrorBodySchema = z.object({
   error: z.object({
     code: z.string(),
     message: z.string(),
     fields: z.record(z.string(), z.string()).optional(),
+    requestId: z.string().optional(),
   }),
 });
 export type ApiErrorBody = z.infer<typeof apiErrorBodySchema>;

@@ -1,7 +1,17 @@
 import { z } from "zod";
 
-/** Positive integer id from a path or body (coerced from strings). */
-export const idSchema = z.coerce.number({ error: "Must be a number" }).int("Must be a whole number").positive("Must be a positive id");
+/**
+ * A whole number sent as text (an address, a query string, a form field) is read only when it is plain decimal
+ * digits: "0x10", "1e1", " 16" or "016" stay text and fail the number check, where `Number()` would read them as 16
+ * or 10 and reach another record.
+ */
+export const fromDigits = (v: unknown) => (typeof v === "string" && /^(0|[1-9][0-9]{0,15})$/.test(v) ? Number(v) : v);
+
+/** Positive integer id from a path, query, form field (decimal digits only) or JSON body (a number). */
+export const idSchema = z.preprocess(
+  fromDigits,
+  z.number({ error: "Must be a number (digits only)" }).int("Must be a whole number").positive("Must be a positive id").max(Number.MAX_SAFE_INTEGER, "Must be a valid id"),
+);
 
 export const idParamsSchema = z.object({ id: idSchema });
 
@@ -26,3 +36,14 @@ export function requiredText(max: number, label: string) {
 
 /** Calendar date as YYYY-MM-DD (a due date has no time of day). */
 export const isoDateSchema = z.iso.date({ error: "Use a date like 2026-12-31" });
+
+type Patched<T extends z.ZodRawShape> = { [K in keyof T]: z.ZodOptional<T[K] extends z.ZodDefault<infer Inner> ? Inner : T[K]> };
+
+/**
+ * The PATCH form of an object schema: every field optional, and no field's `.default()` filled in. (`.partial()`
+ * alone still applies defaults, so a PATCH that sent one field reset every defaulted field it left out.)
+ */
+export function patchSchemaOf<T extends z.ZodRawShape>(schema: z.ZodObject<T>): z.ZodObject<Patched<T>> {
+  const shape = Object.fromEntries(Object.entries(schema.shape).map(([key, field]) => [key, ((field instanceof z.ZodDefault ? field.removeDefault() : field) as z.ZodType).optional()]));
+  return z.object(shape) as unknown as z.ZodObject<Patched<T>>;
+}

@@ -21,4 +21,19 @@ export type DashboardMoneyDto = {
   boothHoursByPainter: { painterId: string | null; painterName: string; hours: number; coats: number }[];
 };
 
-export type DashboardDto = { generatedAt: string; jobs: DashboardJobsDto; money: DashboardMoneyDto | null };
+/** What only the owner sees about the machine: backups and the room left for the data. */
+export type DashboardSystemDto = {
+  backups: {
+    dir: string;
+    everyHours: number;
+    keep: number;
+    count: number;
+    last: { name: string; takenAt: string; sizeBytes: number; uploadFiles: number } | null;
+    lastFailure: { at: string; message: string } | null;
+    overdue: boolean;
+  };
+  /** Free space for the data folder (null when the system cannot say), and the shop's warning threshold. */
+  disk: { dataDir: string; freeBytes: number; sizeBytes: number; warnBelowBytes: number; low: boolean } | null;
+};
+
+export type DashboardDto = { generatedAt: string; jobs: DashboardJobsDto; money: DashboardMoneyDto | null; system: DashboardSystemDto | null };

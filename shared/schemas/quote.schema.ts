@@ -1,5 +1,5 @@
 import { z } from "zod";
-import { idSchema, isoDateSchema, optionalText, requiredText } from "./common.schema";
+import { fromDigits, idSchema, isoDateSchema, optionalText, requiredText } from "./common.schema";
 import { pageQuerySchema, sortSchema } from "../api/pagination";
 import { hasAtMostDecimals } from "../quote/money";
 import { QUOTE_LINE_KINDS, TAXABLE_KINDS, type QuoteLine, type QuoteLineKind, type QuoteTotals, type TaxableKind, type TaxRounding } from "../quote/totals";
@@ -120,11 +120,11 @@ export type ListQuotesQuery = z.infer<typeof listQuotesQuerySchema>;
 
 export const quoteVersionParamsSchema = z.object({
   id: idSchema,
-  version: z.coerce.number({ error: "Version must be a number" }).int("Version is a whole number").min(1, "Versions start at 1").max(10_000),
+  version: z.preprocess(fromDigits, z.number({ error: "Version must be a number" }).int("Version is a whole number").min(1, "Versions start at 1").max(10_000)),
 });
 
 export const quotePdfQuerySchema = z.object({
-  version: z.coerce.number({ error: "Version must be a number" }).int().min(1).max(10_000).optional(),
+  version: z.preprocess(fromDigits, z.number({ error: "Version must be a number" }).int().min(1).max(10_000)).optional(),
 });
 
 /** The customer's answer. Approving asks for their name as a signature. */

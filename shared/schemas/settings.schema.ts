@@ -2,6 +2,7 @@ import { z } from "zod";
 import { VOLUME_UNIT_IDS } from "../mix/index";
 import { AREA_UNITS } from "../domain/substrates";
 import { LAYER_KINDS } from "../domain/layers";
+import { patchSchemaOf } from "./common.schema";
 
 /** Kinds of quote line a shop may charge sales tax on (which kinds are taxed depends on the state). */
 export const TAXABLE_LINE_KINDS = ["labour", "materials", "supplies", "sublet"] as const;
@@ -47,10 +48,15 @@ export const shopSettingsSchema = z.object({
   /** Optional VOC mass caps from the shop's air permit, in kg. */
   vocMonthlyCapKg: z.coerce.number().positive().max(1e6).nullable().default(null),
   vocYearlyCapKg: z.coerce.number().positive().max(1e7).nullable().default(null),
+  /** The owner's dashboard warns when the free space left for the data folder falls below this many GB. */
+  lowDiskWarningGb: z.coerce
+    .number({ error: "Low-disk warning must be a number of GB" })
+    .min(0, "Low-disk warning cannot be negative")
+    .max(100_000, "Low-disk warning is limited to 100000 GB"),
 });
 export type ShopSettings = z.infer<typeof shopSettingsSchema>;
 
-export const updateShopSettingsSchema = shopSettingsSchema.partial().refine((s) => s.deltaEMatch === undefined || s.deltaEClose === undefined || s.deltaEMatch <= s.deltaEClose, {
+export const updateShopSettingsSchema = patchSchemaOf(shopSettingsSchema).refine((s) => s.deltaEMatch === undefined || s.deltaEClose === undefined || s.deltaEMatch <= s.deltaEClose, {
   path: ["deltaEClose"],
   message: "The 'close' threshold must be at least the 'match' threshold",
 });
@@ -79,4 +85,5 @@ export const DEFAULT_SETTINGS: ShopSettings = {
   vocLimits: [],
   vocMonthlyCapKg: null,
   vocYearlyCapKg: null,
+  lowDiskWarningGb: 2,
 };

@@ -5,13 +5,16 @@ export class ApiError extends Error {
   readonly status: number;
   readonly code: string;
   readonly fields: Record<string, string>;
+  /** The server's id for the request (in its log), for the user to quote when reporting a problem. */
+  readonly requestId: string | null;
 
-  constructor(status: number, code: string, message: string, fields: Record<string, string> = {}) {
+  constructor(status: number, code: string, message: string, fields: Record<string, string> = {}, requestId: string | null = null) {
     super(message);
     this.name = "ApiError";
     this.status = status;
     this.code = code;
     this.fields = fields;
+    this.requestId = requestId;
   }
 
   get isClientError() {
@@ -63,16 +66,17 @@ async function toApiError(response: Response): Promise<ApiError> {
     // Not JSON (a proxy page, an empty body): fall through to a generic message.
   }
   const parsed = apiErrorBodySchema.safeParse(body);
+  const requestId = response.headers.get("X-Request-Id");
   if (parsed.success) {
     const { code, message, fields } = parsed.data.error;
-    return new ApiError(response.status, code, message, fields);
+    return new ApiError(response.status, code, message, fields, parsed.data.error.requestId ?? requestId);
   }
   const code = FALLBACK_CODES[response.status] ?? (response.status >= 500 ? "internal" : "bad_request");
   const message =
     response.status >= 500
       ? `The server could not answer (${response.status}). Try again in a moment.`
       : `The request failed (${response.status} ${response.statusText || "error"}).`;
-  return new ApiError(response.status, code, message);
+  return new ApiError(response.status, code, message, {}, requestId);
 }
 
 async function request<T>(method: string, path: string, { query, body, signal }: RequestOptions = {}): Promise<T> {

@@ -56,6 +56,13 @@ describe("dashboard", () => {
     expect(await page.getByRole("heading", { name: "Deposits" }).count()).toBe(1);
     expect(await page.locator("dd").filter({ hasText: /^\$[\d,]+\.\d{2}$/ }).count()).toBeGreaterThanOrEqual(3);
 
+    // The machine: the backup the server took when it started, and the free space in its data folder.
+    const system = page.getByRole("region", { name: "Backups and disk" });
+    expect(await system.count()).toBe(1);
+    await expect.poll(() => system.getByTestId("last-backup").innerText(), { timeout: 10_000 }).not.toBe("None yet");
+    expect(await system.getByTestId("free-space").innerText()).toMatch(/^\d+(\.\d)? (KB|MB|GB|TB)$/);
+    expect(await system.innerText()).toMatch(/with \d+ uploaded files/);
+
     expect(await seriousViolations(page)).toEqual([]);
     await page.screenshot({ path: path.join(ARTEFACTS, "dashboard-owner.png"), fullPage: true });
     expect(errors).toEqual([]);
@@ -75,6 +82,7 @@ describe("dashboard", () => {
     expect(await page.getByTestId("chart-revenue").count()).toBe(0);
     expect(await page.getByTestId("chart-material-spend").count()).toBe(0);
     expect(await page.getByRole("heading", { name: "Deposits" }).count()).toBe(0);
+    expect(await page.getByRole("heading", { name: "Backups and disk" }).count()).toBe(0);
     expect(await page.locator("main").innerText()).not.toMatch(/\$\d/);
     expect(errors).toEqual([]);
     await close();

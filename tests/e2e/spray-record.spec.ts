@@ -32,12 +32,13 @@ describe("the spray record", () => {
     await page.goto(`${baseUrl}/jobs/${source.id}`);
     await page.getByRole("link", { name: "Open the finish record" }).click();
     await page.waitForURL(new RegExp(`/jobs/${source.id}/finish-record$`));
-    await page.getByRole("heading", { level: 1, name: source.title }).waitFor();
+    // The job page has the same heading: wait for the record itself (the next screen loads behind the current one).
+    await page.getByText(`Finish record · job #${source.id}`).waitFor();
     const sprayed = record.layers.filter((l) => l.coats.length > 0);
     expect(sprayed.length).toBeGreaterThan(0);
     for (const layer of sprayed) {
       const table = page.getByRole("table", { name: `Coats of ${layer.name}` });
-      expect(await table.getByRole("row").count()).toBe(layer.coats.length + 1);
+      await expect.poll(() => table.getByRole("row").count()).toBe(layer.coats.length + 1);
       expect(await table.innerText()).toContain(layer.coats[0]!.setup.summary);
     }
     await page.screenshot({ path: path.join(ARTEFACTS, "finish-record.png"), fullPage: true });

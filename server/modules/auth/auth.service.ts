@@ -46,6 +46,7 @@ export function requestPasswordReset(deps: AppDeps, email: string): void {
   const link = `${deps.publicUrl}/reset-password?token=${token}`;
   sendInBackground(
     deps.mailer,
+    deps.log,
     {
       to: user.email,
       subject: "Reset your Coatwright password",

@@ -1,8 +1,8 @@
 import { Router } from "express";
-import { stringify } from "csv-stringify/sync";
 import type { AppDeps } from "../../deps";
 import { allow } from "../../http/guard";
 import { query } from "../../http/validate";
+import { toCsv } from "../../http/csv";
 import { complianceQuerySchema } from "../../../shared/schemas/compliance.schema";
 import { complianceLog } from "./compliance.service";
 
@@ -50,7 +50,7 @@ export function complianceRouter(deps: AppDeps) {
     ]);
     res.type("text/csv; charset=utf-8");
     res.setHeader("Content-Disposition", `attachment; filename="voc-log-${q.from}-to-${q.to}.csv"`);
-    res.send(stringify([CSV_COLUMNS as unknown as string[], ...rows]));
+    res.send(toCsv([[...CSV_COLUMNS], ...rows]));
   });
   return r;
 }

@@ -4,6 +4,7 @@ import { awaitsReviewFlag } from "../payments/payment-review";
 import type { Actor } from "../../auth/session";
 import { STAGES, type Stage } from "../../../shared/domain/stages";
 import type { MaterialCategory } from "../../../shared/domain/materials";
+import { systemPart } from "./system.service";
 import type { DashboardDto, DashboardJobRef, DashboardJobsDto, DashboardMoneyDto } from "../../../shared/schemas/dashboard.schema";
 
 /**
@@ -113,5 +114,6 @@ function moneyPart(deps: AppDeps): DashboardMoneyDto {
 
 /** The owner sees everything; the estimator the jobs part only. */
 export function dashboard(deps: AppDeps, actor: Actor): DashboardDto {
-  return { generatedAt: new Date(deps.now()).toISOString(), jobs: jobsPart(deps), money: actor.role === "owner" ? moneyPart(deps) : null };
+  const owner = actor.role === "owner";
+  return { generatedAt: new Date(deps.now()).toISOString(), jobs: jobsPart(deps), money: owner ? moneyPart(deps) : null, system: owner ? systemPart(deps) : null };
 }

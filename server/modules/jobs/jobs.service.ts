@@ -20,6 +20,7 @@ import type {
 } from "../../../shared/schemas/job.schema";
 import { findJobFor, jobScope, preparedJobScope, scopeKind, scopeValues, type ScopeKind } from "./jobs.access";
 import { itemsOfJob } from "./job-items.service";
+import { checkCustomerMove } from "./job-customer";
 import { afterStageChange } from "../messages/messages.service";
 
 const painters = aliasedTable(users, "painter");
@@ -276,8 +277,9 @@ export function createJob(deps: AppDeps, actor: Actor, input: z.output<typeof cr
 }
 
 export function updateJob(deps: AppDeps, actor: Actor, id: number, input: z.output<typeof updateJobInputSchema>): JobDetailDto {
-  findJobFor(deps, actor, id);
+  const job = findJobFor(deps, actor, id);
   checkRefs(deps, input);
+  checkCustomerMove(deps, job, input.customerId);
   deps.db
     .update(jobs)
     .set({ ...input, updatedAt: deps.now() })

@@ -139,6 +139,6 @@ export function afterStageChange(deps: AppDeps, actor: Actor, jobId: number, to:
   void actor;
   sendReadyNotice(deps, null, jobId).catch((err) => {
     // Already logged as failed on the job by sendAndLog (when it got that far).
-    if (!(err instanceof HttpError)) console.error("[mail] ready notice failed:", err);
+    if (!(err instanceof HttpError)) deps.log.error({ err, jobId }, "mail: ready notice failed");
   });
 }

@@ -5,6 +5,7 @@ import { allow } from "../../http/guard";
 import { notFound } from "../../http/http-error";
 import { params } from "../../http/validate";
 import { readOutbox, readOutboxAttachment } from "../../stand-ins/smtp-outbox";
+import { fromDigits } from "../../../shared/schemas/common.schema";
 
 /** The local SMTP stand-in's outbox, readable by the owner in demo mode only. */
 export function outboxRouter(deps: AppDeps) {
@@ -17,7 +18,7 @@ export function outboxRouter(deps: AppDeps) {
     res.json({ items: readOutbox(requireDemo()) });
   });
   r.get("/:id/attachments/:index", allow("owner"), (req, res) => {
-    const p = params(req, z.object({ id: z.string().regex(/^[a-z0-9-]+$/), index: z.coerce.number().int().min(0) }));
+    const p = params(req, z.object({ id: z.string().regex(/^[a-z0-9-]+$/), index: z.preprocess(fromDigits, z.number().int().min(0)) }));
     const dir = requireDemo();
     const message = readOutbox(dir).find((m) => m.id === p.id);
     const meta = message?.attachments[p.index];

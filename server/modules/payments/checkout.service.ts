@@ -75,9 +75,9 @@ async function openCheckout(deps: AppDeps, viewer: PortalViewer, quoteId: number
       cancel_url: `${back}?cancelled=1`,
     });
   } catch (err) {
-    upstream(err, "start the checkout");
+    upstream(deps.log, err, "start the checkout");
   }
-  if (!session.url) upstream(new Error("no checkout address was returned"), "start the checkout");
+  if (!session.url) upstream(deps.log, new Error("no checkout address was returned"), "start the checkout");
   deps.db
     .insert(checkoutSessions)
     .values({
@@ -116,7 +116,7 @@ async function closeOpenCheckouts(deps: AppDeps, quoteId: number) {
       state = "expired";
     } catch (err) {
       const status = providerStatus(err);
-      if (status === undefined || status >= 500) upstream(err, "end the earlier checkout for this deposit");
+      if (status === undefined || status >= 500) upstream(deps.log, err, "end the earlier checkout for this deposit");
       state = await stateAtProvider(deps, id);
     }
     markCheckout(deps.db, id, state, deps.now());
@@ -133,7 +133,7 @@ async function stateAtProvider(deps: AppDeps, id: string): Promise<"expired" | "
     const s = await requirePayments(deps).stripe.checkout.sessions.retrieve(id);
     if (s.status === "complete") return "complete";
     if (s.status === "expired") return "expired";
-    return upstream(new Error(`the earlier checkout ${id} is still ${s.status} and could not be expired`), "end the earlier checkout for this deposit");
+    return upstream(deps.log, new Error(`the earlier checkout ${id} is still ${s.status} and could not be expired`), "end the earlier checkout for this deposit");
   } catch (err) {
     if (providerStatus(err) === 404) return "expired";
     throw err;

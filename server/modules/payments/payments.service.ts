@@ -297,7 +297,7 @@ export async function requestRefund(deps: AppDeps, ctx: RequestContext, id: numb
       metadata: { paymentId: String(p.id), requestedBy: ctx.actor.id, reason: input.reason ?? "" },
     });
   } catch (err) {
-    upstream(err, "make the refund");
+    upstream(deps.log, err, "make the refund");
   }
   deps.db.transaction((tx) =>
     recordAudit(tx, ctx, { kind: "money", entity: "payment", entityId: p.id, action: "refund_requested", after: { amountCents: amount, refundId: refund.id, reason: input.reason ?? null } }, deps.now()),

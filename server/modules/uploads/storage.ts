@@ -6,6 +6,7 @@ import type { RequestHandler } from "express";
 import sharp, { type OutputInfo } from "sharp";
 import { fileTypeFromBuffer } from "file-type";
 import { HttpError, isStorageFull, storageFull } from "../../http/http-error";
+import { acceptsFiles } from "../../http/media-type";
 
 export const MAX_PHOTO_BYTES = 15 * 1024 * 1024;
 export const MAX_DOCUMENT_BYTES = 20 * 1024 * 1024;
@@ -16,14 +17,14 @@ const DOCUMENT_TYPES = ["application/pdf", ...IMAGE_TYPES] as const;
 /** Multer keeping the file in memory (checked by content before anything touches the disk). */
 export function uploadMiddleware(maxBytes: number, field = "file"): RequestHandler {
   const receive = multer({ storage: multer.memoryStorage(), limits: { fileSize: maxBytes, files: 1, fields: 20 } }).single(field);
-  return (req, res, next) =>
+  return acceptsFiles((req, res, next) =>
     receive(req, res, (err: unknown) => {
       // Files are kept in memory, so any other error here is the multipart parser's (no boundary, cut-off body,
       // malformed part): the client's request is at fault, 400. Multer's own limit errors go on as they are.
       if (err instanceof Error && !(err instanceof multer.MulterError) && !(err instanceof HttpError))
         return next(new HttpError(400, "bad_request", `The upload could not be read: ${err.message}. Send the file as multipart/form-data.`, { [field]: err.message }));
       next(err);
-    });
+    }));
 }
 
 export type StoredFile = {

@@ -11,14 +11,15 @@ import {
   updateUploadInputSchema,
 } from "../../../shared/schemas/upload.schema";
 import { uploadMiddleware } from "./storage";
+import { acceptsFiles } from "../../http/media-type";
 import { createUpload, deleteUpload, listUploads, photoTooLarge, readUpload, updateUpload } from "./uploads.service";
 
 /** Multer in memory, with the size limit answered as a 413 that says what the limits are. */
 function receiveFile(): RequestHandler {
   const receive = uploadMiddleware(MAX_PHOTO_MB * 1024 * 1024);
-  return (req, res, next) => {
+  return acceptsFiles((req, res, next) => {
     receive(req, res, (err: unknown) => next(err instanceof multer.MulterError && err.code === "LIMIT_FILE_SIZE" ? photoTooLarge() : err));
-  };
+  });
 }
 
 export function uploadsRouter(deps: AppDeps) {

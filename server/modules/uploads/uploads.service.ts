@@ -21,8 +21,10 @@ const MB = 1024 * 1024;
 /**
  * The job an owner record belongs to (null for the panel library and materials), after checking that the actor
  * may reach it: painters their assigned jobs, customers their own, the office everything. Outside reads as 404.
+ * Test panels are the shop's shared library, so any staff member may look at a panel's photos (`read`); adding or
+ * changing one (`write`) follows the panel's job like every other job photo.
  */
-export function ownerJob(deps: AppDeps, actor: Actor, ownerType: UploadOwnerType, ownerId: number): number | null {
+export function ownerJob(deps: AppDeps, actor: Actor, ownerType: UploadOwnerType, ownerId: number, mode: "read" | "write" = "read"): number | null {
   const missing = () => notFound(OWNER_NAMES[ownerType]);
   let jobId: number | null;
   switch (ownerType) {
@@ -52,8 +54,10 @@ export function ownerJob(deps: AppDeps, actor: Actor, ownerType: UploadOwnerType
     }
   }
   if (jobId === -1) throw missing();
-  // Test panels are the shop's shared library: every staff member reaches them, whatever job they were made for.
-  if (ownerType === "panel" && actor.role !== "customer") return jobId;
+  if (ownerType === "panel" && actor.role !== "customer") {
+    if (mode === "write") checkPanelPhotoWrite(deps, actor, jobId);
+    return jobId;
+  }
   if (jobId !== null) {
     try {
       findJobFor(deps, actor, jobId);
@@ -64,6 +68,16 @@ export function ownerJob(deps: AppDeps, actor: Actor, ownerType: UploadOwnerType
     throw missing();
   }
   return jobId;
+}
+
+/** A photo of a job's test panel is added or changed only by those who reach the job: its painter and the office. */
+function checkPanelPhotoWrite(deps: AppDeps, actor: Actor, jobId: number | null) {
+  if (jobId === null) return;
+  try {
+    findJobFor(deps, actor, jobId);
+  } catch {
+    throw forbidden("This test panel belongs to a job you are not assigned to; its photos are added and changed by the painter on that job or the office");
+  }
 }
 
 const OWNER_NAMES: Record<UploadOwnerType, string> = {
@@ -125,7 +139,7 @@ export async function createUpload(
   fields: z.output<typeof createUploadFieldsSchema>,
   file: Express.Multer.File | undefined,
 ): Promise<UploadDto> {
-  const jobId = ownerJob(deps, actor, fields.ownerType, fields.ownerId);
+  const jobId = ownerJob(deps, actor, fields.ownerType, fields.ownerId, "write");
   if (!file) throw badRequest("Attach a file in the 'file' field", { file: "No file attached" });
   if (file.size > MAX_PHOTO_MB * MB) throw photoTooLarge(file.size);
   const stored = await storeFile(deps.uploadsDir, file, "photo");
@@ -171,13 +185,14 @@ export function listUploads(deps: AppDeps, actor: Actor, q: ListUploadsQuery): U
   return selectUploads(deps, and(...filters));
 }
 
-/** The upload row if the actor may see it; anything else is "not found". */
-function findUploadFor(deps: AppDeps, actor: Actor, id: number): UploadRow {
+/** The upload row if the actor may see it (anything else is "not found"), and for `write` may change it. */
+function findUploadFor(deps: AppDeps, actor: Actor, id: number, mode: "read" | "write" = "read"): UploadRow {
   const row = deps.db.select().from(uploads).where(eq(uploads.id, id)).get();
   if (!row) throw notFound("File");
   const staffLibrary = row.ownerType === "panel" && actor.role !== "customer";
   if (staffLibrary) {
-    // the panel library: any staff member
+    // the panel library: any staff member looks; changes follow the panel's job
+    if (mode === "write") checkPanelPhotoWrite(deps, actor, row.jobId);
   } else if (row.jobId !== null) {
     try {
       findJobFor(deps, actor, row.jobId);
@@ -206,7 +221,7 @@ function checkWrite(row: UploadRow) {
 }
 
 export function updateUpload(deps: AppDeps, actor: Actor, id: number, input: z.output<typeof updateUploadInputSchema>): UploadDto {
-  const row = findUploadFor(deps, actor, id);
+  const row = findUploadFor(deps, actor, id, "write");
   checkWrite(row);
   if (input.shareable && row.jobId === null) throw badRequest("Only photos of a customer's job can be shared", { shareable: "Not a job photo" });
   const updated = deps.db
@@ -225,7 +240,7 @@ export function updateUpload(deps: AppDeps, actor: Actor, id: number, input: z.o
 
 /** The office removes any file; a painter only files they uploaded themselves. */
 export function deleteUpload(deps: AppDeps, actor: Actor, id: number) {
-  const row = findUploadFor(deps, actor, id);
+  const row = findUploadFor(deps, actor, id, "write");
   checkWrite(row);
   if (actor.role === "painter" && row.uploadedBy !== actor.id) throw forbidden("Painters remove only the files they added; ask the office");
   deps.db.delete(uploads).where(eq(uploads.id, id)).run();

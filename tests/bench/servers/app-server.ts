@@ -15,6 +15,8 @@ const { createApp } = await import("../../../server/app");
 const { createSmtpMailer } = await import("../../../server/mail/mailer");
 const { startSmtpOutbox } = await import("../../../server/stand-ins/smtp-outbox");
 const { loadAppSecret } = await import("../../../server/app-secret");
+const { createLogger } = await import("../../../server/log/logger");
+const { pino } = await import("pino");
 
 const db = openDb(env.dbFile);
 const outbox = await startSmtpOutbox(env.outboxDir);
@@ -27,6 +29,8 @@ const app = createApp({
   outboxDir: outbox.dir,
   dataDir: env.dataDir,
   clientDir: path.resolve(process.env.BENCH_CLIENT_DIR ?? "dist"),
+  // Request lines are written as in production (a JSON line per request), to /dev/null.
+  logger: createLogger({ destination: pino.destination({ dest: "/dev/null", sync: true }) }),
   rateLimits: { signIn: { perAddress: env.SIGNIN_LIMIT_PER_ADDRESS, perAccount: env.SIGNIN_LIMIT_PER_ACCOUNT, windowMs: 15 * 60_000 } },
 });
 app.listen(env.PORT, "127.0.0.1", () => console.log(`app listening on ${env.PORT}`));

@@ -11,6 +11,7 @@ import { formatDateTime, formatShortDate } from "@/utils/format-date";
 import { formatNumber } from "@/utils/format-quantity";
 import { ChartFigure } from "./chart-figure";
 import { formatMonthLong, formatMonthShort } from "./format-month";
+import { SystemStatus } from "./system-status";
 
 // Theme colours (tailwind.config.ts): ink-600, candy-600, flake-600, emerald-700.
 const INK = "#363f6b";
@@ -27,6 +28,7 @@ export function DashboardView({ data }: { data: DashboardDto }) {
     <div className="flex flex-col gap-6">
       <p className="text-sm text-primer-700">Worked out from the records on {formatDateTime(data.generatedAt)}.</p>
       <JobsPart jobs={data.jobs} />
+      {data.system ? <SystemStatus system={data.system} /> : null}
       {data.money ? <MoneyPart money={data.money} /> : null}
     </div>
   );

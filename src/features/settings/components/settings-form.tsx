@@ -47,6 +47,7 @@ const TOP_FIELDS = [
   "vocLimits",
   "vocMonthlyCapKg",
   "vocYearlyCapKg",
+  "lowDiskWarningGb",
 ] as const;
 
 /** "" → null for the optional caps (an empty box means "no cap"). */
@@ -250,6 +251,18 @@ export function SettingsForm({
               hint="Leave empty for no yearly cap."
               error={errors.vocYearlyCapKg?.message}
               {...register("vocYearlyCapKg", { setValueAs: emptyToNull })}
+            />
+          </div>
+        </Group>
+
+        <Group title="Server">
+          <div className="grid gap-5 sm:grid-cols-2">
+            <TextField
+              label="Warn when free disk space is below (GB)"
+              inputMode="decimal"
+              hint="The dashboard warns when the data folder's disk has less room than this. 0 turns the warning off."
+              error={errors.lowDiskWarningGb?.message}
+              {...register("lowDiskWarningGb")}
             />
           </div>
         </Group>
