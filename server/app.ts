@@ -7,6 +7,7 @@ import type { Db } from "./db/client";
 import type { AppDeps } from "./deps";
 import { createLucia } from "./auth/lucia";
 import { sessionMiddleware } from "./auth/session";
+import { createSignInLimits } from "./auth/sign-in-limits";
 import { originCheck } from "./http/origin-check";
 import { errorHandler, notFoundHandler } from "./http/error-handler";
 import { listRoutes } from "./http/route-list";
@@ -68,6 +69,11 @@ export function createApp(options: CreateAppOptions) {
   const dataDir = options.dataDir ?? "./data";
   const log = options.logger ?? silentLogger;
   const now = options.now ?? Date.now;
+  const rateLimits: AppDeps["rateLimits"] = {
+    signIn: { perAddress: 30, perAccount: 8, windowMs: 15 * 60_000 },
+    passwordReset: 10,
+    ...options.rateLimits,
+  };
   const deps: AppDeps = {
     db: options.db,
     lucia: createLucia(options.db),
@@ -78,11 +84,8 @@ export function createApp(options: CreateAppOptions) {
     dataDir,
     uploadsDir: path.join(dataDir, "uploads"),
     now,
-    rateLimits: {
-      signIn: { perAddress: 30, perAccount: 8, windowMs: 15 * 60_000 },
-      passwordReset: 10,
-      ...options.rateLimits,
-    },
+    rateLimits,
+    signInLimits: createSignInLimits(rateLimits.signIn),
     clientDir: options.clientDir ?? null,
     appSecret: options.appSecret ?? randomBytes(32).toString("hex"),
     payments: options.payments ? createPayments(options.payments) : null,

@@ -2,6 +2,7 @@ import type { Db } from "./db/client";
 import type { AppLucia } from "./auth/lucia";
 import type { Mailer } from "./mail/mailer";
 import type { Payments } from "./payments/provider";
+import type { SignInLimits } from "./auth/sign-in-limits";
 import type { Logger } from "./log/logger";
 import type { BackupService } from "./backups/backup-service";
 
@@ -19,6 +20,8 @@ export type AppDeps = {
   uploadsDir: string;
   now: () => number;
   rateLimits: { signIn: { perAddress: number; perAccount: number; windowMs: number }; passwordReset: number };
+  /** The sign-in limiters built from rateLimits.signIn (the auth router uses them; a completed reset lifts an account's lock). */
+  signInLimits: SignInLimits;
   /** Path of the built SPA (dist/) to serve, or null for API only. */
   clientDir: string | null;
   /** Server secret for signing links (customer-portal quote links). */

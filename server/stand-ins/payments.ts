@@ -10,12 +10,13 @@ import Stripe from "stripe";
  *
  *   POST /v1/checkout/sessions        create a hosted checkout (mode "payment", one price_data line)
  *   GET  /v1/checkout/sessions/:id    read it back
+ *   POST /v1/checkout/sessions/:id/expire   end an open checkout: it can no longer be paid
  *   GET  /v1/payment_intents/:id      the payment behind a completed checkout
  *   POST /v1/refunds                  refund all or part of a payment intent
  *
  * It serves its own simple checkout page (GET /pay/:id) where the test card 4242 4242 4242 4242 pays and
  * 4000 0000 0000 0002 is declined, and it sends signed webhook events (checkout.session.completed,
- * payment_intent.succeeded, charge.refunded, refund.created …) to the product's webhook address, signed with
+ * payment_intent.succeeded, checkout.session.expired, charge.refunded, refund.created …) to the product's webhook address, signed with
  * the webhook secret exactly as the provider signs them. Deliveries that get no 2xx are retried a few times.
  *
  * For tests (and a curious developer) it can misbehave on purpose: deliver every event twice, hold events and
@@ -86,6 +87,8 @@ export type DeliveryMode = {
   reverse: boolean;
   /** Report this amount as paid instead of the session's amount (to test mismatch handling). */
   paidAmountOverride: number | null;
+  /** Answer every API call this many ms late, as a distant provider does (so two calls at once really overlap). */
+  apiLatencyMs: number;
 };
 
 export type PaymentsStandInOptions = {
@@ -100,6 +103,8 @@ export type PaymentsStandInOptions = {
   /** Do not keep the process alive just for this server (tests). */
   unref?: boolean;
 };
+
+const EXPIRED_MESSAGE = "This checkout has expired: a newer one was opened for the same payment. No money was taken. Go back and pay from there.";
 
 const rid = (prefix: string) => `${prefix}_test_${randomBytes(12).toString("hex")}`;
 const nowSec = () => Math.floor(Date.now() / 1000);
@@ -133,7 +138,7 @@ export async function startPaymentsStandIn(options: PaymentsStandInOptions = {})
   const pending = new Set<Promise<void>>();
   /** Every event made, by id, so it can be replayed. */
   const deliveredEvents = new Map<string, StandInEvent>();
-  const mode: DeliveryMode = { copies: 1, hold: false, reverse: false, paidAmountOverride: null };
+  const mode: DeliveryMode = { copies: 1, hold: false, reverse: false, paidAmountOverride: null, apiLatencyMs: 0 };
   let baseUrl = "";
 
   function makeEvent(type: string, object: unknown): StandInEvent {
@@ -237,10 +242,22 @@ export async function startPaymentsStandIn(options: PaymentsStandInOptions = {})
     emit("checkout.session.completed", session);
   }
 
+  /** Ends an open checkout, as the provider's expire call does; anything but an open one is refused. */
+  function expire(sessionId: string): { ok: true; session: Session } | { ok: false; status: number; message: string } {
+    const session = sessions.get(sessionId);
+    if (!session) return { ok: false, status: 404, message: `No such checkout.session: '${sessionId}'` };
+    if (session.status !== "open") return { ok: false, status: 400, message: `Only Checkout Sessions with a status of open can be expired. This one is ${session.status}.` };
+    session.status = "expired";
+    session.expires_at = nowSec();
+    emit("checkout.session.expired", session);
+    return { ok: true, session };
+  }
+
   /** What the checkout page does with a card number: "paid", "declined" or a message for other input. */
-  function pay(sessionId: string, cardNumber: string): { result: "paid" | "declined" | "invalid"; message?: string } {
+  function pay(sessionId: string, cardNumber: string): { result: "paid" | "declined" | "invalid" | "expired"; message?: string } {
     const session = sessions.get(sessionId);
     if (!session) return { result: "invalid", message: "This checkout does not exist." };
+    if (session.status === "expired") return { result: "expired", message: EXPIRED_MESSAGE };
     if (session.status !== "open") return { result: "invalid", message: "This checkout is already finished." };
     const digits = cardNumber.replace(/[\s-]/g, "");
     if (digits === TEST_CARDS.declined) {
@@ -261,7 +278,8 @@ export async function startPaymentsStandIn(options: PaymentsStandInOptions = {})
   v1.use(express.urlencoded({ extended: true }));
   v1.use((req, res, next) => {
     if (req.headers.authorization !== `Bearer ${apiKey}`) return apiError(res, 401, "Invalid API key provided.");
-    next();
+    if (mode.apiLatencyMs > 0) setTimeout(next, mode.apiLatencyMs);
+    else next();
   });
   v1.post("/checkout/sessions", (req, res) => {
     const b = req.body as Record<string, any>;
@@ -308,6 +326,11 @@ export async function startPaymentsStandIn(options: PaymentsStandInOptions = {})
     const s = sessions.get(req.params.id);
     if (!s) return apiError(res, 404, `No such checkout.session: '${req.params.id}'`, "invalid_request_error", { code: "resource_missing" });
     res.json(s);
+  });
+  v1.post("/checkout/sessions/:id/expire", (req, res) => {
+    const outcome = expire(req.params.id);
+    if (!outcome.ok) return apiError(res, outcome.status, outcome.message, "invalid_request_error", outcome.status === 404 ? { code: "resource_missing" } : {});
+    res.json(outcome.session);
   });
   v1.get("/payment_intents/:id", (req, res) => {
     const pi = intents.get(req.params.id);
@@ -388,6 +411,7 @@ export async function startPaymentsStandIn(options: PaymentsStandInOptions = {})
     ${line.description ? `<p class="muted">${escapeHtml(line.description)}</p>` : ""}
     <p class="amount">${escapeHtml(money(session.amount_total, session.currency))}</p>
     ${message ? `<div class="msg ${message.tone}" role="${message.tone === "error" ? "alert" : "status"}">${escapeHtml(message.text)}</div>` : ""}
+    ${session.status === "open" ? `
     <form method="post" action="/pay/${escapeHtml(session.id)}" autocomplete="off">
       <label for="card">Card number</label>
       <input id="card" name="card" inputmode="numeric" placeholder="1234 1234 1234 1234" required>
@@ -399,6 +423,7 @@ export async function startPaymentsStandIn(options: PaymentsStandInOptions = {})
       <input id="holder" name="holder" autocomplete="off">
       <button type="submit">Pay ${escapeHtml(money(session.amount_total, session.currency))}</button>
     </form>
+    ` : ""}
     ${session.cancel_url ? `<p class="muted" style="margin-top:14px"><a href="${escapeHtml(session.cancel_url)}">Cancel and go back</a></p>` : ""}
     <p class="cards">Test cards: 4242 4242 4242 4242 pays; 4000 0000 0000 0002 is declined. Any future expiry and any 3 digits.</p>
   </div>
@@ -412,6 +437,7 @@ export async function startPaymentsStandIn(options: PaymentsStandInOptions = {})
   app.get("/pay/:id", (req, res) => {
     const s = sessions.get(req.params.id);
     if (!s) return res.status(404).type("text/plain").send("This checkout does not exist.");
+    if (s.status === "expired") return res.status(410).type("html").send(page(s, { tone: "error", text: EXPIRED_MESSAGE }));
     if (s.status !== "open") return res.redirect(303, s.success_url.replace("{CHECKOUT_SESSION_ID}", s.id));
     res.type("html").send(page(s));
   });
@@ -420,6 +446,7 @@ export async function startPaymentsStandIn(options: PaymentsStandInOptions = {})
     if (!s) return res.status(404).type("text/plain").send("This checkout does not exist.");
     const outcome = pay(s.id, String(req.body?.card ?? ""));
     if (outcome.result === "paid") return res.redirect(303, s.success_url.replace("{CHECKOUT_SESSION_ID}", s.id));
+    if (outcome.result === "expired") return res.status(410).type("html").send(page(s, { tone: "error", text: EXPIRED_MESSAGE }));
     // Shown on the same page, as a hosted checkout does (a normal 200 page; the outcome is in the words).
     res.status(200).type("html").send(page(s, { tone: "error", text: outcome.message ?? "Payment failed." }));
   });
@@ -431,11 +458,12 @@ export async function startPaymentsStandIn(options: PaymentsStandInOptions = {})
       return { ...mode };
     },
     reset() {
-      Object.assign(mode, { copies: 1, hold: false, reverse: false, paidAmountOverride: null });
+      Object.assign(mode, { copies: 1, hold: false, reverse: false, paidAmountOverride: null, apiLatencyMs: 0 });
       held.length = 0;
       deliveries.length = 0;
     },
     pay,
+    expire,
     flush,
     settle,
     deliveries: () => [...deliveries],

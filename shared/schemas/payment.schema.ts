@@ -45,9 +45,11 @@ export type PaymentDto = {
   currency: string;
   status: PaymentStatus;
   refundedCents: number;
-  /** The amount did not match the quote's deposit: the owner checks it before the job is booked. */
+  /** The amount did not match the quote's deposit, or was more than was still due (paid twice): the owner checks it. */
   flagged: boolean;
   flagReason: string | null;
+  /** Flagged and still waiting for the owner: neither accepted nor refunded in full. */
+  needsReview: boolean;
   reviewedAt: string | null;
   paidAt: string;
   providerPaymentId: string;

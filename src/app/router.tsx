@@ -99,6 +99,7 @@ export function createAppRouter(queryClient: QueryClient) {
             { path: "dashboard", lazy: page(() => import("./routes/staff/dashboard")) },
             { path: "compliance", lazy: page(() => import("./routes/staff/compliance")) },
             { path: "audit", lazy: page(() => import("./routes/staff/audit")) },
+            { path: "payments", lazy: page(() => import("./routes/staff/payments")) },
             { path: "settings", lazy: page(() => import("./routes/staff/settings")) },
           ],
         },

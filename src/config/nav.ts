@@ -1,5 +1,5 @@
 import type { LucideIcon } from "lucide-react";
-import { ChartColumn, History, Leaf, Settings } from "lucide-react";
+import { ChartColumn, CreditCard, History, Leaf, Settings } from "lucide-react";
 import { CircleUserRound, Columns3, FlaskConical, Inbox, Layers, ListChecks, Package, ReceiptText, Users, Contact, SprayCan, Palette } from "lucide-react";
 import type { Access, Role } from "@shared/domain/roles";
 import { paths } from "./paths";
@@ -30,6 +30,7 @@ export const STAFF_NAV: NavItem[] = [
   { label: "Mix calculator", to: paths.mixCalculator, icon: FlaskConical, access: "staff" },
   { label: "Materials", to: paths.materials, icon: Package, access: "staff" },
   { label: "Test panels", to: paths.panels, icon: Palette, access: "staff" },
+  { label: "Payments", to: paths.payments, icon: CreditCard, access: "owner" },
   { label: "VOC log", to: paths.compliance, icon: Leaf, access: "office" },
   { label: "Users", to: paths.users, icon: Users, access: "owner" },
   { label: "Audit", to: paths.audit, icon: History, access: "owner" },

@@ -41,6 +41,7 @@ export const paths = {
   dashboard: "/dashboard",
   compliance: "/compliance",
   audit: "/audit",
+  payments: "/payments",
   settings: "/settings",
   portal: "/portal",
   portalAccount: "/portal/account",

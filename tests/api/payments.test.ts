@@ -1,11 +1,10 @@
 import { afterEach, describe, expect, it } from "vitest";
 import { eq } from "drizzle-orm";
 import type { Server } from "node:http";
-import type { AddressInfo } from "node:net";
 import { auditLog, jobMessages, jobStageEvents, jobs, payments, refunds, webhookEvents } from "../../server/db/schema";
 import { createPayments } from "../../server/payments/provider";
 import { makeShop, type Shop } from "../support/test-app";
-import { approvedQuote, completedEvent, payDeposit, postEvent, sentQuote, withPayments } from "../support/quotes";
+import { approvedQuote, completedEvent, listenForWebhooks, payDeposit, postEvent, sentQuote, submitCard, withPayments } from "../support/quotes";
 
 /*
  * The deposit path against the local payments stand-in, through the provider's SDK. Here the app listens on a
@@ -25,9 +24,7 @@ afterEach(async () => {
 async function payingShop() {
   const s = await makeShop();
   const si = await withPayments(s);
-  server = s.app.listen(0, "127.0.0.1");
-  await new Promise((r) => server!.once("listening", r));
-  si.setWebhookUrl(`http://127.0.0.1:${(server.address() as AddressInfo).port}/api/payments/webhook`);
+  server = await listenForWebhooks(s, si);
   const q = await approvedQuote(s, s.inquiryA.id);
   return { s, si, q };
 }
@@ -37,12 +34,7 @@ async function payOnPage(url: string, card: string) {
   const page = await fetch(url);
   const html = await page.text();
   const action = /<form method="post" action="([^"]+)"/.exec(html)![1]!;
-  const res = await fetch(new URL(action, url), {
-    method: "POST",
-    headers: { "content-type": "application/x-www-form-urlencoded" },
-    body: new URLSearchParams({ card, expiry: "12 / 34", cvc: "123", holder: "Avery Stone" }),
-    redirect: "manual",
-  });
+  const res = await submitCard(new URL(action, url).href, card);
   return { page: html, res, body: res.status === 303 ? "" : await res.text() };
 }
 

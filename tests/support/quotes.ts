@@ -1,4 +1,6 @@
 import request from "supertest";
+import type { Server } from "node:http";
+import type { AddressInfo } from "node:net";
 import { createPayments } from "../../server/payments/provider";
 import { startPaymentsStandIn, type PaymentsStandIn, type StandInEvent } from "../../server/stand-ins/payments";
 import type { Shop } from "./test-app";
@@ -75,4 +77,23 @@ export async function payDeposit(shop: Shop, si: PaymentsStandIn, quoteId: numbe
 
 export function completedEvent(si: PaymentsStandIn, sessionId: string) {
   return si.control.events().find((e) => e.type === "checkout.session.completed" && (e.data.object as { id: string }).id === sessionId);
+}
+
+/** Lets the shop's app listen on a port and points the stand-in's webhook deliveries at it; returns the server. */
+export async function listenForWebhooks(shop: Shop, si: PaymentsStandIn): Promise<Server> {
+  const server = shop.app.listen(0, "127.0.0.1");
+  await new Promise((r) => server.once("listening", r));
+  si.setWebhookUrl(`http://127.0.0.1:${(server.address() as AddressInfo).port}/api/payments/webhook`);
+  return server;
+}
+
+/** Submits the card on a stand-in checkout page, as its form does (the customer's browser). */
+export function submitCard(checkoutUrl: string, card = "4242 4242 4242 4242") {
+  const url = new URL(checkoutUrl);
+  return fetch(url, {
+    method: "POST",
+    headers: { "content-type": "application/x-www-form-urlencoded" },
+    body: new URLSearchParams({ card, expiry: "12 / 34", cvc: "123", holder: "Avery Stone" }),
+    redirect: "manual",
+  });
 }

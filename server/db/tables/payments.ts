@@ -3,7 +3,10 @@ import { jobs, users } from "./core";
 import { quoteVersions, quotes } from "./quotes";
 import { createdAt } from "./columns";
 
-/** Checkout sessions the product opened with the payment provider (not payments: those come only from webhooks). */
+/**
+ * Checkout sessions the product opened with the payment provider (not payments: those come only from webhooks).
+ * At most one per quote is open: opening a new one expires the earlier one at the provider first.
+ */
 export const checkoutSessions = sqliteTable(
   "checkout_sessions",
   {
@@ -23,9 +26,12 @@ export const checkoutSessions = sqliteTable(
     /** The signed-in customer who started it, or null for a quote-link visitor. */
     createdBy: text("created_by").references(() => users.id, { onDelete: "set null" }),
     via: text("via", { enum: ["account", "link"] }).notNull(),
+    /** open until paid (complete) or ended (expired: by a newer checkout for the quote, or by the provider). */
+    status: text("status", { enum: ["open", "complete", "expired"] }).notNull().default("open"),
+    closedAt: integer("closed_at"),
     createdAt: createdAt(),
   },
-  (t) => [index("checkout_sessions_quote_idx").on(t.quoteId)],
+  (t) => [index("checkout_sessions_quote_idx").on(t.quoteId, t.status)],
 );
 
 /** A deposit received, recorded only from a verified provider webhook; one row per checkout session. */

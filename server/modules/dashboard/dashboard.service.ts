@@ -1,5 +1,6 @@
 import { sql } from "drizzle-orm";
 import type { AppDeps } from "../../deps";
+import { awaitsReviewFlag } from "../payments/payment-review";
 import type { Actor } from "../../auth/session";
 import { STAGES, type Stage } from "../../../shared/domain/stages";
 import type { MaterialCategory } from "../../../shared/domain/materials";
@@ -52,7 +53,7 @@ function moneyPart(deps: AppDeps): DashboardMoneyDto {
   const monthExpr = (col: string) => sql.raw(`strftime('%Y-%m', ${col} / 1000, 'unixepoch', 'localtime')`);
 
   const deposits = deps.db.get<{ received: number; refunded: number; flagged: number }>(sql`
-    select coalesce(sum(amount_cents), 0) as received, coalesce(sum(refunded_cents), 0) as refunded, coalesce(sum(flagged), 0) as flagged
+    select coalesce(sum(amount_cents), 0) as received, coalesce(sum(refunded_cents), 0) as refunded, coalesce(sum(${awaitsReviewFlag()}), 0) as flagged
     from payments`)!;
 
   // Approved quote versions (not superseded) whose quote has no payment yet.

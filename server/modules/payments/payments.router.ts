@@ -7,7 +7,8 @@ import { body, params, query } from "../../http/validate";
 import { idParamsSchema } from "../../../shared/schemas/common.schema";
 import { acceptPaymentInputSchema, checkoutInputSchema, listPaymentsQuerySchema, refundInputSchema } from "../../../shared/schemas/payment.schema";
 import { portalViewer } from "../portal/portal.service";
-import { acceptPayment, createCheckout, handleWebhook, listPayments, requestRefund } from "./payments.service";
+import { acceptPayment, handleWebhook, listPayments, requestRefund } from "./payments.service";
+import { createCheckout } from "./checkout.service";
 
 export function paymentsRouter(deps: AppDeps) {
   const r = Router();

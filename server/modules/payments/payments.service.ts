@@ -1,20 +1,20 @@
-import { and, asc, desc, eq, inArray, isNull, or, type SQL } from "drizzle-orm";
+import { and, asc, desc, eq, inArray, or, type SQL } from "drizzle-orm";
 import type Stripe from "stripe";
 import type { AppDeps } from "../../deps";
-import type { Logger } from "../../log/logger";
 import { checkoutSessions, customers, jobStageEvents, jobs, payments, quoteVersions, refunds, users, webhookEvents } from "../../db/schema";
-import { badRequest, conflict, HttpError, notFound } from "../../http/http-error";
+import { badRequest, conflict, notFound } from "../../http/http-error";
 import type { RequestContext } from "../../http/context";
 import { iso, isoOrNull } from "../../http/dates";
 import { recordAudit } from "../audit/audit.service";
 import { getSettings } from "../settings/settings.service";
 import { sendAndLog } from "../messages/messages.service";
 import { composeReceiptMail } from "../messages/compose";
-import { getPortalQuote, type PortalViewer } from "../portal/portal.service";
-import { portalLinkPath } from "../portal/portal-link";
-import { offeredVersion, paidCentsFor, totalsOf } from "../quotes/quotes.service";
+import { paidCentsFor, totalsOf } from "../quotes/quotes.service";
 import { formatCents } from "../../../shared/quote/index";
-import type { CheckoutDto, PaymentDto, PaymentStatus } from "../../../shared/schemas/payment.schema";
+import type { PaymentDto, PaymentStatus } from "../../../shared/schemas/payment.schema";
+import { markCheckout } from "./checkout.service";
+import { awaitsReview, awaitsReviewFlag, needsReview } from "./payment-review";
+import { requirePayments, upstream } from "./provider-calls";
 
 /*
  * Deposits through the card-payment provider's hosted checkout.
@@ -23,79 +23,10 @@ import type { CheckoutDto, PaymentDto, PaymentStatus } from "../../../shared/sch
  * refund) is written only when the provider's webhook says so, after its signature is checked against the
  * webhook secret (constructEvent on the exact request bytes). Each event id is applied once (webhook_events),
  * and a checkout session / payment intent can carry one payment only (unique indexes), so a redelivered or
- * duplicated event changes nothing. A refund event that arrives before its payment is answered 409, so the
+ * duplicated event changes nothing. A payment beyond what is still due on the quote's deposit (the deposit paid
+ * twice) is recorded, since the money was taken, but flagged for the owner, who refunds or accepts it. A refund event that arrives before its payment is answered 409, so the
  * provider delivers it again later (out-of-order delivery).
  */
-
-function requirePayments(deps: AppDeps) {
-  if (!deps.payments) throw new HttpError(503, "upstream_failed", "Online card payments are not set up for this shop. Please contact the shop to pay the deposit.");
-  return deps.payments;
-}
-
-function upstream(log: Logger, err: unknown, doing: string): never {
-  const message = err instanceof Error ? err.message : String(err);
-  // The provider answered and refused the request (e.g. a refund larger than what it still holds): a conflict
-  // the shop can act on, not an outage. Anything else (unreachable, 5xx) is a bad gateway.
-  const providerStatus = (err as { statusCode?: unknown })?.statusCode;
-  if (typeof providerStatus === "number" && providerStatus >= 400 && providerStatus < 500)
-    throw new HttpError(409, "conflict", `The payment provider refused to ${doing}: ${message}`);
-  log.error({ err: { message } }, `payments: ${doing} failed`);
-  throw new HttpError(502, "upstream_failed", `The payment provider could not ${doing}: ${message}`);
-}
-
-/** Starts a hosted checkout for the deposit of an approved quote and returns where to send the customer. */
-export async function createCheckout(deps: AppDeps, viewer: PortalViewer, quoteId: number): Promise<CheckoutDto> {
-  const pay = requirePayments(deps);
-  const quote = getPortalQuote(deps, viewer, quoteId);
-  if (quote.status !== "approved") throw conflict("Approve the quote before paying the deposit", { status: quote.status });
-  if (quote.paymentUnderReview) throw conflict("A payment for this quote is being checked by the shop; they will be in touch", { status: "under_review" });
-  if (quote.paidCents >= quote.depositCents) throw conflict("The deposit for this quote is already paid. Thank you!", { status: "paid" });
-  if (!quote.canPay) throw conflict("This quote cannot be paid online; please contact the shop");
-  const v = offeredVersion(deps.db, quoteId)!;
-  const amount = quote.depositCents - quote.paidCents;
-  const back = viewer.via === "link" ? `${deps.publicUrl}${portalLinkPath(viewer.token)}` : `${deps.publicUrl}/portal/quotes/${quoteId}`;
-  const email = deps.db.select({ email: customers.email }).from(customers).where(eq(customers.id, viewer.customerId)).get()?.email;
-  let session: Stripe.Checkout.Session;
-  try {
-    session = await pay.stripe.checkout.sessions.create({
-      mode: "payment",
-      line_items: [
-        {
-          quantity: 1,
-          price_data: {
-            currency: pay.currency,
-            unit_amount: amount,
-            product_data: { name: `Deposit: ${quote.jobTitle}`, description: `${quote.shop.name} · quote #${quoteId}, version ${v.version} · ${quote.depositPercent} % deposit` },
-          },
-        },
-      ],
-      client_reference_id: `quote-${quoteId}-v${v.version}`,
-      ...(email ? { customer_email: email } : {}),
-      metadata: { quoteId: String(quoteId), quoteVersionId: String(v.id), jobId: String(quote.jobId) },
-      success_url: `${back}?paid=1`,
-      cancel_url: `${back}?cancelled=1`,
-    });
-  } catch (err) {
-    upstream(deps.log, err, "start the checkout");
-  }
-  if (!session.url) upstream(deps.log, new Error("no checkout address was returned"), "start the checkout");
-  deps.db
-    .insert(checkoutSessions)
-    .values({
-      id: session.id,
-      quoteId,
-      quoteVersionId: v.id,
-      jobId: quote.jobId,
-      amountCents: amount,
-      currency: pay.currency,
-      url: session.url,
-      createdBy: viewer.userId,
-      via: viewer.via,
-      createdAt: deps.now(),
-    })
-    .run();
-  return { url: session.url, sessionId: session.id };
-}
 
 type WebhookOutcome = { received: true; duplicate?: true; outcome: string; paymentId?: number; receipt?: boolean };
 
@@ -124,6 +55,12 @@ export async function handleWebhook(deps: AppDeps, raw: Buffer | undefined, sign
         outcome = r.outcome;
         paymentId = r.paymentId;
         if (r.receipt) receiptFor = r.paymentId ?? null;
+        break;
+      }
+      case "checkout.session.expired": {
+        const session = event.data.object as Stripe.Checkout.Session;
+        markCheckout(tx, session.id, "expired", now);
+        outcome = "checkout expired";
         break;
       }
       case "refund.created":
@@ -167,11 +104,21 @@ function recordPayment(tx: Tx, deps: AppDeps, eventId: string, session: Stripe.C
   const expected = ours.amountCents;
   const amount = session.amount_total ?? 0;
   const currency = (session.currency ?? "").toLowerCase();
+  // What is still due now, from the payments already counted (this transaction sees every one before it).
+  const deposit = totalsOf(version).depositCents;
+  const due = Math.max(0, deposit - paidCentsFor(tx, ours.quoteId));
   const reasons: string[] = [];
-  if (amount !== expected) reasons.push(`paid ${formatCents(amount)} but the deposit asked was ${formatCents(expected)}`);
+  if (amount > due)
+    reasons.push(
+      due === 0
+        ? `the deposit of ${formatCents(deposit)} was already paid, so this ${formatCents(amount)} is more than is due (paid twice?)`
+        : `paid ${formatCents(amount)} but only ${formatCents(due)} of the deposit was still due`,
+    );
+  else if (amount !== expected) reasons.push(`paid ${formatCents(amount)} but the deposit asked was ${formatCents(expected)}`);
   if (currency !== ours.currency) reasons.push(`paid in ${currency.toUpperCase() || "an unknown currency"}, expected ${ours.currency.toUpperCase()}`);
   if (version.status !== "approved") reasons.push(`the quote version was ${version.status}, not approved, when the payment arrived`);
   const flagged = reasons.length > 0;
+  tx.update(checkoutSessions).set({ status: "complete", closedAt: now }).where(eq(checkoutSessions.id, session.id)).run();
   const paymentId = tx
     .insert(payments)
     .values({
@@ -280,11 +227,12 @@ function statusOf(p: { amountCents: number; refundedCents: number }): PaymentSta
   return p.refundedCents >= p.amountCents ? "refunded" : "partially_refunded";
 }
 
+/** Payments, those waiting for the owner first; `flagged: "1"` lists only those. */
 export function listPayments(deps: AppDeps, q: { jobId?: number; quoteId?: number; flagged?: "1" | "0" }): { items: PaymentDto[] } {
   const where: (SQL | undefined)[] = [
     q.jobId ? eq(payments.jobId, q.jobId) : undefined,
     q.quoteId ? eq(payments.quoteId, q.quoteId) : undefined,
-    q.flagged === "1" ? and(eq(payments.flagged, true), isNull(payments.reviewedAt)) : undefined,
+    q.flagged === "1" ? awaitsReview() : undefined,
   ];
   const rows = deps.db
     .select({ p: payments, jobTitle: jobs.title, customerName: customers.name, version: quoteVersions.version })
@@ -293,7 +241,8 @@ export function listPayments(deps: AppDeps, q: { jobId?: number; quoteId?: numbe
     .innerJoin(customers, eq(jobs.customerId, customers.id))
     .innerJoin(quoteVersions, eq(payments.quoteVersionId, quoteVersions.id))
     .where(and(...where))
-    .orderBy(desc(payments.paidAt), desc(payments.id))
+    // Payments waiting for the owner first, then newest first.
+    .orderBy(desc(awaitsReviewFlag()), desc(payments.paidAt), desc(payments.id))
     .limit(200)
     .all();
   const ids = rows.map((r) => r.p.id);
@@ -313,6 +262,7 @@ export function listPayments(deps: AppDeps, q: { jobId?: number; quoteId?: numbe
       refundedCents: p.refundedCents,
       flagged: p.flagged,
       flagReason: p.flagReason,
+      needsReview: needsReview(p),
       reviewedAt: isoOrNull(p.reviewedAt),
       paidAt: iso(p.paidAt),
       providerPaymentId: p.paymentIntentId,

@@ -1,5 +1,5 @@
 import type { Request, Response } from "express";
-import { and, asc, desc, eq, isNotNull, isNull } from "drizzle-orm";
+import { and, asc, desc, eq, isNotNull } from "drizzle-orm";
 import type { AppDeps } from "../../deps";
 import { customers, jobItems, jobs, payments, quoteVersions, quotes, uploads } from "../../db/schema";
 import { conflict, forbidden, HttpError, notFound, unauthenticated } from "../../http/http-error";
@@ -9,6 +9,7 @@ import { getSettings } from "../settings/settings.service";
 import { displayStatus, localDate, offeredVersion, paidCentsFor, totalsOf } from "../quotes/quotes.service";
 import { readStored } from "../uploads/storage";
 import { verifyQuoteLink } from "./portal-link";
+import { awaitsReview } from "../payments/payment-review";
 import { jobPlanRow, loadPlanVersion } from "../plans/plans.service";
 import { planVersions } from "../../db/schema";
 import { customerLineDetail, describeFinish, taxLabel } from "../../../shared/quote/index";
@@ -76,7 +77,7 @@ function underReview(deps: AppDeps, quoteId: number) {
   return !!deps.db
     .select({ id: payments.id })
     .from(payments)
-    .where(and(eq(payments.quoteId, quoteId), eq(payments.flagged, true), isNull(payments.reviewedAt)))
+    .where(and(eq(payments.quoteId, quoteId), awaitsReview()))
     .get();
 }
 

@@ -2,7 +2,6 @@ import { keepPreviousData, queryOptions, useMutation, useQueryClient, type Query
 import { api, apiUrl } from "@/lib/api-client";
 import type { Page } from "@shared/api/pagination";
 import type { JobMessageDto } from "@shared/schemas/message.schema";
-import type { PaymentDto, RefundInput } from "@shared/schemas/payment.schema";
 import type { QuoteDetailDto, QuoteDto, QuoteStatus, QuoteVersionDto, SendQuoteInput, UpdateQuoteInput } from "@shared/schemas/quote.schema";
 
 export type QuoteListParams = {
@@ -23,11 +22,6 @@ export const quoteKeys = {
   version: (id: number, version: number) => [...quoteKeys.detail(id), "version", version] as const,
 };
 export const messageKeys = { job: (jobId: number) => ["messages", jobId] as const };
-export const paymentKeys = {
-  all: ["payments"] as const,
-  forQuote: (quoteId: number) => [...paymentKeys.all, "quote", quoteId] as const,
-  flagged: () => [...paymentKeys.all, "flagged"] as const,
-};
 
 export const quoteQueries = {
   list: (params: QuoteListParams) =>
@@ -51,18 +45,6 @@ export const quoteQueries = {
     queryOptions({
       queryKey: messageKeys.job(jobId),
       queryFn: ({ signal }) => api.get<{ items: JobMessageDto[] }>("/messages", { query: { jobId }, signal }),
-    }),
-  payments: (quoteId: number) =>
-    queryOptions({
-      queryKey: paymentKeys.forQuote(quoteId),
-      queryFn: ({ signal }) => api.get<{ items: PaymentDto[] }>("/payments", { query: { quoteId }, signal }),
-      // A deposit arrives by webhook at any moment; keep the office's view fresh.
-      refetchInterval: 30_000,
-    }),
-  flaggedPayments: () =>
-    queryOptions({
-      queryKey: paymentKeys.flagged(),
-      queryFn: ({ signal }) => api.get<{ items: PaymentDto[] }>("/payments", { query: { flagged: "1" }, signal }),
     }),
 };
 
@@ -140,28 +122,3 @@ export function useSendReadyNotice(jobId: number) {
   });
 }
 
-export function useRefundPayment(quoteId: number) {
-  const queryClient = useQueryClient();
-  return useMutation({
-    mutationFn: ({ paymentId, ...input }: RefundInput & { paymentId: number }) =>
-      api.post<{ status: "requested"; amountCents: number; message: string }>(`/payments/${paymentId}/refund`, input),
-    onSuccess: () => {
-      // The refund is recorded when the provider's webhook arrives: look again shortly.
-      window.setTimeout(() => void queryClient.invalidateQueries({ queryKey: paymentKeys.forQuote(quoteId) }), 1500);
-      return queryClient.invalidateQueries({ queryKey: paymentKeys.forQuote(quoteId) });
-    },
-  });
-}
-
-export function useAcceptPayment(quoteId: number) {
-  const queryClient = useQueryClient();
-  return useMutation({
-    mutationFn: ({ paymentId, note }: { paymentId: number; note?: string }) => api.post<PaymentDto>(`/payments/${paymentId}/accept`, { note }),
-    onSuccess: () =>
-      Promise.all([
-        queryClient.invalidateQueries({ queryKey: paymentKeys.all }),
-        queryClient.invalidateQueries({ queryKey: quoteKeys.detail(quoteId) }),
-        queryClient.invalidateQueries({ queryKey: ["jobs"] }),
-      ]),
-  });
-}
