@@ -32,17 +32,24 @@ const NOT_SERVER = { group: topFolder("server"), message: "The client never impo
 const NOT_SRC = { group: [...topFolder("src"), "@/*", "@/**"], message: "Server and shared code never import the client (src/)." };
 const NOT_APP = { group: ["@/app", "@/app/**", "**/app/routes/**", "**/app/providers/**"], message: "A feature does not import from src/app: the app composes features, not the other way round." };
 
-/** In a feature, every other feature is off limits except those declared in CROSS_FEATURE. */
-const featureBoundaries = FEATURES.map((feature) => {
+/**
+ * In a feature, every other feature is off limits except those declared in CROSS_FEATURE: by alias, and by a relative
+ * path climbing exactly to src/features from the file's depth in its feature (so a sub-folder that happens to share a
+ * feature's name is not caught).
+ */
+const featureBoundaries = FEATURES.flatMap((feature) => {
   const allowed = new Set([feature, ...(CROSS_FEATURE[feature] ?? [])]);
   const others = FEATURES.filter((f) => !allowed.has(f));
-  return {
-    files: [`src/features/${feature}/**/*.{ts,tsx}`],
-    rules: restrict(NOT_SERVER, NOT_APP, {
-      group: others.flatMap((f) => [`@/features/${f}`, `@/features/${f}/**`, `**/features/${f}`, `**/features/${f}/**`]),
-      message: `A feature imports another feature only where eslint.config.js declares it (CROSS_FEATURE.${feature}).`,
-    }),
-  };
+  return [0, 1, 2, 3, 4, 5].map((depth) => {
+    const up = "../".repeat(depth + 1);
+    return {
+      files: [`src/features/${feature}/${"*/".repeat(depth)}*.{ts,tsx}`],
+      rules: restrict(NOT_SERVER, NOT_APP, {
+        group: others.flatMap((f) => [`@/features/${f}`, `@/features/${f}/**`, `${up}${f}`, `${up}${f}/**`]),
+        message: `A feature imports another feature only where eslint.config.js declares it (CROSS_FEATURE.${feature}).`,
+      }),
+    };
+  });
 });
 
 export default tseslint.config(
