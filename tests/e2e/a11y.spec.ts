@@ -130,6 +130,7 @@ const SCREENS: Screen[] = [
     url: (i) => `/panels/ladder?${new URLSearchParams({ ground: i.panel.groundName, candy: i.panel.candyName })}`,
     heading: (i) => `Depth ladder: ${i.panel.candyName} over ${i.panel.groundName}`,
   },
+  { role: "owner", name: "payments", url: () => "/payments", heading: exact("Payments") },
   { role: "owner", name: "VOC log", url: () => "/compliance", heading: exact("VOC log") },
   { role: "owner", name: "users", url: () => "/users", heading: exact("Users") },
   { role: "owner", name: "audit trail", url: () => "/audit", heading: exact("Audit trail") },
