@@ -12,7 +12,7 @@ afterAll(async () => {
   await browser?.close();
 });
 
-type Payment = { id: number; amountCents: number; refundedCents: number; needsReview: boolean; customerName: string };
+type Payment = { id: number; amountCents: number; refundedCents: number; needsReview: boolean; customerName: string; flagReason: string | null };
 
 describe("payments screen", () => {
   it("the owner finds the payments to check first and a refund of all that is left one dialog away; the estimator has no such screen", async () => {
@@ -28,7 +28,7 @@ describe("payments screen", () => {
     const toCheck = all.items.filter((p) => p.needsReview);
     expect(toCheck.length).toBeGreaterThan(0);
     expect(all.items.slice(0, toCheck.length).every((p) => p.needsReview)).toBe(true);
-    await page.getByRole("radio", { name: `To check (${toCheck.length})` }).check();
+    await page.locator("label", { hasText: `To check (${toCheck.length})` }).click();
     await page.waitForURL(/show=to-check/);
     const rows = page.getByRole("table", { name: "Payments to check" }).locator("tbody tr");
     await expect.poll(() => rows.count()).toBe(toCheck.length);
@@ -41,6 +41,8 @@ describe("payments screen", () => {
     await dialog.waitFor();
     expect(await dialog.getByLabel("Amount to refund").inputValue()).toBe((left / 100).toFixed(2));
     expect(await dialog.getByRole("button", { name: `Refund ${amount}` }).isEnabled()).toBe(true);
+    // The reason offered is the one the payment was flagged for (the demo's is a short payment, not an extra one).
+    expect(await dialog.getByLabel("Reason (optional)").inputValue()).toMatch(/^Paid \$[\d,.]+ but the deposit asked was \$[\d,.]+$/);
     await page.screenshot({ path: path.join(ARTEFACTS, "payments-refund-dialog.png") });
     await dialog.getByRole("button", { name: "Cancel" }).click();
     expect(errors).toEqual([]);
