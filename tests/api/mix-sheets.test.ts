@@ -212,7 +212,7 @@ describe("listing and reach", () => {
     expect(keysOf(detail.body).filter((k) => MONEY_KEY.test(k))).toEqual([]);
 
     // The office changes the plan: version 1 is locked by the draft, so version 2 is made; the draft says it is behind.
-    await s.as("owner").put(`/api/plans/${f.jobPlan.id}`).send({ name: "Changed", layers: [] });
+    await s.as("owner").put(`/api/plans/${f.jobPlan.id}`).send({ name: "Changed", layers: [], version: 1 });
     expect((await s.as("painter").get(`/api/mix-sheets/${f.sheet.id}`)).body).toMatchObject({ planChanged: true, planVersion: 1 });
   });
 });

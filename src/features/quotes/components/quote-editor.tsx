@@ -37,8 +37,9 @@ const KIND_TONE: Record<QuoteLineKind, string> = {
   discount: "bg-emerald-50 text-emerald-900 ring-emerald-300",
 };
 
-function toFormValues(v: QuoteVersionDto): FormIn {
+function toFormValues(v: QuoteVersionDto, version: number): FormIn {
   return {
+    version,
     lines: v.lines.map((l) => ({ ...l })),
     taxPercent: v.taxPercent,
     taxedKinds: v.taxedKinds,
@@ -114,7 +115,7 @@ export function QuoteEditor({
     return { rateCents: labour?.rateCents ?? 9500, markupPercent: mat?.markupPercent ?? 30, suppliesPercent: sup?.percent ?? 8 };
   }, [v.lines]);
   const [problem, setProblem] = useState<string | null>(null);
-  const form = useForm<FormIn, unknown, FormOut>({ resolver: zodResolver(updateQuoteInputSchema), defaultValues: toFormValues(v) });
+  const form = useForm<FormIn, unknown, FormOut>({ resolver: zodResolver(updateQuoteInputSchema), defaultValues: toFormValues(v, quote.version) });
   const {
     control,
     register,
@@ -156,7 +157,7 @@ export function QuoteEditor({
           setProblem(null);
           try {
             const saved = await onSave(values);
-            reset(toFormValues(saved.current));
+            reset(toFormValues(saved.current, saved.version));
             resolve(true);
           } catch (error) {
             // eslint-disable-next-line @typescript-eslint/no-explicit-any
