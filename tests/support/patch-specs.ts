@@ -260,9 +260,10 @@ export const PATCH_SPECS: Record<string, PatchSpec> = {
     prepare: (s) => draftQuote(s).then(() => undefined),
     read: () => "/api/quotes/1",
     // The draft's fields are under `current`; lifted up so what was sent can be read back.
+    // (The quote's edit version stays `version`; the draft's own version number is kept as `quoteVersion`.)
     pick: (body) => {
-      const { current, ...rest } = body as { current: Record<string, unknown> };
-      return { ...rest, ...current };
+      const { current, ...rest } = body as { current: Record<string, unknown>; version: number };
+      return { ...rest, ...current, quoteVersion: current.version, version: rest.version };
     },
     changes: {
       lines: one(

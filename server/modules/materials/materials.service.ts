@@ -41,7 +41,7 @@ export function todayOf(ms: number) {
 const stockSum = sql<number>`coalesce((select sum(l."quantity_on_hand") from "material_lots" as l where l."material_id" = "materials"."id"), 0)`.mapWith(Number);
 
 export function toMaterialDto(row: MaterialRow, stockOnHand: number, actor: Actor): MaterialDto {
-  const { costCents, ...rest } = row;
+  const { costCents, updatedBy: _updatedBy, ...rest } = row;
   const dto: MaterialDto = {
     ...rest,
     stockOnHand,
