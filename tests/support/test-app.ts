@@ -166,3 +166,19 @@ export async function makeShop(options: MakeAppOptions = {}) {
   };
 }
 export type Shop = Awaited<ReturnType<typeof makeShop>>;
+
+/**
+ * An edit as a screen makes it: read the record's current `version` (from `read`, the record's own address unless
+ * given; `pick` finds the record in the answer), then PATCH (or PUT) the changes with that version.
+ */
+export async function editAt(
+  shop: Shop,
+  who: Parameters<Shop["as"]>[0],
+  path: string,
+  changes: object,
+  options: { read?: string; pick?: (body: Record<string, unknown>) => { version: number }; method?: "patch" | "put" } = {},
+) {
+  const res = await shop.as(who).get(options.read ?? path);
+  const record = options.pick ? options.pick(res.body) : (res.body as { version: number });
+  return shop.as(who)[options.method ?? "patch"](path).send({ ...changes, version: record.version });
+}

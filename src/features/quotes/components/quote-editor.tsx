@@ -156,7 +156,8 @@ export function QuoteEditor({
         async (values) => {
           setProblem(null);
           try {
-            const saved = await onSave(values);
+            // The version on screen now (it moves on when someone else saved and the quote was refetched).
+            const saved = await onSave({ ...values, version: quote.version });
             reset(toFormValues(saved.current, saved.version));
             resolve(true);
           } catch (error) {
