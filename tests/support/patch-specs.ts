@@ -46,6 +46,8 @@ export type PatchSpec = {
   follows?: Record<string, string[]>;
   /** Record paths every save moves (beside updatedAt and version), e.g. who last recorded the steps. */
   stamps?: string[];
+  /** The name of the edit version in the record and the PATCH body, when it is not `version`. */
+  versionKey?: string;
   /** How a sent value reads back when the answer shows it in another form. */
   readAs?: Record<string, (sent: unknown) => unknown>;
 };
@@ -260,11 +262,12 @@ export const PATCH_SPECS: Record<string, PatchSpec> = {
     prepare: (s) => draftQuote(s).then(() => undefined),
     read: () => "/api/quotes/1",
     // The draft's fields are under `current`; lifted up so what was sent can be read back.
-    // (The quote's edit version stays `version`; the draft's own version number is kept as `quoteVersion`.)
     pick: (body) => {
-      const { current, ...rest } = body as { current: Record<string, unknown>; version: number };
-      return { ...rest, ...current, quoteVersion: current.version, version: rest.version };
+      const { current, ...rest } = body as { current: Record<string, unknown> };
+      return { ...rest, ...current };
     },
+    // `version` is the quote's own version number; the edit version is `editVersion`.
+    versionKey: "editVersion",
     changes: {
       lines: one(
         "lines",

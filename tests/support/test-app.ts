@@ -176,9 +176,11 @@ export async function editAt(
   who: Parameters<Shop["as"]>[0],
   path: string,
   changes: object,
-  options: { read?: string; pick?: (body: Record<string, unknown>) => { version: number }; method?: "patch" | "put" } = {},
+  options: { read?: string; pick?: (body: Record<string, unknown>) => { version: number; editVersion?: number }; method?: "patch" | "put" } = {},
 ) {
   const res = await shop.as(who).get(options.read ?? path);
-  const record = options.pick ? options.pick(res.body) : (res.body as { version: number });
-  return shop.as(who)[options.method ?? "patch"](path).send({ ...changes, version: record.version });
+  const record = (options.pick ? options.pick(res.body) : res.body) as { version: number; editVersion?: number };
+  // A quote's own `version` is its version number; its edit version is `editVersion`.
+  const token = typeof record.editVersion === "number" ? { editVersion: record.editVersion } : { version: record.version };
+  return shop.as(who)[options.method ?? "patch"](path).send({ ...changes, ...token });
 }

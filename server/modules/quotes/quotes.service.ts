@@ -215,7 +215,7 @@ export function getQuote(deps: AppDeps, id: number): QuoteDetailDto {
   const plan = planForQuote(deps, row.jobId, 0);
   return {
     ...toQuoteDto(deps, row, today),
-    version: row.editVersion,
+    editVersion: row.editVersion,
     current: toVersionDto(current.v, current.by, today),
     versions,
     offeredVersion: offered ? offered.v.version : null,
@@ -302,7 +302,7 @@ export function createQuote(deps: AppDeps, ctx: RequestContext, jobId: number): 
 }
 
 /** A change to a quote; `version` (the quote's edit version) when it comes from the editor, which must not be stale. */
-type UpdateInput = Omit<z.output<typeof updateQuoteInputSchema>, "version"> & { version?: number };
+type UpdateInput = Omit<z.output<typeof updateQuoteInputSchema>, "editVersion"> & { editVersion?: number };
 
 function applyUpdate(v: VersionRow, input: UpdateInput) {
   return {
@@ -349,7 +349,7 @@ export function updateQuote(deps: AppDeps, ctx: RequestContext, id: number, inpu
   const now = deps.now();
   deps.db.transaction((tx) => {
     refuseIfApproved(tx, id);
-    if (input.version !== undefined) updateAtVersion(tx, quotes, { id, version: input.version, actorId: ctx.actor.id, what: "quote" }, { updatedAt: now }, () => getQuote(deps, id));
+    if (input.editVersion !== undefined) updateAtVersion(tx, quotes, { id, version: input.editVersion, actorId: ctx.actor.id, what: "quote" }, { updatedAt: now }, () => getQuote(deps, id));
     const latest = latestVersion(tx, id)!;
     if (latest.status !== "draft") {
       newVersion(tx, ctx, latest, input, now);

@@ -37,9 +37,9 @@ const KIND_TONE: Record<QuoteLineKind, string> = {
   discount: "bg-emerald-50 text-emerald-900 ring-emerald-300",
 };
 
-function toFormValues(v: QuoteVersionDto, version: number): FormIn {
+function toFormValues(v: QuoteVersionDto, editVersion: number): FormIn {
   return {
-    version,
+    editVersion,
     lines: v.lines.map((l) => ({ ...l })),
     taxPercent: v.taxPercent,
     taxedKinds: v.taxedKinds,
@@ -115,7 +115,7 @@ export function QuoteEditor({
     return { rateCents: labour?.rateCents ?? 9500, markupPercent: mat?.markupPercent ?? 30, suppliesPercent: sup?.percent ?? 8 };
   }, [v.lines]);
   const [problem, setProblem] = useState<string | null>(null);
-  const form = useForm<FormIn, unknown, FormOut>({ resolver: zodResolver(updateQuoteInputSchema), defaultValues: toFormValues(v, quote.version) });
+  const form = useForm<FormIn, unknown, FormOut>({ resolver: zodResolver(updateQuoteInputSchema), defaultValues: toFormValues(v, quote.editVersion) });
   const {
     control,
     register,
@@ -157,8 +157,8 @@ export function QuoteEditor({
           setProblem(null);
           try {
             // The version on screen now (it moves on when someone else saved and the quote was refetched).
-            const saved = await onSave({ ...values, version: quote.version });
-            reset(toFormValues(saved.current, saved.version));
+            const saved = await onSave({ ...values, editVersion: quote.editVersion });
+            reset(toFormValues(saved.current, saved.editVersion));
             resolve(true);
           } catch (error) {
             // eslint-disable-next-line @typescript-eslint/no-explicit-any
