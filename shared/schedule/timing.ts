@@ -1,10 +1,11 @@
+import { coatCount } from "../domain/booth";
 import type { Booth, ScheduleLayer, Session } from "./types";
 
 export const MINUTE_MS = 60_000;
 
 /** Set-up, then each coat sprayed and flashed off: the part of a session the painter is spraying. */
-export function sprayMinutes(booth: Pick<Booth, "setupMinutes" | "sprayMinutesPerCoat">, layer: Pick<ScheduleLayer, "coats" | "flashMinutes">): number {
-  return booth.setupMinutes + Math.ceil(layer.coats) * (booth.sprayMinutesPerCoat + layer.flashMinutes);
+export function sprayMinutes(booth: Pick<Booth, "setupMinutes">, layer: Pick<ScheduleLayer, "coats" | "minutesPerCoat" | "flashMinutes">): number {
+  return booth.setupMinutes + coatCount(layer.coats) * (layer.minutesPerCoat + layer.flashMinutes);
 }
 
 /** How long the layer keeps the booth after its last coat: its dry time, unless parts may cure elsewhere. */
@@ -12,7 +13,7 @@ export function cureInBoothMinutes(booth: Pick<Booth, "canCureOutside">, layer: 
   return booth.canCureOutside ? 0 : layer.dryMinutes;
 }
 
-/** A session lasts set-up + coats × (spray time + flash) + the cure time spent in the booth. */
+/** A session lasts set-up + coats × (spray time + flash) + the cure time spent in the booth (a 2.5-coat layer is 3 passes). */
 export function sessionMinutes(booth: Booth, layer: ScheduleLayer): number {
   return sprayMinutes(booth, layer) + cureInBoothMinutes(booth, layer);
 }

@@ -15,8 +15,6 @@ export type Booth = BoothHours & {
   name: string;
   /** Masking, mixing and gun set-up before the first coat. */
   setupMinutes: number;
-  /** Time to lay one coat over the job's parts. */
-  sprayMinutesPerCoat: number;
   /** Whether parts may leave the booth to cure (a curing room, or outdoors); if not, a layer cures in the booth. */
   canCureOutside: boolean;
 };
@@ -28,6 +26,8 @@ export type ScheduleLayer = {
   position: number;
   name: string;
   coats: number;
+  /** Spraying time of one coat over the job's parts (from the plan). */
+  minutesPerCoat: number;
   flashMinutes: number;
   dryMinutes: number;
   /** The material's recoat window after the layer's last coat, when its data sheet gives one. */

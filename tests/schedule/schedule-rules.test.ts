@@ -21,7 +21,6 @@ const booth = (over: Partial<Booth> = {}): Booth => ({
   id: 1,
   name: "Booth 1",
   setupMinutes: 20,
-  sprayMinutesPerCoat: 10,
   canCureOutside: false,
   opensAtMinute: 7 * 60,
   closesAtMinute: 17 * 60,
@@ -35,6 +34,7 @@ const layer = (over: Partial<ScheduleLayer> = {}): ScheduleLayer => ({
   position: 1,
   name: "Sealer",
   coats: 3,
+  minutesPerCoat: 10,
   flashMinutes: 10,
   dryMinutes: 60,
   recoatMinMinutes: null,
@@ -135,16 +135,16 @@ const boothsArb = fc
     count: fc.integer({ min: 1, max: 3 }),
     zone: fc.constantFrom(...ZONES),
     setup: fc.integer({ min: 0, max: 45 }),
-    spray: fc.integer({ min: 3, max: 25 }),
     cureOutside: fc.array(fc.boolean(), { minLength: 3, maxLength: 3 }),
     opens: fc.integer({ min: 5 * 60, max: 9 * 60 }),
     hours: fc.integer({ min: 6 * 60, max: 12 * 60 }),
   })
-  .map(({ count, zone, setup, spray, cureOutside, opens, hours }) =>
-    Array.from({ length: count }, (_, i) => booth({ id: i + 1, name: `Booth ${i + 1}`, setupMinutes: setup, sprayMinutesPerCoat: spray, canCureOutside: cureOutside[i]!, opensAtMinute: opens, closesAtMinute: opens + hours, timeZone: zone })),
+  .map(({ count, zone, setup, cureOutside, opens, hours }) =>
+    Array.from({ length: count }, (_, i) => booth({ id: i + 1, name: `Booth ${i + 1}`, setupMinutes: setup, canCureOutside: cureOutside[i]!, opensAtMinute: opens, closesAtMinute: opens + hours, timeZone: zone })),
   );
 const layerArb = fc.record({
   coats: fc.integer({ min: 1, max: 5 }),
+  minutesPerCoat: fc.integer({ min: 3, max: 25 }),
   flashMinutes: fc.integer({ min: 0, max: 20 }),
   dryMinutes: fc.integer({ min: 0, max: 8 * 60 }),
   recoatMinMinutes: fc.option(fc.integer({ min: 0, max: 12 * 60 }), { nil: null }),
@@ -203,8 +203,8 @@ describe("the suggested schedule (fast-check properties)", () => {
       fc.property(fc.integer({ min: 1, max: 10 }), fc.integer({ min: 1, max: 10 }), (a, b) => {
         fc.pre(a !== b);
         const jobs = buildJobs([
-          { layers: [{ coats: 2, flashMinutes: 5, dryMinutes: 30, recoatMinMinutes: null, recoatMaxMinutes: null }], dueInDays: a, prepInHours: 0 },
-          { layers: [{ coats: 2, flashMinutes: 5, dryMinutes: 30, recoatMinMinutes: null, recoatMaxMinutes: null }], dueInDays: b, prepInHours: 0 },
+          { layers: [{ coats: 2, minutesPerCoat: 8, flashMinutes: 5, dryMinutes: 30, recoatMinMinutes: null, recoatMaxMinutes: null }], dueInDays: a, prepInHours: 0 },
+          { layers: [{ coats: 2, minutesPerCoat: 8, flashMinutes: 5, dryMinutes: 30, recoatMinMinutes: null, recoatMaxMinutes: null }], dueInDays: b, prepInHours: 0 },
         ]);
         const { sessions } = suggestSchedule({ booths: [booth()], jobs, from: MONDAY_8 });
         const start = (id: number) => sessions.find((s) => s.jobId === id)!.startsAt;
@@ -214,7 +214,7 @@ describe("the suggested schedule (fast-check properties)", () => {
   });
 
   it("leaves kept sessions where they are and books around them", () => {
-    const jobs = buildJobs([{ layers: [{ coats: 2, flashMinutes: 5, dryMinutes: 30, recoatMinMinutes: null, recoatMaxMinutes: null }], dueInDays: 2, prepInHours: 0 }]);
+    const jobs = buildJobs([{ layers: [{ coats: 2, minutesPerCoat: 8, flashMinutes: 5, dryMinutes: 30, recoatMinMinutes: null, recoatMaxMinutes: null }], dueInDays: 2, prepInHours: 0 }]);
     const kept: Session = { boothId: 1, jobId: 99, layerId: 99, startsAt: MONDAY_8, endsAt: MONDAY_8 + 3 * 60 * MIN };
     const { sessions } = suggestSchedule({ booths: [booth()], jobs, keep: [kept], from: MONDAY_8 });
     expect(sessions).toHaveLength(1);
