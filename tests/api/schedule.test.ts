@@ -1,8 +1,10 @@
 import { describe, expect, it } from "vitest";
-import { scheduleSessions } from "../../server/db/schema";
+import request from "supertest";
+import { scheduleSessions, users } from "../../server/db/schema";
+import { seedDemo } from "../../server/db/seed/index";
 import { addBoothPlan, addCoat } from "../support/booth-fixtures";
 import { addBooths, HOUR, MONDAY_8 } from "../support/schedule-fixtures";
-import { makeShop, type Shop } from "../support/test-app";
+import { cookieFor, makeApp, makeShop, type Shop } from "../support/test-app";
 
 const MIN = 60_000;
 const iso = (ms: number) => new Date(ms).toISOString();
@@ -136,5 +138,23 @@ describe("suggested schedule", () => {
     await s.as("owner").put(`/api/schedule/jobs/${s.jobB.id}/prep`).send({ readyAt: null });
     const again = (await s.as("owner").post("/api/schedule/suggest").send({ from: iso(MONDAY_8) })).body;
     expect(again.unplaced).toEqual([{ jobId: s.jobB.id, jobTitle: s.jobB.title, reason: "Plan when prep will be signed off first" }]);
+  });
+});
+
+describe("demo shop", () => {
+  it("has two booths and the coming two weeks booked, with no booth booked twice and every layer in its window", async () => {
+    const t = makeApp();
+    const now = Date.now();
+    await seedDemo(t.db, now);
+    const owner = t.db.select().from(users).all().find((u) => u.role === "owner")!;
+    const cookie = await cookieFor(t, owner.id);
+    const booths = (await request(t.app).get("/api/booths").set("Cookie", cookie)).body;
+    expect(booths.map((b: { name: string }) => b.name).sort()).toEqual(["North booth", "Side booth"]);
+    const res = await request(t.app).get(`/api/schedule?from=${iso(now)}&to=${iso(now + 14 * 24 * HOUR)}`).set("Cookie", cookie);
+    expect(res.status).toBe(200);
+    expect(res.body.sessions.length).toBeGreaterThanOrEqual(10);
+    expect(new Set(res.body.sessions.map((x: { jobId: number }) => x.jobId)).size).toBeGreaterThanOrEqual(4);
+    // Due dates can be out of reach in the demo; nothing else may be wrong.
+    expect(res.body.conflicts.filter((c: Conflict) => c.kind !== "due_at_risk")).toEqual([]);
   });
 });
