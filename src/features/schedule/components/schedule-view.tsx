@@ -83,15 +83,31 @@ export function ScheduleView({ movable, preview }: Props) {
       ) : booths.length === 0 ? (
         <Alert tone="info">No booths yet: the owner adds them under Settings.</Alert>
       ) : (
-        <div className="overflow-x-auto rounded-xl border border-primer-300 bg-white">
+        <div className="overflow-x-auto rounded-xl border border-primer-300 bg-white select-none">
           <div className="grid min-w-[56rem] grid-cols-[8rem_1fr]">
             <div aria-hidden className="border-b border-primer-200" />
-            <div aria-hidden className="relative h-7 border-b border-primer-200 text-xs text-primer-800">
-              {marks.map((t) => (
-                <span key={t} className="absolute top-1 pl-1" style={{ left: `${((t - from) / (to - from)) * 100}%` }}>
-                  {kind === "day" ? timeText(t) : dayText(t)}
-                </span>
-              ))}
+            <div className="relative h-8 border-b border-primer-200 text-xs text-primer-800">
+              {marks.map((t) =>
+                kind === "day" ? (
+                  <span key={t} aria-hidden className="absolute top-1.5 pl-1" style={{ left: `${((t - from) / (to - from)) * 100}%` }}>
+                    {timeText(t)}
+                  </span>
+                ) : (
+                  <button
+                    key={t}
+                    type="button"
+                    className="absolute top-0.5 rounded px-1 py-1 font-semibold text-ink-900 underline-offset-2 hover:underline"
+                    style={{ left: `${((t - from) / (to - from)) * 100}%` }}
+                    aria-label={`Show ${dayText(t)} by the hour`}
+                    onClick={() => {
+                      setDay(new Date(t));
+                      setKind("day");
+                    }}
+                  >
+                    {dayText(t)}
+                  </button>
+                ),
+              )}
             </div>
             {booths.map((b) => (
               <BoothLaneRow key={b.id} booth={b}>

@@ -99,7 +99,7 @@ export function SessionBlock({ session, booths, from, to, laneWidth, laneHeight,
         pending ? "z-10 opacity-90 ring-4 ring-candy-300" : "",
         movable ? "cursor-grab active:cursor-grabbing" : "cursor-default",
       )}
-      style={{ left: `${left}%`, width: `${width}%`, transform: shiftBooths ? `translateY(${shiftBooths * laneHeight}px)` : undefined }}
+      style={{ left: `${left}%`, width: `${width}%`, minWidth: "1.75rem", transform: shiftBooths ? `translateY(${shiftBooths * laneHeight}px)` : undefined }}
       onKeyDown={onKeyDown}
       onPointerDown={onPointerDown}
       onPointerMove={onPointerMove}
