@@ -81,6 +81,8 @@ export type JobDto = {
   createdAt: string;
   updatedAt: string;
   stageChangedAt: string;
+  /** On the board: the job's next session on the booth schedule, if one is booked. */
+  nextBoothSlot?: { startsAt: string; boothName: string } | null;
 };
 
 export type JobDetailDto = JobDto & {

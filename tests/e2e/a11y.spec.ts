@@ -107,6 +107,7 @@ const SCREENS: Screen[] = [
   { role: "owner", name: "job", url: (i) => `/jobs/${i.boothJob.id}`, heading: (i) => i.boothJob.title },
   { role: "owner", name: "job's finish plan", url: (i) => `/jobs/${i.boothJob.id}/plan`, heading: (i) => i.jobPlan.name },
   { role: "owner", name: "finish record", url: (i) => `/jobs/${i.delivered.id}/finish-record`, heading: (i) => i.delivered.title },
+  { role: "owner", name: "booth schedule", url: () => "/schedule", heading: exact("Booth schedule") },
   { role: "owner", name: "customers", url: () => "/customers", heading: exact("Customers") },
   { role: "owner", name: "new customer", url: () => "/customers/new", heading: exact("New customer") },
   { role: "owner", name: "customer", url: (i) => `/customers/${i.customer.id}`, heading: (i) => i.customer.name },

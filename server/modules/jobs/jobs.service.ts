@@ -2,6 +2,7 @@ import { updateAtVersion } from "../../db/edit-version";
 import { aliasedTable, and, asc, count, desc, eq, gte, inArray, like, lt, lte, notInArray, or, sql, type SQL } from "drizzle-orm";
 import type { z } from "zod";
 import type { AppDeps } from "../../deps";
+import { nextSlots } from "../schedule/schedule.service";
 import type { Actor } from "../../auth/session";
 import { customers, jobStageEvents, jobs, users } from "../../db/schema";
 import { badRequest, conflict, notFound } from "../../http/http-error";
@@ -9,7 +10,7 @@ import { preparedQuery } from "../../db/prepared";
 import type { Db } from "../../db/client";
 import { iso } from "../../http/dates";
 import { parseSort, type Page } from "../../../shared/api/pagination";
-import { nextStagesFor, STAGES, type Stage, STAGE_LABELS } from "../../../shared/domain/stages";
+import { nextStagesFor, OPEN_STAGES, STAGES, type Stage, STAGE_LABELS } from "../../../shared/domain/stages";
 import type {
   BoardDto,
   JobDetailDto,
@@ -202,6 +203,11 @@ export function jobBoard(deps: AppDeps, actor: Actor): BoardDto {
       .all() as JobRow[];
     return { stage, total: counts.get(stage) ?? 0, jobs: rows.map((r) => toDto(r, actor)) };
   });
+  const slots = nextSlots(deps, columns.flatMap((c) => (OPEN_STAGES.includes(c.stage) ? c.jobs.map((j) => j.id) : [])));
+  for (const job of columns.flatMap((c) => c.jobs)) {
+    const slot = slots.get(job.id);
+    job.nextBoothSlot = slot ? { startsAt: new Date(slot.startsAt).toISOString(), boothName: slot.boothName } : null;
+  }
   return { columns };
 }
 
