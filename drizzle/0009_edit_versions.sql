@@ -22,4 +22,8 @@ ALTER TABLE `guns` ADD `updated_by` text;--> statement-breakpoint
 ALTER TABLE `prep_records` ADD `version` integer DEFAULT 1 NOT NULL;--> statement-breakpoint
 ALTER TABLE `prep_records` ADD `updated_by` text;--> statement-breakpoint
 ALTER TABLE `test_panels` ADD `version` integer DEFAULT 1 NOT NULL;--> statement-breakpoint
-ALTER TABLE `test_panels` ADD `updated_by` text;
+ALTER TABLE `test_panels` ADD `updated_by` text;--> statement-breakpoint
+ALTER TABLE `booths` ADD `version` integer DEFAULT 1 NOT NULL;--> statement-breakpoint
+ALTER TABLE `booths` ADD `updated_by` text;--> statement-breakpoint
+ALTER TABLE `schedule_sessions` ADD `version` integer DEFAULT 1 NOT NULL;--> statement-breakpoint
+ALTER TABLE `schedule_sessions` ADD `updated_by` text;
