@@ -1,6 +1,6 @@
 import { z } from "zod";
 import type { ConflictKind } from "../schedule/types";
-import { idSchema, patchSchemaOf, requiredText } from "./common.schema";
+import { idSchema, patchSchemaOf, requiredText, versionSchema } from "./common.schema";
 
 const HHMM = /^([01][0-9]|2[0-3]):[0-5][0-9]$/;
 /** "07:30" ↔ 450 minutes after midnight. */
@@ -31,10 +31,12 @@ export const boothInputSchema = boothFields.refine((b) => minuteOfDay(b.closesAt
 export type BoothInput = z.input<typeof boothInputSchema>;
 
 export const updateBoothInputSchema = patchSchemaOf(boothFields)
+  .extend({ version: versionSchema })
   .refine((b) => b.opensAt == null || b.closesAt == null || minuteOfDay(b.closesAt) > minuteOfDay(b.opensAt), { path: ["closesAt"], message: "Closing time must be after opening time" });
 
 export type BoothDto = {
   id: number;
+  version: number;
   name: string;
   setupMinutes: number;
   canCureOutside: boolean;
@@ -54,7 +56,7 @@ export const sessionInputSchema = z.object({
   startsAt: instant("Start"),
 });
 export const updateSessionInputSchema = z
-  .object({ boothId: idSchema.optional(), startsAt: instant("Start").optional() })
+  .object({ boothId: idSchema.optional(), startsAt: instant("Start").optional(), version: versionSchema })
   .refine((v) => v.boothId != null || v.startsAt != null, { message: "Send a new booth or a new start" });
 
 export const scheduleQuerySchema = z
@@ -76,6 +78,8 @@ export const prepPlanInputSchema = z.object({ readyAt: instant("Prep ready").nul
 
 export type SessionDto = {
   id: number | null;
+  /** The edit version of a saved session (null in a proposal). */
+  version: number | null;
   boothId: number;
   jobId: number;
   jobTitle: string;

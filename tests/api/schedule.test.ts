@@ -4,7 +4,7 @@ import { scheduleSessions, users } from "../../server/db/schema";
 import { seedDemo } from "../../server/db/seed/index";
 import { addBoothPlan, addCoat } from "../support/booth-fixtures";
 import { addBooths, HOUR, MONDAY_8 } from "../support/schedule-fixtures";
-import { cookieFor, makeApp, makeShop, type Shop } from "../support/test-app";
+import { cookieFor, editAt, makeApp, makeShop, type Shop } from "../support/test-app";
 
 const MIN = 60_000;
 const iso = (ms: number) => new Date(ms).toISOString();
@@ -33,7 +33,7 @@ describe("booths", () => {
     const zone = await s.as("owner").post("/api/booths").send({ name: "B", timeZone: "Mars/Olympus" });
     expect([zone.status, Object.keys(zone.body.error.fields)]).toEqual([400, ["timeZone"]]);
     expect((await s.as("owner").post("/api/booths").send({ name: "main BOOTH", timeZone: "UTC" })).status).toBe(409);
-    const moved = await s.as("owner").patch(`/api/booths/${created.body.id}`).send({ opensAt: "16:00" });
+    const moved = await s.as("owner").patch(`/api/booths/${created.body.id}`).send({ opensAt: "16:00", version: created.body.version });
     expect([moved.status, moved.body.error.fields]).toEqual([400, { closesAt: "Must be after opening time" }]);
     expect((await s.as("owner").get("/api/booths")).body).toEqual([created.body]);
   });
@@ -48,7 +48,7 @@ describe("booth sessions", () => {
     expect(one.status).toBe(201);
     const mine = one.body.sessions.find((x: { layerId: number }) => x.layerId === planA.layers[0]!.id);
     expect(mine).toMatchObject({ startsAt: iso(MONDAY_8), sprayEndsAt: iso(MONDAY_8 + 48 * MIN), endsAt: iso(MONDAY_8 + 78 * MIN), jobTitle: s.jobA.title, layerName: "Grey sealer" });
-    const moved = await s.as("owner").patch(`/api/schedule/sessions/${mine.id}`).send({ boothId: booths.two.id });
+    const moved = await s.as("owner").patch(`/api/schedule/sessions/${mine.id}`).send({ boothId: booths.two.id, version: mine.version });
     expect(moved.body.sessions.find((x: { id: number }) => x.id === mine.id)).toMatchObject({ boothId: booths.two.id, endsAt: iso(MONDAY_8 + 43 * MIN) });
   });
 
@@ -61,7 +61,7 @@ describe("booth sessions", () => {
     expect(schedule.conflicts.map((c: Conflict) => c.kind)).toEqual(["booth_overlap"]);
     expect(schedule.conflicts[0].message).toBe(`Booth 1 is booked twice at once: ${s.jobA.title} and ${s.jobB.title}`);
     const id = schedule.sessions.find((x: { jobId: number }) => x.jobId === s.jobB.id).id;
-    const moved = await s.as("estimator").patch(`/api/schedule/sessions/${id}`).send({ startsAt: iso(MONDAY_8 + 78 * MIN) });
+    const moved = await s.as("estimator").patch(`/api/schedule/sessions/${id}`).send({ startsAt: iso(MONDAY_8 + 78 * MIN), version: 1 });
     expect(moved.status).toBe(200);
     expect((await s.as("owner").get(`/api/schedule?${week}`)).body.conflicts).toEqual([]);
   });
@@ -79,7 +79,7 @@ describe("booth sessions", () => {
     expect(painter.sessions.map((x: { jobId: number }) => x.jobId)).toEqual([s.jobA.id, s.jobA.id]);
     expect(painter.conflicts).toEqual([]);
     const candy = owner.sessions.find((x: { layerId: number }) => x.layerId === planA.layers[1]!.id).id;
-    await s.as("owner").patch(`/api/schedule/sessions/${candy}`).send({ startsAt: iso(MONDAY_8 + 78 * MIN) });
+    await s.as("owner").patch(`/api/schedule/sessions/${candy}`).send({ startsAt: iso(MONDAY_8 + 78 * MIN), version: 1 });
     expect((await s.as("owner").get(`/api/schedule?${week}`)).body.conflicts).toEqual([]);
   });
 
@@ -118,8 +118,8 @@ describe("booth sessions", () => {
 describe("suggested schedule", () => {
   it("is a proposal that passes the rules, saved only when accepted; a job without a prep plan is left out with the reason", async () => {
     const { s, planA, planB } = await twoJobs();
-    await s.as("owner").patch(`/api/jobs/${s.jobB.id}`).send({ dueDate: "2026-12-08" });
-    await s.as("owner").patch(`/api/jobs/${s.jobA.id}`).send({ dueDate: "2026-12-11" });
+    await editAt(s, "owner", `/api/jobs/${s.jobB.id}`, { dueDate: "2026-12-08" });
+    await editAt(s, "owner", `/api/jobs/${s.jobA.id}`, { dueDate: "2026-12-11" });
     const proposal = (await s.as("owner").post("/api/schedule/suggest").send({ from: iso(MONDAY_8) })).body;
     expect(proposal.sessions).toHaveLength(6);
     expect(proposal.conflicts).toEqual([]);

@@ -65,7 +65,8 @@ describe("booth schedule", () => {
     await page.screenshot({ path: path.join(ARTEFACTS, "schedule-conflict.png"), fullPage: true });
 
     // Keyboard: focus the second job's session, move it down to the side booth, save.
-    const block = page.getByRole("button", { name: new RegExp(`^${second.title}, ${second.layers[0]!.name}:`) });
+    // (Chromium may put a space between the block's lines when it reads the name out.)
+    const block = page.getByRole("button", { name: new RegExp(`^${second.title}\\s?, ${second.layers[0]!.name}\\s?:`) });
     await block.focus();
     await page.keyboard.press("ArrowDown");
     await page.keyboard.press("Enter");

@@ -48,6 +48,8 @@ export type PatchSpec = {
   follows?: Record<string, string[]>;
   /** Record paths every save moves (beside updatedAt and version), e.g. who last recorded the steps. */
   stamps?: string[];
+  /** The name of the edit version in the record and the PATCH body, when it is not `version`. */
+  versionKey?: string;
   /** How a sent value reads back when the answer shows it in another form. */
   readAs?: Record<string, (sent: unknown) => unknown>;
 };
@@ -268,6 +270,8 @@ export const PATCH_SPECS: Record<string, PatchSpec> = {
       const { current, ...rest } = body as { current: Record<string, unknown> };
       return { ...rest, ...current };
     },
+    // `version` is the quote's own version number; the edit version is `editVersion`.
+    versionKey: "editVersion",
     changes: {
       lines: one(
         "lines",

@@ -1,7 +1,7 @@
 import { index, integer, sqliteTable, text, uniqueIndex } from "drizzle-orm/sqlite-core";
 import { jobs, users } from "./core";
 import { planLayers } from "./plans";
-import { createdAt, updatedAt } from "./columns";
+import { createdAt, editVersion, updatedAt } from "./columns";
 
 /** The shop's spray booths, with what the schedule needs to know about each. */
 export const booths = sqliteTable(
@@ -21,6 +21,7 @@ export const booths = sqliteTable(
     active: integer("active", { mode: "boolean" }).notNull().default(true),
     createdAt: createdAt(),
     updatedAt: updatedAt(),
+    ...editVersion(),
   },
   (t) => [uniqueIndex("booths_name_idx").on(t.name)],
 );
@@ -44,6 +45,7 @@ export const scheduleSessions = sqliteTable(
     createdBy: text("created_by").references(() => users.id, { onDelete: "set null" }),
     createdAt: createdAt(),
     updatedAt: updatedAt(),
+    ...editVersion(),
   },
   (t) => [index("schedule_sessions_time_idx").on(t.startsAt), index("schedule_sessions_booth_idx").on(t.boothId, t.startsAt), uniqueIndex("schedule_sessions_layer_idx").on(t.layerId)],
 );

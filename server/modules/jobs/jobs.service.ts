@@ -1,3 +1,4 @@
+import { updateAtVersion } from "../../db/edit-version";
 import { aliasedTable, and, asc, count, desc, eq, gte, inArray, like, lt, lte, notInArray, or, sql, type SQL } from "drizzle-orm";
 import type { z } from "zod";
 import type { AppDeps } from "../../deps";
@@ -30,6 +31,7 @@ const itemCount = sql<number>`(select count(*) from "job_items" as ji where ji."
 
 const jobColumns = {
   id: jobs.id,
+  version: jobs.version,
   title: jobs.title,
   stage: jobs.stage,
   dueDate: jobs.dueDate,
@@ -45,6 +47,7 @@ const jobColumns = {
 };
 
 type JobRow = {
+  version: number;
   id: number;
   title: string;
   stage: Stage;
@@ -286,11 +289,8 @@ export function updateJob(deps: AppDeps, actor: Actor, id: number, input: z.outp
   const job = findJobFor(deps, actor, id);
   checkRefs(deps, input);
   checkCustomerMove(deps, job, input.customerId);
-  deps.db
-    .update(jobs)
-    .set({ ...input, updatedAt: deps.now() })
-    .where(eq(jobs.id, id))
-    .run();
+  const { version, ...fields } = input;
+  updateAtVersion(deps.db, jobs, { id, version, actorId: actor.id, what: "job" }, { ...fields, updatedAt: deps.now() }, () => getJob(deps, actor, id));
   return getJob(deps, actor, id);
 }
 

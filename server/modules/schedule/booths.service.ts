@@ -1,3 +1,4 @@
+import { updateAtVersion } from "../../db/edit-version";
 import { asc, desc, eq } from "drizzle-orm";
 import type { z } from "zod";
 import type { AppDeps } from "../../deps";
@@ -12,6 +13,7 @@ export type BoothRow = typeof booths.$inferSelect;
 
 export const boothDto = (b: BoothRow): BoothDto => ({
   id: b.id,
+  version: b.version,
   name: b.name,
   setupMinutes: b.setupMinutes,
   canCureOutside: b.canCureOutside,
@@ -82,9 +84,7 @@ export function updateBooth(deps: AppDeps, ctx: RequestContext, id: number, inpu
   if (closes <= opens) throw badRequest("Closing time must be after opening time", { closesAt: "Must be after opening time" });
   const now = deps.now();
   const row = deps.db.transaction((tx) => {
-    const updated = tx
-      .update(booths)
-      .set({
+    updateAtVersion(tx, booths, { id, version: input.version, actorId: ctx.actor.id, what: "booth" }, {
         ...(input.name !== undefined && { name: input.name }),
         ...(input.setupMinutes !== undefined && { setupMinutes: input.setupMinutes }),
         ...(input.canCureOutside !== undefined && { canCureOutside: input.canCureOutside }),
@@ -94,10 +94,8 @@ export function updateBooth(deps: AppDeps, ctx: RequestContext, id: number, inpu
         opensAtMinute: opens,
         closesAtMinute: closes,
         updatedAt: now,
-      })
-      .where(eq(booths.id, id))
-      .returning()
-      .all()[0]!;
+      }, () => boothDto(tx.select().from(booths).where(eq(booths.id, id)).get()!));
+    const updated = tx.select().from(booths).where(eq(booths.id, id)).get()!;
     recordAudit(tx, ctx, { kind: "settings", entity: "booth", entityId: id, action: "update", before: boothDto(before), after: boothDto(updated) }, now);
     return updated;
   });

@@ -1,3 +1,4 @@
+import { updateAtVersion } from "../../db/edit-version";
 import { and, eq, gt, gte, inArray, lt } from "drizzle-orm";
 import type { z } from "zod";
 import type { AppDeps } from "../../deps";
@@ -33,13 +34,14 @@ function factsFor(deps: AppDeps, jobIds: Iterable<number>) {
   return { rows, booths: rows.map(boothRules), jobsById, jobs: [...jobsById.values()] };
 }
 
-function toSessionDtos(facts: ReturnType<typeof factsFor>, sessions: readonly (Session & { id?: number })[], painters: Map<string, string>): SessionDto[] {
+function toSessionDtos(facts: ReturnType<typeof factsFor>, sessions: readonly (Session & { id?: number; version?: number })[], painters: Map<string, string>): SessionDto[] {
   return sessions.map((s) => {
     const job = facts.jobsById.get(s.jobId);
     const layer = job?.allLayers.find((l) => l.id === s.layerId);
     const booth = facts.booths.find((b) => b.id === s.boothId);
     return {
       id: s.id ?? null,
+      version: s.version ?? null,
       boothId: s.boothId,
       jobId: s.jobId,
       jobTitle: job?.title ?? `Job #${s.jobId}`,
@@ -59,7 +61,7 @@ const conflictDtos = (found: readonly Conflict[], sessions: readonly { id?: numb
 
 const painterNames = (deps: AppDeps) => new Map(deps.db.select({ id: users.id, name: users.name }).from(users).where(eq(users.role, "painter")).all().map((u) => [u.id, u.name]));
 
-const asSession = (r: SessionRow): Session & { id: number } => ({ id: r.id, boothId: r.boothId, jobId: r.jobId, layerId: r.layerId, startsAt: r.startsAt, endsAt: r.endsAt });
+const asSession = (r: SessionRow): Session & { id: number; version: number } => ({ id: r.id, version: r.version, boothId: r.boothId, jobId: r.jobId, layerId: r.layerId, startsAt: r.startsAt, endsAt: r.endsAt });
 
 /**
  * The booth schedule between two instants, with every conflict among its sessions. Conflicts are found with the
@@ -145,7 +147,9 @@ export function updateSession(deps: AppDeps, ctx: RequestContext, id: number, in
   if (!row) throw notFound("Session");
   const facts = factsFor(deps, [row.jobId]);
   const s = placed(deps, facts, { boothId: input.boothId ?? row.boothId, jobId: row.jobId, layerId: row.layerId, startsAt: input.startsAt ? Date.parse(input.startsAt) : row.startsAt });
-  deps.db.update(scheduleSessions).set({ boothId: s.boothId, startsAt: s.startsAt, endsAt: s.endsAt, updatedAt: deps.now() }).where(eq(scheduleSessions.id, id)).run();
+  updateAtVersion(deps.db, scheduleSessions, { id, version: input.version, actorId: ctx.actor.id, what: "booth session" }, { boothId: s.boothId, startsAt: s.startsAt, endsAt: s.endsAt, updatedAt: deps.now() }, () =>
+    getSchedule(deps, ctx.actor, row.startsAt - DAY, row.endsAt + DAY).sessions.find((x) => x.id === id),
+  );
   return sessionWithConflicts(deps, ctx.actor, id);
 }
 

@@ -45,7 +45,7 @@ function SettingsPage() {
           canEdit={canEdit}
           limitsNote={<VocLimitsNote />}
           onSubmit={async (values) => {
-            const saved = await update.mutateAsync(values);
+            const saved = await update.mutateAsync({ ...values, version: data.version });
             toast.success("Settings saved");
             return saved;
           }}

@@ -29,7 +29,7 @@ export function useBookSession() {
 
 export function useMoveSession() {
   const after = useAfterChange();
-  return useMutation({ mutationFn: ({ id, ...input }: { id: number; boothId?: number; startsAt?: string }) => api.patch<ScheduleDto>(`/schedule/sessions/${id}`, input), onSuccess: after });
+  return useMutation({ mutationFn: ({ id, ...input }: { id: number; version: number; boothId?: number; startsAt?: string }) => api.patch<ScheduleDto>(`/schedule/sessions/${id}`, input), onSuccess: after });
 }
 
 export function useRemoveSession() {
@@ -61,5 +61,5 @@ export function useCreateBooth() {
 
 export function useUpdateBooth() {
   const after = useAfterChange();
-  return useMutation({ mutationFn: ({ id, ...input }: Partial<BoothInput> & { id: number }) => api.patch<BoothDto>(`/booths/${id}`, input), onSuccess: after });
+  return useMutation({ mutationFn: ({ id, ...input }: Partial<BoothInput> & { id: number; version: number }) => api.patch<BoothDto>(`/booths/${id}`, input), onSuccess: after });
 }

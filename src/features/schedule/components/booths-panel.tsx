@@ -44,7 +44,7 @@ export function BoothsPanel() {
               </span>
               {b.active ? null : <span className="ml-2 rounded-full bg-primer-200 px-2 py-0.5 text-xs font-semibold">Not in use</span>}
             </span>
-            <Button variant="ghost" size="sm" disabled={update.isPending} onClick={() => update.mutate({ id: b.id, active: !b.active }, { onError: (err) => toast.error(err.message) })}>
+            <Button variant="ghost" size="sm" disabled={update.isPending} onClick={() => update.mutate({ id: b.id, active: !b.active, version: b.version }, { onError: (err) => toast.error(err.message) })}>
               {b.active ? "Take out of use" : "Back in use"}
               <span className="sr-only"> {b.name}</span>
             </Button>

@@ -38,8 +38,9 @@ export function ScheduleView({ movable, preview }: Props) {
   const marks = marksOf(kind, from, to);
 
   const onMove = async (id: number, m: MoveTo) => {
+    const version = sessions.find((s) => s.id === id)?.version ?? 1;
     try {
-      const res = await move.mutateAsync({ id, boothId: m.boothId, startsAt: new Date(m.startsAt).toISOString() });
+      const res = await move.mutateAsync({ id, version, boothId: m.boothId, startsAt: new Date(m.startsAt).toISOString() });
       const left = res.conflicts.length;
       setAnnouncement(left ? `Moved. ${left} conflict${left === 1 ? "" : "s"} left.` : "Moved. No conflicts.");
       toast.success(left ? `Moved; ${left} conflict${left === 1 ? "" : "s"} left` : "Moved; no conflicts");

@@ -91,7 +91,6 @@ export function SessionBlock({ session, booths, from, to, laneWidth, laneHeight,
     <button
       type="button"
       data-session-id={session.id ?? undefined}
-      aria-label={`${session.jobTitle}, ${session.layerName}: ${timeText(start)} to ${timeText(end)}, last coat by ${timeText(sprayEnd)}${conflicted ? ", has a conflict" : ""}`}
       aria-describedby={movable ? "schedule-move-help" : undefined}
       className={cn(
         "absolute top-1 bottom-1 flex touch-none overflow-hidden rounded-lg border-2 text-left text-xs shadow-card focus-visible:outline-3 focus-visible:outline-offset-2 focus-visible:outline-candy-600",
@@ -113,9 +112,18 @@ export function SessionBlock({ session, booths, from, to, laneWidth, laneHeight,
       <span className="flex h-full min-w-0 flex-col justify-center bg-ink-900 px-1.5 text-white" style={{ width: `${sprayShare}%` }}>
         <span className="flex items-center gap-1 truncate font-semibold">
           {conflicted ? <TriangleAlert aria-hidden className="size-3.5 shrink-0 text-red-300" /> : null}
-          {session.jobTitle}
+          <span className="truncate">
+            {session.jobTitle}
+            <span className="sr-only">, </span>
+          </span>
         </span>
-        <span className="truncate">{session.layerName}</span>
+        <span className="truncate">
+          {session.layerName}
+          <span className="sr-only">
+            : {timeText(start)} to {timeText(end)}, last coat by {timeText(sprayEnd)}
+            {conflicted ? ", has a conflict" : ""}
+          </span>
+        </span>
       </span>
       {sprayShare < 100 ? <span aria-hidden className="h-full flex-1 bg-[repeating-linear-gradient(135deg,#dedbd3_0_6px,#eeece7_6px_12px)]" /> : null}
     </button>
