@@ -41,6 +41,7 @@ import { quotesRouter } from "./modules/quotes/quotes.router";
 import { messagesRouter } from "./modules/messages/messages.router";
 import { portalRouter } from "./modules/portal/portal.router";
 import { paymentsRouter } from "./modules/payments/payments.router";
+import { boothsRouter, scheduleRouter } from "./modules/schedule/schedule.router";
 import { gunsRouter } from "./modules/guns/guns.router";
 import { finishRecordRouter } from "./modules/finish-record/finish-record.router";
 
@@ -165,6 +166,8 @@ export function createApp(options: CreateAppOptions) {
     ["/portal", portalRouter(deps)],
     ["/payments", paymentsRouter(deps)],
     ["/guns", gunsRouter(deps)],
+    ["/booths", boothsRouter(deps)],
+    ["/schedule", scheduleRouter(deps)],
     ["/jobs", finishRecordRouter(deps)],
   ];
   for (const [prefix, router] of mounts) api.use(prefix, router);

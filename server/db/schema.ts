@@ -13,3 +13,4 @@ export * from "./tables/quotes";
 export * from "./tables/payments";
 export * from "./tables/equipment";
 export * from "./tables/booth";
+export * from "./tables/schedule";

@@ -20,7 +20,7 @@ export const errorHandler: ErrorRequestHandler = (err: unknown, _req, res, _next
     err = storageFull();
   }
   if (err instanceof HttpError) {
-    res.status(err.status).json({ error: { code: err.code, message: err.message, ...(err.fields ? { fields: err.fields } : {}) } });
+    res.status(err.status).json({ error: { code: err.code, message: err.message, ...(err.fields ? { fields: err.fields } : {}), ...err.extra } });
     return;
   }
   if (err instanceof ZodError) {

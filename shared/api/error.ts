@@ -10,6 +10,10 @@ export const apiErrorBodySchema = z.object({
     message: z.string(),
     fields: z.record(z.string(), z.string()).optional(),
     requestId: z.string().optional(),
+    /** With `version_conflict`: the record as it is now, and who saved it when. */
+    current: z.unknown().optional(),
+    changedBy: z.string().nullable().optional(),
+    changedAt: z.string().nullable().optional(),
   }),
 });
 export type ApiErrorBody = z.infer<typeof apiErrorBodySchema>;
@@ -21,6 +25,7 @@ export const ERROR_CODES = [
   "forbidden",
   "not_found",
   "conflict",
+  "version_conflict",
   "payload_too_large",
   "unsupported_media_type",
   "rate_limited",

@@ -47,3 +47,9 @@ export function patchSchemaOf<T extends z.ZodRawShape>(schema: z.ZodObject<T>): 
   const shape = Object.fromEntries(Object.entries(schema.shape).map(([key, field]) => [key, ((field instanceof z.ZodDefault ? field.removeDefault() : field) as z.ZodType).optional()]));
   return z.object(shape) as unknown as z.ZodObject<Patched<T>>;
 }
+
+/** The version of a record an edit was made from (PUT and PATCH send it; a stale one is refused with 409). */
+export const versionSchema = z.preprocess(
+  fromDigits,
+  z.number({ error: "Send the version of the record you are changing (version)" }).int("Version is a whole number").positive("Version is a positive number"),
+);

@@ -1,5 +1,5 @@
 import { z } from "zod";
-import { optionalText, requiredText } from "./common.schema";
+import { optionalText, requiredText, versionSchema } from "./common.schema";
 import { pageQuerySchema, sortSchema } from "../api/pagination";
 
 export const customerFieldsSchema = z.object({
@@ -21,7 +21,7 @@ export const customerFieldsSchema = z.object({
 export const createCustomerInputSchema = customerFieldsSchema;
 export type CreateCustomerInput = z.input<typeof createCustomerInputSchema>;
 
-export const updateCustomerInputSchema = customerFieldsSchema.partial();
+export const updateCustomerInputSchema = customerFieldsSchema.partial().extend({ version: versionSchema });
 export type UpdateCustomerInput = z.input<typeof updateCustomerInputSchema>;
 
 export const listCustomersQuerySchema = pageQuerySchema.extend({
@@ -30,6 +30,8 @@ export const listCustomersQuerySchema = pageQuerySchema.extend({
 export type ListCustomersQuery = z.infer<typeof listCustomersQuerySchema>;
 
 export type CustomerDto = {
+  /** The edit version: goes up with every change; an edit sends the one it read. */
+  version: number;
   id: number;
   name: string;
   email: string | null;

@@ -1,6 +1,6 @@
 import { z } from "zod";
 import { AREA_UNITS, SUBSTRATES } from "../domain/substrates";
-import { idSchema, optionalText, requiredText } from "./common.schema";
+import { idSchema, optionalText, requiredText, versionSchema } from "./common.schema";
 
 export const MAX_ITEM_AREA = 1000;
 
@@ -18,7 +18,7 @@ export const jobItemFieldsSchema = z.object({
 export const createJobItemInputSchema = jobItemFieldsSchema;
 export type CreateJobItemInput = z.input<typeof createJobItemInputSchema>;
 
-export const updateJobItemInputSchema = jobItemFieldsSchema.partial();
+export const updateJobItemInputSchema = jobItemFieldsSchema.partial().extend({ version: versionSchema });
 export type UpdateJobItemInput = z.input<typeof updateJobItemInputSchema>;
 
 export const jobItemParamsSchema = z.object({ id: idSchema, itemId: idSchema });

@@ -1,6 +1,6 @@
 import { z } from "zod";
 import { STAGES, type Stage } from "../domain/stages";
-import { idSchema, isoDateSchema, optionalText, requiredText } from "./common.schema";
+import { idSchema, isoDateSchema, optionalText, requiredText, versionSchema } from "./common.schema";
 import { pageQuerySchema, sortSchema } from "../api/pagination";
 
 export const stageSchema = z.enum(STAGES, { error: `Stage must be one of: ${STAGES.join(", ")}` });
@@ -14,7 +14,7 @@ export const createJobInputSchema = z.object({
 });
 export type CreateJobInput = z.input<typeof createJobInputSchema>;
 
-export const updateJobInputSchema = createJobInputSchema.partial();
+export const updateJobInputSchema = createJobInputSchema.partial().extend({ version: versionSchema });
 export type UpdateJobInput = z.input<typeof updateJobInputSchema>;
 
 export const changeStageInputSchema = z.object({
@@ -42,6 +42,8 @@ export const listJobsQuerySchema = pageQuerySchema.extend({
 export type ListJobsQuery = z.infer<typeof listJobsQuerySchema>;
 
 export type JobItemDto = {
+  /** The edit version: goes up with every change; an edit sends the one it read. */
+  version: number;
   id: number;
   jobId: number;
   name: string;
@@ -64,6 +66,8 @@ export type StageEventDto = {
 
 /** A job as the staff see it. Customers get the same shape without `notes` (internal). */
 export type JobDto = {
+  /** The edit version: goes up with every change; an edit sends the one it read. */
+  version: number;
   id: number;
   title: string;
   stage: Stage;
@@ -77,6 +81,8 @@ export type JobDto = {
   createdAt: string;
   updatedAt: string;
   stageChangedAt: string;
+  /** On the board: the job's next session on the booth schedule, if one is booked. */
+  nextBoothSlot?: { startsAt: string; boothName: string } | null;
 };
 
 export type JobDetailDto = JobDto & {

@@ -1,7 +1,7 @@
 import { z } from "zod";
 import { MATERIAL_CATEGORIES, PURCHASE_UNITS, type MaterialCategory, type PurchaseUnit } from "../domain/materials";
 import type { Caution } from "../domain/safety";
-import { idSchema, isoDateSchema, optionalText, requiredText } from "./common.schema";
+import { idSchema, isoDateSchema, optionalText, requiredText, versionSchema } from "./common.schema";
 import { parseMoneyToCents } from "../quote/money";
 
 /**
@@ -70,7 +70,7 @@ export const createMaterialInputSchema = materialFieldsSchema;
 export type CreateMaterialInput = z.input<typeof createMaterialInputSchema>;
 export type CreateMaterialValues = z.output<typeof createMaterialInputSchema>;
 
-export const updateMaterialInputSchema = materialFieldsSchema.partial();
+export const updateMaterialInputSchema = materialFieldsSchema.partial().extend({ version: versionSchema });
 export type UpdateMaterialInput = z.input<typeof updateMaterialInputSchema>;
 
 export const listMaterialsQuerySchema = z.object({
@@ -89,7 +89,7 @@ export const lotFieldsSchema = z.object({
 });
 export const createLotInputSchema = lotFieldsSchema;
 export type CreateLotInput = z.input<typeof createLotInputSchema>;
-export const updateLotInputSchema = lotFieldsSchema.partial();
+export const updateLotInputSchema = lotFieldsSchema.partial().extend({ version: versionSchema });
 export type UpdateLotInput = z.input<typeof updateLotInputSchema>;
 
 export const lotParamsSchema = z.object({ id: idSchema, lotId: idSchema });
@@ -107,6 +107,7 @@ export const uploadMaterialFileInputSchema = z.object({
 });
 
 export type LotDto = {
+  version: number;
   id: number;
   materialId: number;
   lotNumber: string;
@@ -131,6 +132,8 @@ export type MaterialFileDto = {
 /** A material as every staff member may see it: no money. */
 export type MaterialStaffDto = {
   id: number;
+  /** The edit version: goes up with every change; an edit sends the one it read. */
+  version: number;
   code: string;
   name: string;
   category: MaterialCategory;

@@ -1,6 +1,6 @@
 import { z } from "zod";
 import type { ColourVerdict } from "../domain/colour-verdict";
-import { idSchema, isoDateSchema, optionalText, requiredText } from "./common.schema";
+import { idSchema, isoDateSchema, optionalText, requiredText, versionSchema } from "./common.schema";
 import { pageQuerySchema } from "../api/pagination";
 import { optionalNumber } from "./prep.schema";
 import type { UploadDto } from "./upload.schema";
@@ -90,6 +90,7 @@ export type CreatePanelInput = z.input<typeof createPanelInputSchema>;
 export const updatePanelInputSchema = z
   .object(panelFields)
   .partial()
+  .extend({ version: versionSchema })
   .superRefine(labAllOrNone)
   .superRefine(checkSetup)
   .superRefine((v, ctx) => checkTemp({ boothTemp: v.boothTemp, tempUnit: v.tempUnit ?? undefined }, ctx));
@@ -135,6 +136,8 @@ export type ColourComparisonDto = {
 };
 
 export type PanelDto = {
+  /** The edit version: goes up with every change; an edit sends the one it read. */
+  version: number;
   id: number;
   /** e.g. "Candy Garnet over Fine Silver, 6:1, 4 coats" */
   label: string;

@@ -2,7 +2,7 @@ import { z } from "zod";
 import { LAYER_KINDS, type LayerKind } from "../domain/layers";
 import type { MaterialCategory, PurchaseUnit } from "../domain/materials";
 import type { Caution } from "../domain/safety";
-import { idSchema, optionalText, requiredText } from "./common.schema";
+import { idSchema, optionalText, requiredText, versionSchema } from "./common.schema";
 import { optionalNumber, requiredNumber } from "./material.schema";
 
 export const MAX_PLAN_LAYERS = 20;
@@ -57,6 +57,9 @@ export const planDocumentSchema = z.object({
   layers: z.array(planLayerInputSchema).max(MAX_PLAN_LAYERS, `At most ${MAX_PLAN_LAYERS} layers`),
 });
 export type PlanDocumentInput = z.input<typeof planDocumentSchema>;
+/** A save from the editor: the document and the plan's `version` it was opened at. */
+export const savePlanInputSchema = planDocumentSchema.extend({ version: versionSchema });
+export type SavePlanInput = z.output<typeof savePlanInputSchema>;
 export type PlanDocument = z.output<typeof planDocumentSchema>;
 
 export const listPlansQuerySchema = z.object({
@@ -176,6 +179,8 @@ export type PlanDto = {
   updatedAt: string;
   versionCount: number;
   latest: PlanVersionDto;
+  /** The edit version of the plan (goes up with every save; a save sends the one it read). Not `latest.version`. */
+  version: number;
 };
 
 export type LayerEstimateDto = {

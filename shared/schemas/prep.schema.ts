@@ -1,7 +1,7 @@
 import { z } from "zod";
 import { SCUFF_MEDIA, type PrepStatus, type PrepStep, type ScuffMedium } from "../domain/prep";
 import type { Substrate } from "../domain/substrates";
-import { idSchema, optionalText, requiredText } from "./common.schema";
+import { idSchema, optionalText, requiredText, versionSchema } from "./common.schema";
 import type { UploadDto } from "./upload.schema";
 
 /** Empty input → null; otherwise a number (form inputs send strings). */
@@ -27,7 +27,7 @@ export type PrepStepsInput = z.input<typeof prepStepsInputSchema>;
 export const createPrepRecordInputSchema = prepStepsInputSchema.extend({ itemId: idSchema });
 export type CreatePrepRecordInput = z.input<typeof createPrepRecordInputSchema>;
 
-export const updatePrepRecordInputSchema = prepStepsInputSchema;
+export const updatePrepRecordInputSchema = prepStepsInputSchema.extend({ version: versionSchema });
 export type UpdatePrepRecordInput = z.input<typeof updatePrepRecordInputSchema>;
 
 export const reopenPrepRecordInputSchema = z.object({ reason: requiredText(500, "Reason") });
@@ -36,6 +36,8 @@ export type ReopenPrepRecordInput = z.input<typeof reopenPrepRecordInputSchema>;
 export const listPrepRecordsQuerySchema = z.object({ jobId: idSchema });
 
 export type PrepRecordDto = {
+  /** The edit version: goes up with every change; an edit sends the one it read. */
+  version: number;
   id: number;
   jobId: number;
   itemId: number;

@@ -1,5 +1,5 @@
 import { z } from "zod";
-import { fromDigits, idSchema, isoDateSchema, optionalText, requiredText } from "./common.schema";
+import { fromDigits, idSchema, isoDateSchema, optionalText, requiredText, versionSchema } from "./common.schema";
 import { pageQuerySchema, sortSchema } from "../api/pagination";
 import { hasAtMostDecimals } from "../quote/money";
 import { QUOTE_LINE_KINDS, TAXABLE_KINDS, type QuoteLine, type QuoteLineKind, type QuoteTotals, type TaxableKind, type TaxRounding } from "../quote/totals";
@@ -100,6 +100,8 @@ export const updateQuoteInputSchema = z.object({
   taxedKinds: z.array(z.enum(TAXABLE_KINDS, { error: `Taxed kinds are: ${TAXABLE_KINDS.join(", ")}` })).max(4).optional(),
   taxRounding: z.enum(["invoice", "line"], { error: "Tax is rounded per invoice or per line" }).optional(),
   depositPercent: depositPercentSchema.optional(),
+  /** The quote's edit version the change was made from (`version` is the quote's own version number). */
+  editVersion: versionSchema,
 });
 export type UpdateQuoteInput = z.input<typeof updateQuoteInputSchema>;
 
@@ -197,6 +199,8 @@ export type QuoteDto = {
 };
 
 export type QuoteDetailDto = QuoteDto & {
+  /** The edit version: goes up with every change; an edit sends the one it read (as `editVersion`). */
+  editVersion: number;
   current: QuoteVersionDto;
   versions: QuoteVersionSummary[];
   /** What the customer is currently looking at: the latest version that was sent (null while only a draft exists). */

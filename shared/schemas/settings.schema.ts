@@ -2,7 +2,7 @@ import { z } from "zod";
 import { VOLUME_UNIT_IDS } from "../mix/index";
 import { AREA_UNITS } from "../domain/substrates";
 import { LAYER_KINDS } from "../domain/layers";
-import { patchSchemaOf } from "./common.schema";
+import { patchSchemaOf, versionSchema } from "./common.schema";
 
 /** Kinds of quote line a shop may charge sales tax on (which kinds are taxed depends on the state). */
 export const TAXABLE_LINE_KINDS = ["labour", "materials", "supplies", "sublet"] as const;
@@ -55,8 +55,10 @@ export const shopSettingsSchema = z.object({
     .max(100_000, "Low-disk warning is limited to 100000 GB"),
 });
 export type ShopSettings = z.infer<typeof shopSettingsSchema>;
+/** The settings as the owner edits them: with the edit version a save sends back. */
+export type EditableShopSettings = ShopSettings & { version: number };
 
-export const updateShopSettingsSchema = patchSchemaOf(shopSettingsSchema).refine((s) => s.deltaEMatch === undefined || s.deltaEClose === undefined || s.deltaEMatch <= s.deltaEClose, {
+export const updateShopSettingsSchema = patchSchemaOf(shopSettingsSchema).extend({ version: versionSchema }).refine((s) => s.deltaEMatch === undefined || s.deltaEClose === undefined || s.deltaEMatch <= s.deltaEClose, {
   path: ["deltaEClose"],
   message: "The 'close' threshold must be at least the 'match' threshold",
 });

@@ -1,6 +1,6 @@
 import { z } from "zod";
 import { LENGTH_UNITS, PRESSURE_UNITS, SETUP_LIMITS, type SpraySetup } from "../domain/spray-setup";
-import { idSchema, optionalText, requiredText } from "./common.schema";
+import { idSchema, optionalText, requiredText, versionSchema } from "./common.schema";
 import { optionalNumber } from "./prep.schema";
 
 /** The spray set-up fields, for spreading into a coat log's or a panel's input schema (then add `checkSetup`). */
@@ -49,6 +49,6 @@ export const gunInputSchema = z.object({
   active: z.boolean({ error: "active must be true or false" }).optional(),
 });
 export type GunInput = z.input<typeof gunInputSchema>;
-export const updateGunInputSchema = gunInputSchema.partial();
+export const updateGunInputSchema = gunInputSchema.partial().extend({ version: versionSchema });
 
-export type GunDto = { id: number; name: string; description: string | null; active: boolean };
+export type GunDto = { id: number; name: string; description: string | null; active: boolean; version: number };

@@ -1,5 +1,5 @@
 import { z } from "zod";
-import { idSchema, optionalText } from "./common.schema";
+import { idSchema, optionalText, versionSchema } from "./common.schema";
 import { PANEL_LIGHTS, type PanelLight } from "../domain/spray-setup";
 
 /** What an upload belongs to. Photos go on jobs, items, prep records, coat logs and test panels; data sheets on materials. */
@@ -44,11 +44,14 @@ export const updateUploadInputSchema = z
     shareable: z.boolean({ error: "shareable must be true or false" }).optional(),
     caption: optionalText(200, "Caption"),
     light: z.enum(PANEL_LIGHTS, { error: `light must be one of: ${PANEL_LIGHTS.join(", ")}` }).nullable().optional(),
+    version: versionSchema,
   })
   .refine((v) => v.shareable !== undefined || v.caption !== undefined || v.light !== undefined, { path: ["shareable"], message: "Nothing to change" });
 export type UpdateUploadInput = z.input<typeof updateUploadInputSchema>;
 
 export type UploadDto = {
+  /** The edit version: goes up with every change; an edit sends the one it read. */
+  version: number;
   id: number;
   ownerType: UploadOwnerType;
   ownerId: number;

@@ -1,7 +1,7 @@
 import { z } from "zod";
 import { ROLES } from "../domain/roles";
 import { emailSchema, newPasswordSchema } from "./auth.schema";
-import { idSchema, requiredText } from "./common.schema";
+import { idSchema, requiredText, versionSchema } from "./common.schema";
 import { pageQuerySchema, sortSchema } from "../api/pagination";
 
 const roleSchema = z.enum(ROLES, { error: `Role must be one of: ${ROLES.join(", ")}` });
@@ -27,7 +27,8 @@ export const updateUserInputSchema = z
     active: z.boolean({ error: "Active must be true or false" }),
     customerId: idSchema.nullable(),
   })
-  .partial();
+  .partial()
+  .extend({ version: versionSchema });
 export type UpdateUserInput = z.infer<typeof updateUserInputSchema>;
 
 export const listUsersQuerySchema = pageQuerySchema.extend({
@@ -37,6 +38,8 @@ export const listUsersQuerySchema = pageQuerySchema.extend({
 export type ListUsersQuery = z.infer<typeof listUsersQuerySchema>;
 
 export type UserDto = {
+  /** The edit version: goes up with every change; an edit sends the one it read. */
+  version: number;
   id: string;
   email: string;
   name: string;

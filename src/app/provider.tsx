@@ -18,6 +18,9 @@ function isFatal(error: unknown): boolean {
  * - 5xx / network on a first load: thrown to the nearest error boundary.
  * - Any failure of a background refresh while data is on screen: a toast, and the old data stays.
  * - 5xx on a write: the error boundary (forms show 4xx and network failures themselves).
+ * - 409 version_conflict on a write (someone saved the record first): what is on screen is refetched, so the form
+ *   (which keeps what was typed) now holds the newer version: saving again applies the user's change over theirs,
+ *   cancelling keeps theirs. The plan editor offers both as buttons.
  */
 export function createQueryClient() {
   const queryClient: QueryClient = new QueryClient({
@@ -30,6 +33,7 @@ export function createQueryClient() {
     mutationCache: new MutationCache({
       onError: (error) => {
         if (isApiError(error) && error.status === 401) endSession();
+        if (isApiError(error) && error.code === "version_conflict") void queryClient.invalidateQueries();
       },
     }),
     defaultOptions: {

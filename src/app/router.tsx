@@ -100,6 +100,7 @@ export function createAppRouter(queryClient: QueryClient) {
             { path: "compliance", lazy: page(() => import("./routes/staff/compliance")) },
             { path: "audit", lazy: page(() => import("./routes/staff/audit")) },
             { path: "payments", lazy: page(() => import("./routes/staff/payments")) },
+            { path: "schedule", lazy: page(() => import("./routes/staff/schedule")) },
             { path: "settings", lazy: page(() => import("./routes/staff/settings")) },
           ],
         },

@@ -1,5 +1,5 @@
 import type { LucideIcon } from "lucide-react";
-import { ChartColumn, CreditCard, History, Leaf, Settings } from "lucide-react";
+import { CalendarRange, ChartColumn, CreditCard, History, Leaf, Settings } from "lucide-react";
 import { CircleUserRound, Columns3, FlaskConical, Inbox, Layers, ListChecks, Package, ReceiptText, Users, Contact, SprayCan, Palette } from "lucide-react";
 import type { Access, Role } from "@shared/domain/roles";
 import { paths } from "./paths";
@@ -24,6 +24,7 @@ export const STAFF_NAV: NavItem[] = [
   { label: "Board", to: paths.board, icon: Columns3, access: "staff" },
   { label: "Jobs", to: paths.jobs, icon: ListChecks, access: "staff" },
   { label: "Booth", to: paths.boothIndex, icon: SprayCan, access: "staff", roles: ["painter", "owner"] },
+  { label: "Schedule", to: paths.schedule, icon: CalendarRange, access: "office" },
   { label: "Customers", to: paths.customers, icon: Contact, access: "office" },
   { label: "Quotes", to: paths.quotes, icon: ReceiptText, access: "office" },
   { label: "Plans", to: paths.plans, icon: Layers, access: "staff" },

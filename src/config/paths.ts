@@ -42,6 +42,7 @@ export const paths = {
   compliance: "/compliance",
   audit: "/audit",
   payments: "/payments",
+  schedule: "/schedule",
   settings: "/settings",
   portal: "/portal",
   portalAccount: "/portal/account",

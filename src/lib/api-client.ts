@@ -7,9 +7,19 @@ export class ApiError extends Error {
   readonly fields: Record<string, string>;
   /** The server's id for the request (in its log), for the user to quote when reporting a problem. */
   readonly requestId: string | null;
+  /** With code `version_conflict`: the record as it is now, and who saved it when. */
+  readonly conflict: { current: unknown; changedBy: string | null; changedAt: string | null } | null;
 
-  constructor(status: number, code: string, message: string, fields: Record<string, string> = {}, requestId: string | null = null) {
+  constructor(
+    status: number,
+    code: string,
+    message: string,
+    fields: Record<string, string> = {},
+    requestId: string | null = null,
+    conflict: ApiError["conflict"] = null,
+  ) {
     super(message);
+    this.conflict = conflict;
     this.name = "ApiError";
     this.status = status;
     this.code = code;
@@ -68,8 +78,9 @@ async function toApiError(response: Response): Promise<ApiError> {
   const parsed = apiErrorBodySchema.safeParse(body);
   const requestId = response.headers.get("X-Request-Id");
   if (parsed.success) {
-    const { code, message, fields } = parsed.data.error;
-    return new ApiError(response.status, code, message, fields, parsed.data.error.requestId ?? requestId);
+    const { code, message, fields, current, changedBy, changedAt } = parsed.data.error;
+    const conflict = code === "version_conflict" ? { current, changedBy: changedBy ?? null, changedAt: changedAt ?? null } : null;
+    return new ApiError(response.status, code, message, fields, parsed.data.error.requestId ?? requestId, conflict);
   }
   const code = FALLBACK_CODES[response.status] ?? (response.status >= 500 ? "internal" : "bad_request");
   const message =

@@ -11,6 +11,7 @@ export function applyServerErrors<T extends FieldValues>(
   formFields: readonly Path<T>[],
 ): string {
   if (!isApiError(error)) return "Something went wrong. Try again.";
+  if (error.code === "version_conflict") return versionConflictMessage(error.message);
   let placed = 0;
   const leftovers: string[] = [];
   for (const [field, message] of Object.entries(error.fields)) {
@@ -24,3 +25,7 @@ export function applyServerErrors<T extends FieldValues>(
   if (placed > 0 && leftovers.length === 0 && error.status === 400) return "Check the highlighted fields.";
   return error.message;
 }
+
+/** Who saved first and when (the server's words), and the two ways on. */
+export const versionConflictMessage = (serverMessage: string) =>
+  `${serverMessage} What you typed is still here: save again to put your changes over theirs, or cancel to keep theirs.`;

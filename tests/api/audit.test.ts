@@ -1,13 +1,13 @@
 import { describe, expect, it } from "vitest";
-import { makeShop } from "../support/test-app";
+import { makeShop, editAt } from "../support/test-app";
 import type { RouteInfo } from "../../server/http/route-list";
 
 describe("audit trail", () => {
   it("lists audited changes newest first with filters by kind, user and date, paged on the server", async () => {
     const s = await makeShop();
-    await s.as("owner").patch("/api/settings").send({ labourRateCents: 9100 });
-    await s.as("owner").patch(`/api/users/${s.painter.id}`).send({ name: "Pat Painter" });
-    await s.as("owner").patch(`/api/users/${s.estimator.id}`).send({ role: "painter" });
+    await editAt(s, "owner", "/api/settings", { labourRateCents: 9100 });
+    await editAt(s, "owner", `/api/users/${s.painter.id}`, { name: "Pat Painter" });
+    await editAt(s, "owner", `/api/users/${s.estimator.id}`, { role: "painter" });
     const all = await s.as("owner").get("/api/audit?pageSize=2");
     expect(all.status).toBe(200);
     expect(all.body.total).toBe(3);
@@ -24,7 +24,7 @@ describe("audit trail", () => {
 
   it("has no route that changes or deletes an entry", async () => {
     const s = await makeShop();
-    await s.as("owner").patch("/api/settings").send({ taxPercent: 5 });
+    await editAt(s, "owner", "/api/settings", { taxPercent: 5 });
     const routes: RouteInfo[] = s.app.routes;
     const methods = routes.filter((r) => r.path.startsWith("/api/audit")).map((r) => r.method);
     expect(methods).toEqual(["GET"]);

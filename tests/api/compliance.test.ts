@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
 import { parse } from "csv-parse/sync";
-import { makeShop, type Shop } from "../support/test-app";
+import { editAt, makeShop, type Shop } from "../support/test-app";
 import { addMixedBatch } from "../support/batches";
 import { lbPerGalToGPerL } from "../../shared/mix/index";
 
@@ -10,7 +10,7 @@ const LB_G = 453.59237;
 
 async function shopWithLimits(extra: object = {}) {
   const s = await makeShop();
-  await s.as("owner").patch("/api/settings").send({ vocLimits: [{ layerKind: "clear", limitGPerL: 250 }, { layerKind: "ground_coat", limitGPerL: 420 }], ...extra });
+  await editAt(s, "owner", "/api/settings", { vocLimits: [{ layerKind: "clear", limitGPerL: 250 }, { layerKind: "ground_coat", limitGPerL: 420 }], ...extra });
   return s;
 }
 

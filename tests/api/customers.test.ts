@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { addJob, makeShop } from "../support/test-app";
+import { addJob, makeShop, editAt } from "../support/test-app";
 
 describe("customers", () => {
   it("creates, edits and reads a customer, normalising the e-mail", async () => {
@@ -7,7 +7,7 @@ describe("customers", () => {
     const res = await s.as("estimator").post("/api/customers").send({ name: "Quinn Harlow", email: " Quinn@Example.TEST ", phone: "", notes: "Met at the bike show" });
     expect(res.status).toBe(201);
     expect(res.body).toMatchObject({ name: "Quinn Harlow", email: "quinn@example.test", phone: null, notes: "Met at the bike show", jobCount: 0 });
-    const edit = await s.as("estimator").patch(`/api/customers/${res.body.id}`).send({ phone: "555-0119" });
+    const edit = await editAt(s, "estimator", `/api/customers/${res.body.id}`, { phone: "555-0119" });
     expect(edit.body).toMatchObject({ phone: "555-0119", name: "Quinn Harlow" });
   });
 

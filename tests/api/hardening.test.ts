@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
 import { eq } from "drizzle-orm";
-import { makeShop, type Shop } from "../support/test-app";
+import { makeShop, type Shop, editAt } from "../support/test-app";
 import { approvedQuote, draftQuote, payDeposit, sentQuote, withPayments } from "../support/quotes";
 import { addJob } from "../support/test-app";
 import { swatchPng } from "../support/booth-fixtures";
@@ -133,7 +133,7 @@ describe("a job with quotes or payments stays with its customer", () => {
   it("moving a job that has a sent quote to another customer is refused with 409, and the other customer's portal shows nothing of it", async () => {
     const s = await makeShop();
     const q = await sentQuote(s, s.jobA.id);
-    const res = await s.as("estimator").patch(`/api/jobs/${s.jobA.id}`).send({ customerId: s.customerB.id });
+    const res = await editAt(s, "estimator", `/api/jobs/${s.jobA.id}`, { customerId: s.customerB.id });
     expect(res.status).toBe(409);
     expect(res.body.error).toMatchObject({ code: "conflict", fields: { customerId: expect.stringMatching(/quotes/) } });
     expect(res.body.error.message).toMatch(/Avery Stone/);
@@ -146,10 +146,10 @@ describe("a job with quotes or payments stays with its customer", () => {
     const si = await withPayments(s);
     const q = await approvedQuote(s, s.inquiryA.id);
     await payDeposit(s, si, q.id);
-    expect((await s.as("owner").patch(`/api/jobs/${s.inquiryA.id}`).send({ customerId: s.customerB.id })).status).toBe(409);
-    expect((await s.as("owner").patch(`/api/jobs/${s.inquiryA.id}`).send({ customerId: s.customerA.id, title: "Golf cart roof, two-tone" })).status).toBe(200);
+    expect((await editAt(s, "owner", `/api/jobs/${s.inquiryA.id}`, { customerId: s.customerB.id })).status).toBe(409);
+    expect((await editAt(s, "owner", `/api/jobs/${s.inquiryA.id}`, { customerId: s.customerA.id, title: "Golf cart roof, two-tone" })).status).toBe(200);
     const fresh = addJob(s, s.customerA.id, { title: "Nothing sent yet" });
-    const moved = await s.as("estimator").patch(`/api/jobs/${fresh.id}`).send({ customerId: s.customerB.id });
+    const moved = await editAt(s, "estimator", `/api/jobs/${fresh.id}`, { customerId: s.customerB.id });
     expect(moved.status).toBe(200);
     expect(moved.body.customerId).toBe(s.customerB.id);
   });

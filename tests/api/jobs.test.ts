@@ -181,7 +181,7 @@ describe("job items", () => {
     const add = await s.as("estimator").post(`/api/jobs/${s.jobA.id}/items`).send({ name: "Chin bar", substrate: "plastic", surfaceArea: "0.05", areaUnit: "m2" });
     expect(add.status).toBe(201);
     expect(add.body).toMatchObject({ name: "Chin bar", substrate: "plastic", surfaceArea: 0.05, areaUnit: "m2", jobId: s.jobA.id });
-    const edit = await s.as("estimator").patch(`/api/jobs/${s.jobA.id}/items/${add.body.id}`).send({ surfaceArea: 0.6, areaUnit: "ft2" });
+    const edit = await s.as("estimator").patch(`/api/jobs/${s.jobA.id}/items/${add.body.id}`).send({ surfaceArea: 0.6, areaUnit: "ft2", version: add.body.version });
     expect(edit.body).toMatchObject({ surfaceArea: 0.6, areaUnit: "ft2", name: "Chin bar" });
     const list = await s.as("painter").get(`/api/jobs/${s.jobA.id}/items`);
     expect(list.body.map((i: { name: string }) => i.name)).toEqual(["Helmet shell", "Chin bar"]);

@@ -1,7 +1,7 @@
 import { describe, expect, it } from "vitest";
 import { existsSync, readdirSync } from "node:fs";
 import { auditLog } from "../../server/db/schema";
-import { makeShop } from "../support/test-app";
+import { makeShop, editAt } from "../support/test-app";
 import { finishFixtures, keysOf, MONEY_KEY, TINY_PDF } from "../support/finish-fixtures";
 import { centsPerMl, mlToPurchaseUnit, purchaseUnitToMl } from "../../shared/domain/material-units";
 import { MAX_DOCUMENT_BYTES } from "../../server/modules/uploads/storage";
@@ -45,7 +45,7 @@ describe("materials catalogue", () => {
   it("a cost change is audited as money with before and after", async () => {
     const s = await makeShop();
     const id = (await s.as("owner").post("/api/materials").send(sealer)).body.id;
-    const res = await s.as("estimator").patch(`/api/materials/${id}`).send({ costCents: 5900, notes: "Price rise in spring" });
+    const res = await editAt(s, "estimator", `/api/materials/${id}`, { costCents: 5900, notes: "Price rise in spring" });
     expect(res.status).toBe(200);
     const entry = s.db.select().from(auditLog).all().find((a) => a.action === "cost_changed")!;
     expect(entry).toMatchObject({ kind: "money", entity: "material", entityId: String(id), userId: s.estimator.id });
@@ -61,7 +61,7 @@ describe("materials catalogue", () => {
     // Clear: 2 qt on hand, level 1 qt → fine. Take it down to 0.75 qt.
     let low = await s.as("painter").get("/api/materials/low-stock");
     expect(low.body.map((m: { code: string }) => m.code)).toEqual([]);
-    await s.as("owner").patch(`/api/materials/${f.clear.id}/lots/${f.clearLot.id}`).send({ quantityOnHand: 0.75 });
+    await editAt(s, "owner", `/api/materials/${f.clear.id}/lots/${f.clearLot.id}`, { quantityOnHand: 0.75 }, { read: `/api/materials/${f.clear.id}`, pick: (b) => (b.lots as { id: number; version: number }[]).find((l) => l.id === f.clearLot.id)! });
     low = await s.as("painter").get("/api/materials/low-stock");
     expect(low.body.map((m: { code: string }) => m.code)).toEqual(["T-CL-01"]);
     expect(low.body[0]).toMatchObject({ stockOnHand: 0.75, lowStock: true });
@@ -73,7 +73,7 @@ describe("materials catalogue", () => {
     const f = finishFixtures(s);
     const inUse = await s.as("owner").delete(`/api/materials/${f.clear.id}`);
     expect(inUse.status).toBe(409);
-    await s.as("owner").patch(`/api/materials/${f.clear.id}`).send({ active: false });
+    await editAt(s, "owner", `/api/materials/${f.clear.id}`, { active: false });
     const codes = (await s.as("owner").get("/api/materials")).body.map((m: { code: string }) => m.code);
     expect(codes).not.toContain("T-CL-01");
     expect((await s.as("owner").get("/api/materials?includeInactive=true")).body.map((m: { code: string }) => m.code)).toContain("T-CL-01");
@@ -97,8 +97,8 @@ describe("lots", () => {
     expect(backwards.status).toBe(400);
     expect(backwards.body.error.fields).toHaveProperty("expiresOn");
     expect((await s.as("owner").post(`/api/materials/${f.clear.id}/lots`).send({ lotNumber: "X", quantityOnHand: -1 })).status).toBe(400);
-    expect((await s.as("owner").patch(`/api/materials/${f.hardener.id}/lots/${f.clearLot.id}`).send({ quantityOnHand: 1 })).status).toBe(404);
-    expect((await s.as("painter").patch(`/api/materials/${f.clear.id}/lots/${f.clearLot.id}`).send({ quantityOnHand: 9 })).status).toBe(403);
+    expect((await s.as("owner").patch(`/api/materials/${f.hardener.id}/lots/${f.clearLot.id}`).send({ quantityOnHand: 1, version: 1 })).status).toBe(404);
+    expect((await s.as("painter").patch(`/api/materials/${f.clear.id}/lots/${f.clearLot.id}`).send({ quantityOnHand: 9, version: 1 })).status).toBe(403);
     expect((await s.as("owner").delete(`/api/materials/${f.clear.id}/lots/${added.body.id}`)).status).toBe(204);
     expect((await s.as("owner").get(`/api/materials/${f.clear.id}/lots`)).body).toHaveLength(1);
   });

@@ -1,7 +1,7 @@
 import { describe, expect, it } from "vitest";
 import { eq } from "drizzle-orm";
 import { auditLog, materialLots, mixSheets, planVersions } from "../../server/db/schema";
-import { makeShop } from "../support/test-app";
+import { makeShop, editAt } from "../support/test-app";
 import { finishFixtures, keysOf, MONEY_KEY } from "../support/finish-fixtures";
 import { roundForMeasuring } from "../../shared/mix/index";
 
@@ -71,7 +71,7 @@ describe("making a mix sheet", () => {
     expect(Object.keys(res.body.error.fields).sort()).toEqual(["amount", "unit"]);
     res = await s.as("owner").post("/api/mix-sheets").send({ jobId: s.jobA.id, layerId: f.layer.id, mode: "total", amount: 1e12, unit: "mL" });
     expect(res.status).toBe(400);
-    await s.as("owner").patch(`/api/materials/${f.reducer.id}`).send({ densityGPerMl: null });
+    await editAt(s, "owner", `/api/materials/${f.reducer.id}`, { densityGPerMl: null });
     res = await s.as("owner").post("/api/mix-sheets").send({ jobId: s.jobA.id, layerId: f.layer.id, mode: "total", amount: 100, unit: "mL", weigh: true });
     expect(res.status).toBe(400);
     expect(res.body.error.fields.weigh).toMatch(/T-RD-01/);
@@ -133,7 +133,7 @@ describe("recording a batch as mixed", () => {
     expect(s.db.select().from(planVersions).where(eq(planVersions.id, f.jobPlan.latest.id)).get()!.frozenAt).not.toBeNull();
     expect(s.db.select().from(auditLog).all().some((a) => a.kind === "plan" && a.action === "frozen" && a.userId === s.painter.id)).toBe(true);
     // Changing the catalogue later does not change the record.
-    await s.as("owner").patch(`/api/materials/${f.clear.id}`).send({ vocGPerL: 420, densityGPerMl: 0.95 });
+    await editAt(s, "owner", `/api/materials/${f.clear.id}`, { vocGPerL: 420, densityGPerMl: 0.95 });
     const again = await s.as("owner").get(`/api/mix-sheets/${made.body.id}`);
     expect(again.body.vocGPerL).toBeCloseTo(530, 9);
     expect(again.body.lines[0]).toMatchObject({ vocGPerL: 500, densityGPerMl: 1 });
@@ -162,7 +162,7 @@ describe("recording a batch as mixed", () => {
   it("refuses a lot that holds too little with a 409 naming the line, and changes nothing", async () => {
     const s = await makeShop();
     const f = finishFixtures(s);
-    await s.as("owner").patch(`/api/materials/${f.hardener.id}/lots/${f.hardenerLot.id}`).send({ quantityOnHand: 0.05 });
+    await editAt(s, "owner", `/api/materials/${f.hardener.id}/lots/${f.hardenerLot.id}`, { quantityOnHand: 0.05 }, { read: `/api/materials/${f.hardener.id}`, pick: (b) => (b.lots as { id: number; version: number }[]).find((l) => l.id === f.hardenerLot.id)! });
     const res = await s.as("painter").post(`/api/mix-sheets/${f.sheet.id}/record`).send({
       lines: f.sheet.lines.map((l) => ({ lineId: l.id, lotId: l.suggestedLotId })),
     });
@@ -212,7 +212,7 @@ describe("listing and reach", () => {
     expect(keysOf(detail.body).filter((k) => MONEY_KEY.test(k))).toEqual([]);
 
     // The office changes the plan: version 1 is locked by the draft, so version 2 is made; the draft says it is behind.
-    await s.as("owner").put(`/api/plans/${f.jobPlan.id}`).send({ name: "Changed", layers: [] });
+    await s.as("owner").put(`/api/plans/${f.jobPlan.id}`).send({ name: "Changed", layers: [], version: 1 });
     expect((await s.as("painter").get(`/api/mix-sheets/${f.sheet.id}`)).body).toMatchObject({ planChanged: true, planVersion: 1 });
   });
 });

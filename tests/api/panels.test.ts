@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { makeShop, type Shop } from "../support/test-app";
+import { makeShop, type Shop, editAt } from "../support/test-app";
 import { addPanel, addPhoto } from "../support/booth-fixtures";
 import { auditLog } from "../../server/db/schema";
 
@@ -53,7 +53,7 @@ describe("colour difference of a new panel against the job's approved one", () =
 
   it("follows the shop's own thresholds from settings", async () => {
     const s = await makeShop();
-    expect((await s.as("owner").patch("/api/settings").send({ deltaEMatch: 0.5, deltaEClose: 3 })).status).toBe(200);
+    expect((await editAt(s, "owner", "/api/settings", { deltaEMatch: 0.5, deltaEClose: 3 })).status).toBe(200);
     const p34 = await approvedPair(s, 34);
     expect(p34.vsApproved.verdict).toBe("close"); // 0.9082 ≥ 0.5, < 3
     const colour = await s.as("painter").get(`/api/jobs/${s.jobA.id}/colour`);
@@ -168,7 +168,7 @@ describe("the panel library", () => {
     const noGround = await s.as("painter").post("/api/panels").send({ groundName: "", candyName: "Candy garnet", letDownClear: 6, letDownToner: 1, coats: 4 });
     expect(Object.keys(noGround.body.error.fields)).toEqual(["groundMaterialId"]);
     const p = addPanel(s, { createdBy: s.painter.id });
-    const half = await s.as("painter").patch(`/api/panels/${p.id}`).send({ labL: 20 });
+    const half = await editAt(s, "painter", `/api/panels/${p.id}`, { labL: 20 });
     expect(half.status).toBe(400);
   });
 
@@ -176,9 +176,9 @@ describe("the panel library", () => {
     const s = await makeShop();
     const mine = addPanel(s, { createdBy: s.painter.id });
     const theirs = addPanel(s, { createdBy: s.owner.id });
-    expect((await s.as("painter").patch(`/api/panels/${mine.id}`).send({ coats: 5 })).body.coats).toBe(5);
-    expect((await s.as("painter").patch(`/api/panels/${theirs.id}`).send({ coats: 5 })).status).toBe(403);
-    expect((await s.as("estimator").patch(`/api/panels/${theirs.id}`).send({ coats: 5 })).status).toBe(200);
+    expect((await editAt(s, "painter", `/api/panels/${mine.id}`, { coats: 5 })).body.coats).toBe(5);
+    expect((await editAt(s, "painter", `/api/panels/${theirs.id}`, { coats: 5 })).status).toBe(403);
+    expect((await editAt(s, "estimator", `/api/panels/${theirs.id}`, { coats: 5 })).status).toBe(200);
     expect((await s.as("painter").delete(`/api/panels/${mine.id}`)).status).toBe(403);
     expect((await s.as("owner").delete(`/api/panels/${mine.id}`)).status).toBe(204);
     expect((await s.as("owner").get(`/api/panels/${mine.id}`)).status).toBe(404);

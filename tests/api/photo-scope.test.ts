@@ -67,7 +67,7 @@ describe("panel and job photos follow the job's scope", () => {
     const panel = await panelOfJobB(s);
     const photo = await addPhoto(s, { ownerType: "panel", ownerId: panel.id, jobId: s.jobB.id }, { by: s.painter2.id });
     for (const body of [{ caption: "Renamed" }, { shareable: true }, { light: "booth" }]) {
-      const res = await s.as("painter").patch(`/api/uploads/${photo.id}`).send(body);
+      const res = await s.as("painter").patch(`/api/uploads/${photo.id}`).send({ ...body, version: photo.version });
       expect(res.status, JSON.stringify(body)).toBe(403);
     }
     expect((await s.as("painter").delete(`/api/uploads/${photo.id}`)).status).toBe(403);
@@ -75,7 +75,7 @@ describe("panel and job photos follow the job's scope", () => {
     expect(row).toMatchObject({ caption: null, shareable: false, light: null });
     // The job's own painter may.
     const painter2 = await cookieFor(s, s.painter2.id);
-    const ok = await request(s.app).patch(`/api/uploads/${photo.id}`).set("Cookie", painter2).send({ caption: "Third coat", shareable: true });
+    const ok = await request(s.app).patch(`/api/uploads/${photo.id}`).set("Cookie", painter2).send({ caption: "Third coat", shareable: true, version: photo.version });
     expect(ok.status).toBe(200);
     expect(ok.body).toMatchObject({ caption: "Third coat", shareable: true });
   });
@@ -92,7 +92,7 @@ describe("panel and job photos follow the job's scope", () => {
     const s = await makeShop();
     const photo = await addPhoto(s, { ownerType: "job", ownerId: s.jobB.id, jobId: s.jobB.id }, { by: s.painter2.id });
     expect((await s.as("painter").post("/api/uploads").field("ownerType", "job").field("ownerId", String(s.jobB.id)).attach("file", await swatchPng(), "a.png")).status).toBe(404);
-    expect((await s.as("painter").patch(`/api/uploads/${photo.id}`).send({ shareable: true })).status).toBe(404);
+    expect((await s.as("painter").patch(`/api/uploads/${photo.id}`).send({ shareable: true, version: photo.version })).status).toBe(404);
     expect((await s.as("painter").delete(`/api/uploads/${photo.id}`)).status).toBe(404);
     expect((await s.as("painter").get(`/api/uploads/${photo.id}`)).status).toBe(404);
     expect(s.db.select().from(uploads).where(eq(uploads.id, photo.id)).get()).toMatchObject({ shareable: false });

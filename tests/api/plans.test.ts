@@ -124,7 +124,7 @@ describe("a job's plan and its versions", () => {
     const f = finishFixtures(s);
     // A draft mix sheet refers to version 1: drop it so the version is free, then save in place.
     expect((await s.as("owner").delete(`/api/mix-sheets/${f.sheet.id}`)).status).toBe(204);
-    let saved = await s.as("owner").put(`/api/plans/${f.jobPlan.id}`).send({ name: "Helmet plan", layers: [sealerLayer(f), clearLayer(f)] });
+    let saved = await s.as("owner").put(`/api/plans/${f.jobPlan.id}`).send({ name: "Helmet plan", layers: [sealerLayer(f), clearLayer(f)], version: 1 });
     expect(saved.status).toBe(200);
     expect(saved.body).toMatchObject({ name: "Helmet plan", versionCount: 1 });
     expect(saved.body.latest).toMatchObject({ version: 1, locked: false, frozenAt: null });
@@ -139,7 +139,7 @@ describe("a job's plan and its versions", () => {
     expect(s.db.select().from(jobs).where(eq(jobs.id, s.jobA.id)).get()!.sprayedPlanVersionId).toBe(v1Id);
 
     // More candy coats: a save now makes version 2.
-    saved = await s.as("estimator").put(`/api/plans/${f.jobPlan.id}`).send({ name: "Helmet plan", versionNote: "Three coats of clear", layers: [clearLayer(f, { coats: 3 })] });
+    saved = await s.as("estimator").put(`/api/plans/${f.jobPlan.id}`).send({ name: "Helmet plan", versionNote: "Three coats of clear", layers: [clearLayer(f, { coats: 3 })], version: saved.body.version });
     expect(saved.status).toBe(200);
     expect(saved.body).toMatchObject({ versionCount: 2, sprayedVersionId: v1Id });
     expect(saved.body.latest).toMatchObject({ version: 2, locked: false, note: "Three coats of clear" });
@@ -153,7 +153,7 @@ describe("a job's plan and its versions", () => {
       [1, true, true, 2],
     ]);
     // Saving again changes version 2 in place (it is not used yet).
-    saved = await s.as("estimator").put(`/api/plans/${f.jobPlan.id}`).send({ name: "Helmet plan", layers: [clearLayer(f, { coats: 2 })] });
+    saved = await s.as("estimator").put(`/api/plans/${f.jobPlan.id}`).send({ name: "Helmet plan", layers: [clearLayer(f, { coats: 2 })], version: saved.body.version });
     expect(saved.body.versionCount).toBe(2);
     expect(s.db.select().from(planVersions).where(eq(planVersions.planId, f.jobPlan.id)).all()).toHaveLength(2);
 
@@ -241,7 +241,7 @@ describe("estimate", () => {
         { kind: "prep", name: "Scuff and clean", coats: 1, flashMinutes: 0, dryMinutes: 0, components: [] },
       ],
     };
-    expect((await s.as("owner").put(`/api/plans/${plan.body.id}`).send(doc)).status).toBe(200);
+    expect((await s.as("owner").put(`/api/plans/${plan.body.id}`).send({ ...doc, version: plan.body.version })).status).toBe(200);
     const e = estimateJobPlan(s.app.deps, job.id)!;
     expect(e.totalAreaM2).toBeCloseTo(2.3, 12);
     expect(e.layers[0]!.volumeMl).toBeCloseTo(353.846, 3);

@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
 import request from "supertest";
-import { cookieFor, makeShop } from "../support/test-app";
+import { cookieFor, makeShop, editAt } from "../support/test-app";
 import { addPhoto } from "../support/booth-fixtures";
 import { jobItems } from "../../server/db/schema";
 
@@ -18,13 +18,13 @@ describe("prep records", () => {
     expect(early.body.error.message).toBe("Not ready to sign off: still to record cleaned, tack cloth");
     expect(Object.keys(early.body.error.fields).sort()).toEqual(["cleaner", "tackCloth"]);
 
-    const done = await s.as("painter").patch(`/api/prep-records/${start.body.id}`).send({ cleaner: "Wax and grease remover", tackCloth: true, notes: "Two passes of cleaner" });
+    const done = await editAt(s, "painter", `/api/prep-records/${start.body.id}`, { cleaner: "Wax and grease remover", tackCloth: true, notes: "Two passes of cleaner" });
     expect(done.body.missingSteps).toEqual([]);
     const signed = await s.as("painter").post(`/api/prep-records/${start.body.id}/sign-off`);
     expect(signed.status).toBe(200);
     expect(signed.body).toMatchObject({ status: "signed_off", signedOffByName: "Test painter", signedOffAt: expect.any(String) });
 
-    const locked = await s.as("painter").patch(`/api/prep-records/${start.body.id}`).send({ scuffGrit: 800 });
+    const locked = await editAt(s, "painter", `/api/prep-records/${start.body.id}`, { scuffGrit: 800 });
     expect(locked.status).toBe(409);
     const job = await s.as("painter").get(`/api/prep-records?jobId=${s.jobA.id}`);
     expect(job.body).toMatchObject({ jobId: s.jobA.id, allSignedOff: true, items: [{ itemId: s.itemA.id, status: "signed_off" }] });
@@ -36,7 +36,7 @@ describe("prep records", () => {
     const rec = await s.as("painter").post("/api/prep-records").send({ itemId: item.id, scuffMedium: "hand_sanding", scuffGrit: 400, cleaner: "Plastic cleaner", tackCloth: true });
     expect(rec.body).toMatchObject({ needsAdhesionPromoter: true, missingSteps: ["adhesionPromoter"] });
     expect((await s.as("painter").post(`/api/prep-records/${rec.body.id}/sign-off`)).status).toBe(409);
-    await s.as("painter").patch(`/api/prep-records/${rec.body.id}`).send({ adhesionPromoter: true, adhesionPromoterProduct: "Shop AP-2" });
+    await editAt(s, "painter", `/api/prep-records/${rec.body.id}`, { adhesionPromoter: true, adhesionPromoterProduct: "Shop AP-2" });
     expect((await s.as("painter").post(`/api/prep-records/${rec.body.id}/sign-off`)).status).toBe(200);
     const job = await s.as("owner").get(`/api/prep-records?jobId=${s.jobA.id}`);
     expect(job.body.allSignedOff).toBe(false); // the helmet shell has no record yet

@@ -5,7 +5,7 @@ import { HttpError } from "../../server/http/http-error";
 import type { Mailer } from "../../server/mail/mailer";
 import { estimateJobPlan } from "../../server/modules/plans/plan-estimate.service";
 import { DEFAULT_SETTINGS } from "../../shared/schemas/settings.schema";
-import { addJob, makeShop, type Shop } from "../support/test-app";
+import { addJob, makeShop, type Shop, editAt } from "../support/test-app";
 import { draftQuote, SAMPLE_LINES, sentQuote } from "../support/quotes";
 import { finishFixtures } from "../support/finish-fixtures";
 import { binary, pdfText } from "../support/pdf-text";
@@ -52,7 +52,7 @@ describe("creating and editing quotes", () => {
     expect(updated[0]!.after).toMatchObject({ totalCents: SAMPLE.total, taxPercent: 7.25, depositPercent: 40 });
 
     // Tax per line instead of per invoice: $260.00 → $18.85, $76.00 → $5.51; $24.36 either way here [C].
-    const perLine = await s.as("owner").patch(`/api/quotes/${q.id}`).send({ taxRounding: "line", taxedKinds: ["labour"] });
+    const perLine = await editAt(s, "owner", `/api/quotes/${q.id}`, { taxRounding: "line", taxedKinds: ["labour"] });
     expect(perLine.status).toBe(200);
     // Only labour taxed now: 7.25 % of $950 = $68.875 → $68.88 (half-up) [C].
     expect(perLine.body.current.totals).toMatchObject({ taxableCents: 95000, taxCents: 6888 });
@@ -79,11 +79,11 @@ describe("creating and editing quotes", () => {
       [{ lines: "none" }, "lines"],
     ];
     for (const [bodyIn, field] of cases) {
-      const res = await s.as("estimator").patch(`/api/quotes/${q.id}`).send(bodyIn);
+      const res = await editAt(s, "estimator", `/api/quotes/${q.id}`, bodyIn);
       expect({ field, status: res.status }).toEqual({ field, status: 400 });
       expect(Object.keys(res.body.error.fields ?? {})).toContain(field);
     }
-    const tooMuchOff = await s.as("estimator").patch(`/api/quotes/${q.id}`).send({ lines: [...SAMPLE_LINES, { kind: "discount", description: "Too much", basis: "fixed", amountCents: 10_000_000 }] });
+    const tooMuchOff = await editAt(s, "estimator", `/api/quotes/${q.id}`, { lines: [...SAMPLE_LINES, { kind: "discount", description: "Too much", basis: "fixed", amountCents: 10_000_000 }] });
     expect(tooMuchOff.status).toBe(400);
     expect(tooMuchOff.body.error.fields).toHaveProperty("lines");
     for (const path of ["/api/quotes/abc", "/api/quotes/0", "/api/quotes/99999", "/api/quotes/1/versions/x", "/api/quotes/1/pdf?version=zero"]) {
@@ -115,7 +115,7 @@ describe("versions", () => {
     const q = await sentQuote(s);
     expect(q).toMatchObject({ status: "sent", version: 1, offeredVersion: 1 });
 
-    const revised = await s.as("estimator").patch(`/api/quotes/${q.id}`).send({ lines: [...SAMPLE_LINES, { kind: "sublet", description: "Chrome plating", amountCents: 20000 }] });
+    const revised = await editAt(s, "estimator", `/api/quotes/${q.id}`, { lines: [...SAMPLE_LINES, { kind: "sublet", description: "Chrome plating", amountCents: 20000 }] });
     expect(revised.status).toBe(200);
     expect(revised.body).toMatchObject({ version: 2, status: "draft", offeredVersion: 1 });
     expect(revised.body.versions.map((v: { version: number; status: string }) => [v.version, v.status])).toEqual([
@@ -129,7 +129,7 @@ describe("versions", () => {
     expect(s.db.select().from(auditLog).where(eq(auditLog.action, "new_version")).all()).toHaveLength(1);
 
     // Editing the new draft stays in version 2.
-    expect((await s.as("estimator").patch(`/api/quotes/${q.id}`).send({ intro: "Now with chrome" })).body.version).toBe(2);
+    expect((await editAt(s, "estimator", `/api/quotes/${q.id}`, { intro: "Now with chrome" })).body.version).toBe(2);
 
     // Sending version 2 replaces version 1 for the customer.
     const sent2 = await s.as("estimator").post(`/api/quotes/${q.id}/send`).send({});
@@ -161,7 +161,7 @@ describe("versions", () => {
     const s = await makeShop();
     const q = await sentQuote(s);
     expect((await s.as("customer").post(`/api/portal/quotes/${q.id}/approve`).send({ name: "Avery Stone" })).status).toBe(200);
-    const patch = await s.as("estimator").patch(`/api/quotes/${q.id}`).send({ intro: "x" });
+    const patch = await editAt(s, "estimator", `/api/quotes/${q.id}`, { intro: "x" });
     expect(patch.status).toBe(409);
     expect(patch.body.error.message).toMatch(/approved/);
     expect((await s.as("estimator").post(`/api/quotes/${q.id}/versions`)).status).toBe(409);
@@ -260,7 +260,7 @@ describe("the quote PDF", () => {
     const s = await makeShop();
     setSettings(s, { shopName: "Harrow Creek Custom Finishes", shopPhone: "555-0100", quoteTerms: "Balance due on collection." });
     const q = await draftQuote(s);
-    await s.as("estimator").patch(`/api/quotes/${q.id}`).send({ finishText: "Sealer, 2 coats · Candy teal, 4 coats · 2K clear, 3 coats", terms: "Balance due on collection.", validUntil: "2027-04-30" });
+    await editAt(s, "estimator", `/api/quotes/${q.id}`, { finishText: "Sealer, 2 coats · Candy teal, 4 coats · 2K clear, 3 coats", terms: "Balance due on collection.", validUntil: "2027-04-30" });
     const res = await s.as("estimator").get(`/api/quotes/${q.id}/pdf`).buffer(true).parse(binary);
     expect(res.status).toBe(200);
     expect(res.headers["content-type"]).toBe("application/pdf");
@@ -318,7 +318,7 @@ describe("materials from the finish plan", () => {
     expect(res.body.current.totals.materialsCents).toBe(estimate.layers[0]!.costCents + Math.round((estimate.layers[0]!.costCents * 30) / 100 + 1e-9));
 
     // Refilling replaces edited materials lines with the plan's again.
-    await s.as("estimator").patch(`/api/quotes/${res.body.id}`).send({ lines: [{ kind: "materials", description: "Hand-entered paint", costCents: 100, markupPercent: 0 }] });
+    await editAt(s, "estimator", `/api/quotes/${res.body.id}`, { lines: [{ kind: "materials", description: "Hand-entered paint", costCents: 100, markupPercent: 0 }] });
     const refilled = await s.as("estimator").post(`/api/quotes/${res.body.id}/fill-materials`);
     expect(refilled.status).toBe(200);
     expect(refilled.body.current.lines.map((l: { description: string }) => l.description)).toEqual([mats[0].description]);

@@ -5,7 +5,7 @@ import path from "node:path";
 import { createLogger } from "../../server/log/logger";
 import { loggablePath } from "../../server/http/request-log";
 import { signQuoteLink } from "../../server/modules/portal/portal-link";
-import { makeShop, TEST_PASSWORD } from "../support/test-app";
+import { makeShop, TEST_PASSWORD, editAt } from "../support/test-app";
 import { sentQuote, withPayments, completedEvent } from "../support/quotes";
 
 /** An app whose log lines are kept in memory, parsed. */
@@ -129,7 +129,7 @@ describe("request log", () => {
     const card = "4242424242424242";
     secrets.card = card;
     secrets.cardSpaced = "4242 4242 4242 4242";
-    expect((await s.as("estimator").patch(`/api/jobs/${s.jobA.id}`).send({ notes: `card ${card} exp 12/29 cvc 123` })).status).toBe(200);
+    expect((await editAt(s, "estimator", `/api/jobs/${s.jobA.id}`, { notes: `card ${card} exp 12/29 cvc 123` })).status).toBe(200);
     await s.as("estimator").get(`/api/jobs?search=${card}`);
     const approved = await s.as("customer").post(`/api/portal/quotes/${quote.id}/approve`).send({ name: "Avery Stone" });
     expect(approved.status).toBe(200);

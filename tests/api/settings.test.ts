@@ -1,11 +1,11 @@
 import { describe, expect, it } from "vitest";
-import { makeShop } from "../support/test-app";
+import { makeShop, editAt } from "../support/test-app";
 import { auditLog } from "../../server/db/schema";
 
 describe("shop settings", () => {
   it("the owner changes the labour rate and tax; the change is audited as money with before and after", async () => {
     const s = await makeShop();
-    const res = await s.as("owner").patch("/api/settings").send({ labourRateCents: 9000, taxPercent: 6, shopName: "Test Shop" });
+    const res = await editAt(s, "owner", "/api/settings", { labourRateCents: 9000, taxPercent: 6, shopName: "Test Shop" });
     expect(res.status).toBe(200);
     expect(res.body).toMatchObject({ labourRateCents: 9000, taxPercent: 6, shopName: "Test Shop" });
     expect((await s.as("estimator").get("/api/settings")).body.labourRateCents).toBe(9000);
@@ -19,7 +19,7 @@ describe("shop settings", () => {
 
   it("rejects a negative rate and fractional cents, naming the fields, and keeps the old values", async () => {
     const s = await makeShop();
-    const res = await s.as("owner").patch("/api/settings").send({ labourRateCents: 12.5, taxPercent: -1 });
+    const res = await editAt(s, "owner", "/api/settings", { labourRateCents: 12.5, taxPercent: -1 });
     expect(res.status).toBe(400);
     expect(Object.keys(res.body.error.fields).sort()).toEqual(["labourRateCents", "taxPercent"]);
     expect((await s.as("owner").get("/api/settings")).body.labourRateCents).toBe(8500);
@@ -36,7 +36,7 @@ describe("shop settings", () => {
 describe("audit trail for users", () => {
   it("records a role change with who, before and after", async () => {
     const s = await makeShop();
-    await s.as("owner").patch(`/api/users/${s.painter.id}`).send({ role: "estimator" });
+    await editAt(s, "owner", `/api/users/${s.painter.id}`, { role: "estimator" });
     const entry = s.db.select().from(auditLog).all().find((a) => a.entityId === s.painter.id)!;
     expect(entry).toMatchObject({ kind: "user", action: "role_changed", userId: s.owner.id, before: { role: "painter" }, after: { role: "estimator" } });
     expect(entry.address).toBeTruthy();

@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
 import { eq } from "drizzle-orm";
-import { makeShop, type Shop } from "../support/test-app";
+import { makeShop, type Shop, editAt } from "../support/test-app";
 import { addBoothPlan, addCoat, addMixedSheet, addPanel, addPhoto, readyForBooth } from "../support/booth-fixtures";
 import { binary, pdfText } from "../support/pdf-text";
 import { coatLogs, guns, jobs, materialLots, materials, mixSheetLines, planLayers } from "../../server/db/schema";
@@ -34,7 +34,7 @@ describe("the shop's gun list", () => {
     expect(created.status).toBe(201);
     expect((await s.as("owner").post("/api/guns").send({ name: "gun 1 (PRIMER)" })).status).toBe(409);
     expect((await s.as("owner").post("/api/guns").send({ name: "" })).body.error.fields).toHaveProperty("name");
-    const renamed = await s.as("owner").patch(`/api/guns/${created.body.id}`).send({ name: "Gun 1 (sealer)", active: false });
+    const renamed = await s.as("owner").patch(`/api/guns/${created.body.id}`).send({ name: "Gun 1 (sealer)", active: false, version: created.body.version });
     expect(renamed.body).toMatchObject({ name: "Gun 1 (sealer)", active: false });
     addGun(s);
     const list = await s.as("painter").get("/api/guns");
@@ -128,15 +128,15 @@ describe("test panels as a spray record", () => {
     expect(panel.mixSheet).toMatchObject({ id: sheet.id, status: "mixed", lots: [{ lotNumber: "LOT-T1" }] });
 
     // One reading per light; a photo says which light it was taken under.
-    const twice = await s.as("painter").patch(`/api/panels/${panel.id}`).send({ readings: [panel.readings[0]!, panel.readings[0]!].map((r) => ({ light: r.light, illuminant: r.illuminant, labL: 1, labA: 1, labB: 1 })) });
+    const twice = await editAt(s, "painter", `/api/panels/${panel.id}`, { readings: [panel.readings[0]!, panel.readings[0]!].map((r) => ({ light: r.light, illuminant: r.illuminant, labL: 1, labA: 1, labB: 1 })) });
     expect(twice.status).toBe(400);
     const photo = await addPhoto(s, { ownerType: "panel", ownerId: panel.id, jobId: s.jobA.id });
-    const lit = await s.as("painter").patch(`/api/uploads/${photo.id}`).send({ light: "warm_indoor" });
+    const lit = await s.as("painter").patch(`/api/uploads/${photo.id}`).send({ light: "warm_indoor", version: photo.version });
     expect(lit.body.light).toBe("warm_indoor");
     const again = (await s.as("painter").get(`/api/panels/${panel.id}`)).body as PanelDto;
     expect(again.photos.map((p) => p.light)).toEqual(["warm_indoor"]);
     // An update that leaves the readings out keeps them.
-    await s.as("painter").patch(`/api/panels/${panel.id}`).send({ notes: "Sprayed late in the day" });
+    await editAt(s, "painter", `/api/panels/${panel.id}`, { notes: "Sprayed late in the day" });
     expect(((await s.as("painter").get(`/api/panels/${panel.id}`)).body as PanelDto).readings).toHaveLength(2);
     // No ground at all is refused, naming the field to pick it in.
     const none = await s.as("painter").post("/api/panels").send({ candyName: "Candy garnet", letDownClear: 6, letDownToner: 1, coats: 4 });

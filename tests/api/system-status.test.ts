@@ -3,7 +3,7 @@ import request from "supertest";
 import { execFileSync } from "node:child_process";
 import { readFileSync } from "node:fs";
 import path from "node:path";
-import { makeShop } from "../support/test-app";
+import { makeShop, editAt } from "../support/test-app";
 import { writeUpload } from "../support/backup-fixtures";
 
 const pkg = JSON.parse(readFileSync(path.resolve(import.meta.dirname, "../../package.json"), "utf8")) as { version: string };
@@ -42,24 +42,24 @@ describe("the owner's backups and disk panel", () => {
     const s = await makeShop();
     const free = (await s.as("owner").get("/api/dashboard")).body.system.disk.freeBytes as number;
     const aboveFree = Math.ceil(free / 1e9) + 1;
-    const set = await s.as("owner").patch("/api/settings").send({ lowDiskWarningGb: aboveFree });
+    const set = await editAt(s, "owner", "/api/settings", { lowDiskWarningGb: aboveFree });
     expect(set.status).toBe(200);
     expect(set.body.lowDiskWarningGb).toBe(aboveFree);
     const low = (await s.as("owner").get("/api/dashboard")).body.system.disk;
     expect(low).toMatchObject({ low: true, warnBelowBytes: aboveFree * 1e9 });
 
-    expect((await s.as("owner").patch("/api/settings").send({ lowDiskWarningGb: 0 })).status).toBe(200);
+    expect((await editAt(s, "owner", "/api/settings", { lowDiskWarningGb: 0 })).status).toBe(200);
     expect((await s.as("owner").get("/api/dashboard")).body.system.disk.low).toBe(false);
   });
 
   it("refuses a negative or non-numeric threshold, naming the field", async () => {
     const s = await makeShop();
     for (const bad of [-1, "lots"]) {
-      const res = await s.as("owner").patch("/api/settings").send({ lowDiskWarningGb: bad });
+      const res = await editAt(s, "owner", "/api/settings", { lowDiskWarningGb: bad });
       expect(res.status).toBe(400);
       expect(Object.keys(res.body.error.fields)).toEqual(["lowDiskWarningGb"]);
     }
-    expect((await s.as("estimator").patch("/api/settings").send({ lowDiskWarningGb: 5 })).status).toBe(403);
+    expect((await editAt(s, "estimator", "/api/settings", { lowDiskWarningGb: 5 })).status).toBe(403);
   });
 });
 

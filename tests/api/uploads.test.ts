@@ -101,14 +101,14 @@ describe("who sees a file", () => {
     expect((await s.as("customer").get(`/api/uploads/${otherJob.id}`)).status).toBe(404);
     expect((await s.as("customer").get(`/api/uploads?jobId=${s.jobB.id}`)).status).toBe(404);
 
-    const share = await s.as("painter").patch(`/api/uploads/${privatePhoto.id}`).send({ shareable: true });
+    const share = await s.as("painter").patch(`/api/uploads/${privatePhoto.id}`).send({ shareable: true, version: privatePhoto.version });
     expect(share.status).toBe(200);
     expect(share.body.shareable).toBe(true);
     expect((await s.as("customer").get(`/api/uploads/${privatePhoto.id}`)).status).toBe(200);
     expect((await s.as("customer").get(`/api/uploads/${privatePhoto.id}/thumb`)).status).toBe(200);
     expect((await s.as("customer").get(`/api/uploads?jobId=${s.jobA.id}`)).body.map((u: { id: number }) => u.id)).toEqual([privatePhoto.id]);
 
-    await s.as("owner").patch(`/api/uploads/${privatePhoto.id}`).send({ shareable: false });
+    await s.as("owner").patch(`/api/uploads/${privatePhoto.id}`).send({ shareable: false, version: share.body.version });
     expect((await s.as("customer").get(`/api/uploads/${privatePhoto.id}`)).status).toBe(404);
   });
 

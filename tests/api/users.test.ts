@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
 import request from "supertest";
-import { makeShop } from "../support/test-app";
+import { makeShop, editAt } from "../support/test-app";
 
 describe("users (owner)", () => {
   it("creates a user who can then sign in, with the chosen role", async () => {
@@ -25,16 +25,16 @@ describe("users (owner)", () => {
 
   it("changing a role or switching a user off ends their sessions", async () => {
     const s = await makeShop();
-    const res = await s.as("owner").patch(`/api/users/${s.estimator.id}`).send({ role: "painter" });
+    const res = await editAt(s, "owner", `/api/users/${s.estimator.id}`, { role: "painter" });
     expect(res.body.role).toBe("painter");
     expect((await s.as("estimator").get("/api/auth/me")).status).toBe(401);
-    await s.as("owner").patch(`/api/users/${s.painter.id}`).send({ active: false });
+    await editAt(s, "owner", `/api/users/${s.painter.id}`, { active: false });
     expect((await s.as("painter").get("/api/auth/me")).status).toBe(401);
   });
 
   it("keeps at least one active owner and stops owners locking themselves out", async () => {
     const s = await makeShop();
-    const self = await s.as("owner").patch(`/api/users/${s.owner.id}`).send({ active: false });
+    const self = await editAt(s, "owner", `/api/users/${s.owner.id}`, { active: false });
     expect(self.status).toBe(409);
     expect((await s.as("owner").get("/api/auth/me")).status).toBe(200);
   });

@@ -54,8 +54,9 @@ export default async function setup(project: TestProject) {
   const port = await freePort();
   server = spawn(path.join(root, "node_modules/.bin/tsx"), ["server/index.ts"], {
     cwd: root,
-    // Every spec signs in from 127.0.0.1, so the per-address sign-in limit is raised for the run.
-    env: { ...process.env, PORT: String(port), DATA_DIR: dataDir, DEMO_MODE: "1", SIGNIN_LIMIT_PER_ADDRESS: "10000" },
+    // Every spec signs in from 127.0.0.1, so the per-address sign-in limit is raised for the run. Request lines are
+    // left out of the test output (warnings and errors still show) unless LOG_LEVEL asks for them.
+    env: { LOG_LEVEL: "warn", ...process.env, PORT: String(port), DATA_DIR: dataDir, DEMO_MODE: "1", SIGNIN_LIMIT_PER_ADDRESS: "10000" },
     stdio: ["ignore", "inherit", "inherit"],
     detached: true,
   });

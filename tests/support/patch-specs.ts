@@ -2,7 +2,9 @@ import fc from "fast-check";
 import { asc } from "drizzle-orm";
 import type { z } from "zod";
 import type { Shop } from "./test-app";
-import { guns, prepRecords, testPanels } from "../../server/db/schema";
+import { booths, guns, prepRecords, scheduleSessions, testPanels } from "../../server/db/schema";
+import { updateBoothInputSchema, updateSessionInputSchema } from "../../shared/schemas/schedule.schema";
+import { MONDAY_8 } from "./schedule-fixtures";
 import { fx } from "./finish-fixtures";
 import { addPanel, addPhoto } from "./booth-fixtures";
 import { draftQuote } from "./quotes";
@@ -46,6 +48,8 @@ export type PatchSpec = {
   follows?: Record<string, string[]>;
   /** Record paths every save moves (beside updatedAt and version), e.g. who last recorded the steps. */
   stamps?: string[];
+  /** The name of the edit version in the record and the PATCH body, when it is not `version`. */
+  versionKey?: string;
   /** How a sent value reads back when the answer shows it in another form. */
   readAs?: Record<string, (sent: unknown) => unknown>;
 };
@@ -61,6 +65,8 @@ const bool = fc.boolean();
 const ids = (s: Shop & Record<string, unknown>, key: string) => s[key] as number;
 
 const panelIdOf = (s: Shop) => s.db.select({ id: testPanels.id }).from(testPanels).orderBy(asc(testPanels.id)).get()!.id;
+const boothIdOf = (s: Shop) => s.db.select({ id: booths.id }).from(booths).orderBy(asc(booths.id)).get()!.id;
+const sessionIdOf = (s: Shop) => s.db.select({ id: scheduleSessions.id }).from(scheduleSessions).orderBy(asc(scheduleSessions.id)).get()!.id;
 const gunIdOf = (s: Shop) => s.db.select({ id: guns.id }).from(guns).orderBy(asc(guns.id)).get()!.id;
 
 export const PATCH_SPECS: Record<string, PatchSpec> = {
@@ -264,6 +270,8 @@ export const PATCH_SPECS: Record<string, PatchSpec> = {
       const { current, ...rest } = body as { current: Record<string, unknown> };
       return { ...rest, ...current };
     },
+    // `version` is the quote's own version number; the edit version is `editVersion`.
+    versionKey: "editVersion",
     changes: {
       lines: one(
         "lines",
@@ -297,6 +305,35 @@ export const PATCH_SPECS: Record<string, PatchSpec> = {
       return (list as { id: number }[]).find((g) => g.id === gunIdOf(s));
     },
     changes: { name: one("name", word), description: one("description", optText), active: one("active", bool) },
+  },
+  "PATCH /api/booths/:id": {
+    schema: updateBoothInputSchema,
+    path: (s) => `/api/booths/${boothIdOf(s)}`,
+    read: () => "/api/booths",
+    pick: (body, s) => (body as { id: number }[]).find((b) => b.id === boothIdOf(s)),
+    changes: {
+      name: one("name", word),
+      setupMinutes: one("setupMinutes", fc.integer({ min: 0, max: 480 })),
+      canCureOutside: one("canCureOutside", bool),
+      // Opening stays before closing whichever one changes alone.
+      opensAt: one("opensAt", fc.constantFrom("05:00", "06:30", "07:00", "08:15", "09:45")),
+      closesAt: one("closesAt", fc.constantFrom("15:00", "16:30", "17:00", "18:45", "22:00")),
+      workDays: one("workDays", fc.uniqueArray(fc.integer({ min: 0, max: 6 }), { minLength: 1, maxLength: 7 }).map((d) => [...d].sort())),
+      timeZone: one("timeZone", fc.constantFrom("UTC", "America/Chicago", "Europe/Berlin", "Australia/Sydney")),
+      active: one("active", bool),
+    },
+  },
+  "PATCH /api/schedule/sessions/:id": {
+    schema: updateSessionInputSchema,
+    path: (s) => `/api/schedule/sessions/${sessionIdOf(s)}`,
+    read: () => `/api/schedule?from=${new Date(MONDAY_8 - 86_400_000).toISOString()}&to=${new Date(MONDAY_8 + 7 * 86_400_000).toISOString()}`,
+    pick: (body, s) => (body as { sessions: { id: number }[] }).sessions.find((x) => x.id === sessionIdOf(s)),
+    changes: {
+      boothId: (s) => fc.constantFrom(...s.db.select({ id: booths.id }).from(booths).all().map((b) => b.id)).map((boothId) => ({ boothId })),
+      startsAt: one("startsAt", fc.integer({ min: 0, max: 4 * 24 * 4 }).map((q) => new Date(MONDAY_8 + q * 15 * 60_000).toISOString())),
+    },
+    // A session's end and last coat follow from its start and its booth.
+    follows: { boothId: ["endsAt", "sprayEndsAt"], startsAt: ["endsAt", "sprayEndsAt"] },
   },
   "PATCH /api/uploads/:id": {
     schema: updateUploadInputSchema,

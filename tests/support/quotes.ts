@@ -33,7 +33,7 @@ export async function draftQuote(shop: Shop, jobId = shop.jobA.id, lines = SAMPL
   const patched = await shop
     .as("estimator")
     .patch(`/api/quotes/${created.body.id}`)
-    .send({ lines, taxPercent: 7.25, taxedKinds: ["materials", "supplies"], depositPercent: 40 });
+    .send({ lines, taxPercent: 7.25, taxedKinds: ["materials", "supplies"], depositPercent: 40, editVersion: created.body.editVersion });
   if (patched.status !== 200) throw new Error(`patch quote: ${patched.status} ${JSON.stringify(patched.body)}`);
   return patched.body;
 }

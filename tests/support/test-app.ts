@@ -166,3 +166,21 @@ export async function makeShop(options: MakeAppOptions = {}) {
   };
 }
 export type Shop = Awaited<ReturnType<typeof makeShop>>;
+
+/**
+ * An edit as a screen makes it: read the record's current `version` (from `read`, the record's own address unless
+ * given; `pick` finds the record in the answer), then PATCH (or PUT) the changes with that version.
+ */
+export async function editAt(
+  shop: Shop,
+  who: Parameters<Shop["as"]>[0],
+  path: string,
+  changes: object,
+  options: { read?: string; pick?: (body: Record<string, unknown>) => { version: number; editVersion?: number }; method?: "patch" | "put" } = {},
+) {
+  const res = await shop.as(who).get(options.read ?? path);
+  const record = (options.pick ? options.pick(res.body) : res.body) as { version: number; editVersion?: number };
+  // A quote's own `version` is its version number; its edit version is `editVersion`.
+  const token = typeof record.editVersion === "number" ? { editVersion: record.editVersion } : { version: record.version };
+  return shop.as(who)[options.method ?? "patch"](path).send({ ...changes, ...token });
+}

@@ -4,12 +4,13 @@ import { seedSettings } from "./settings";
 import { seedMaterials } from "./materials";
 import { seedBooth } from "./booth";
 import { seedQuotes } from "./quotes";
+import { seedSchedule } from "./schedule";
 
 export { isEmpty, DEMO_PASSWORD, DEMO_USERS, DEMO_SHOP } from "./core";
 export type { SeedContext } from "./core";
 
 /** Later areas add a step here; each gets the ids made before it. Steps run in this order. */
-const STEPS: ((ctx: SeedContext) => void | Promise<void>)[] = [seedSettings, seedMaterials, seedBooth, seedQuotes];
+const STEPS: ((ctx: SeedContext) => void | Promise<void>)[] = [seedSettings, seedMaterials, seedBooth, seedQuotes, seedSchedule];
 
 /** Fills an empty database with the invented demo shop. With `uploadsDir`, demo photos are written there too. */
 export async function seedDemo(db: Db, now = Date.now(), options: { uploadsDir?: string } = {}) {

@@ -8,7 +8,7 @@ import { estimateLayer, jobAreaM2 } from "../../modules/plans/plan-estimate.serv
 import { loadPlanVersion } from "../../modules/plans/plans.service";
 import { createMixSheet, recordMixSheet } from "../../modules/mix-sheets/mix-sheets.service";
 import { createMaterialInputSchema, type CreateMaterialInput } from "../../../shared/schemas/material.schema";
-import { planDocumentSchema, type PlanDocumentInput, type PlanLayerInput } from "../../../shared/schemas/plan.schema";
+import { planDocumentSchema, savePlanInputSchema, type PlanDocumentInput, type PlanLayerInput } from "../../../shared/schemas/plan.schema";
 import type { Stage } from "../../../shared/domain/stages";
 import type { SeedContext } from "./core";
 
@@ -284,7 +284,7 @@ export function seedMaterials(ctx: SeedContext) {
     // Fit the copied recipe to the job's own colours: toner and ground, solid colour, flake in the ground.
     const fitted = fitLayers(m, template.id === candyMetallic.id ? 0 : template.id === solid.id ? 1 : template.id === candyPlastic.id ? 2 : 3, finish);
     const finishWords = job.title.split(", ").slice(1).join(", ");
-    if (fitted) plan = savePlan(deps, estimator, plan.id, planDocumentSchema.parse({ name: plan.name, description: `Fitted for this job: ${finishWords}.`, layers: fitted }));
+    if (fitted) plan = savePlan(deps, estimator, plan.id, savePlanInputSchema.parse({ name: plan.name, description: `Fitted for this job: ${finishWords}.`, layers: fitted, version: plan.version }));
     if (!SPRAYED_STAGES.includes(job.stage) || !job.painterId) continue;
 
     // Batches: one per mixed layer, on the day the job went into the booth; the painter records them.

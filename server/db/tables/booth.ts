@@ -6,7 +6,7 @@ import { jobItems, jobs, users } from "./core";
 import { materials } from "./materials";
 import { planLayers, planVersions } from "./plans";
 import { mixSheets } from "./mix-sheets";
-import { createdAt, spraySetupColumns, updatedAt } from "./columns";
+import { createdAt, spraySetupColumns, updatedAt, editVersion } from "./columns";
 import { guns } from "./equipment";
 import { ILLUMINANTS, PANEL_LIGHTS } from "../../../shared/domain/spray-setup";
 
@@ -42,6 +42,7 @@ export const prepRecords = sqliteTable(
     reopenedNote: text("reopened_note"),
     createdAt: createdAt(),
     updatedAt: updatedAt(),
+    ...editVersion(),
   },
   (t) => [uniqueIndex("prep_records_item_idx").on(t.itemId), index("prep_records_job_idx").on(t.jobId)],
 );
@@ -121,6 +122,7 @@ export const testPanels = sqliteTable(
     createdBy: text("created_by").references(() => users.id, { onDelete: "set null" }),
     createdAt: createdAt(),
     updatedAt: updatedAt(),
+    ...editVersion(),
   },
   (t) => [
     index("test_panels_ground_candy_idx").on(t.groundName, t.candyName, t.coats),

@@ -16,3 +16,12 @@ export const spraySetupColumns = () => ({
   distanceUnit: text("distance_unit", { enum: LENGTH_UNITS }),
   overlapPct: real("overlap_pct"),
 });
+
+/**
+ * Edits under optimistic concurrency: `version` starts at 1 and goes up by one with every edit, and an edit must
+ * name the version it read (a stale one is refused with 409 version_conflict). `updatedBy` says whose edit it was.
+ */
+export const editVersion = () => ({
+  version: integer("version").notNull().default(1),
+  updatedBy: text("updated_by"),
+});

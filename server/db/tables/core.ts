@@ -3,7 +3,7 @@ import { index, integer, real, sqliteTable, text, uniqueIndex } from "drizzle-or
 import { ROLES } from "../../../shared/domain/roles";
 import { STAGES } from "../../../shared/domain/stages";
 import { AREA_UNITS, SUBSTRATES } from "../../../shared/domain/substrates";
-import { createdAt, updatedAt } from "./columns";
+import { createdAt, updatedAt, editVersion } from "./columns";
 
 
 export const customers = sqliteTable(
@@ -17,6 +17,7 @@ export const customers = sqliteTable(
     notes: text("notes"),
     createdAt: createdAt(),
     updatedAt: updatedAt(),
+    ...editVersion(),
   },
   (t) => [index("customers_name_idx").on(t.name)],
 );
@@ -33,6 +34,7 @@ export const users = sqliteTable(
     active: integer("active", { mode: "boolean" }).notNull().default(true),
     createdAt: createdAt(),
     updatedAt: updatedAt(),
+    ...editVersion(),
   },
   (t) => [uniqueIndex("users_email_idx").on(t.email), index("users_role_idx").on(t.role)],
 );
@@ -79,6 +81,7 @@ export const jobs = sqliteTable(
     stageChangedAt: integer("stage_changed_at").notNull().default(sql`(unixepoch('subsec') * 1000)`),
     createdAt: createdAt(),
     updatedAt: updatedAt(),
+    ...editVersion(),
   },
   (t) => [
     index("jobs_customer_idx").on(t.customerId),
@@ -103,6 +106,7 @@ export const jobItems = sqliteTable(
     notes: text("notes"),
     createdAt: createdAt(),
     updatedAt: updatedAt(),
+    ...editVersion(),
   },
   (t) => [index("job_items_job_idx").on(t.jobId)],
 );

@@ -1,5 +1,5 @@
 import { integer, sqliteTable, text } from "drizzle-orm/sqlite-core";
-import { createdAt, updatedAt } from "./columns";
+import { createdAt, updatedAt, editVersion } from "./columns";
 
 /** The shop's spray guns, named as the shop knows them; coat logs and test panels say which one was used. */
 export const guns = sqliteTable("guns", {
@@ -9,4 +9,5 @@ export const guns = sqliteTable("guns", {
   active: integer("active", { mode: "boolean" }).notNull().default(true),
   createdAt: createdAt(),
   updatedAt: updatedAt(),
+  ...editVersion(),
 });

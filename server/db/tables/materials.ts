@@ -1,6 +1,6 @@
 import { index, integer, real, sqliteTable, text, uniqueIndex } from "drizzle-orm/sqlite-core";
 import { MATERIAL_CATEGORIES, PURCHASE_UNITS } from "../../../shared/domain/materials";
-import { createdAt, updatedAt } from "./columns";
+import { createdAt, updatedAt, editVersion } from "./columns";
 
 /** The shop's catalogue. Money is integer cents per purchase unit. */
 export const materials = sqliteTable(
@@ -28,6 +28,7 @@ export const materials = sqliteTable(
     active: integer("active", { mode: "boolean" }).notNull().default(true),
     createdAt: createdAt(),
     updatedAt: updatedAt(),
+    ...editVersion(),
   },
   (t) => [uniqueIndex("materials_code_idx").on(t.code), index("materials_category_idx").on(t.category)],
 );
@@ -46,6 +47,7 @@ export const materialLots = sqliteTable(
     expiresOn: text("expires_on"),
     createdAt: createdAt(),
     updatedAt: updatedAt(),
+    ...editVersion(),
   },
   (t) => [index("material_lots_material_idx").on(t.materialId)],
 );

@@ -2,7 +2,7 @@ import { index, integer, real, sqliteTable, text, uniqueIndex } from "drizzle-or
 import { LAYER_KINDS } from "../../../shared/domain/layers";
 import { jobs, users } from "./core";
 import { materials } from "./materials";
-import { createdAt, updatedAt } from "./columns";
+import { createdAt, updatedAt, editVersion } from "./columns";
 
 /**
  * A finish plan: a job's layer stack, or a reusable template (jobId null).
@@ -21,6 +21,7 @@ export const plans = sqliteTable(
     createdBy: text("created_by").references(() => users.id, { onDelete: "set null" }),
     createdAt: createdAt(),
     updatedAt: updatedAt(),
+    ...editVersion(),
   },
   (t) => [index("plans_job_idx").on(t.jobId), index("plans_template_idx").on(t.isTemplate)],
 );

@@ -1,6 +1,6 @@
 import { index, integer, real, sqliteTable, text, uniqueIndex } from "drizzle-orm/sqlite-core";
 import { jobs, users } from "./core";
-import { createdAt, updatedAt } from "./columns";
+import { createdAt, updatedAt, editVersion } from "./columns";
 import { STORED_QUOTE_STATUSES } from "../../../shared/schemas/quote.schema";
 import { MESSAGE_KINDS } from "../../../shared/schemas/message.schema";
 import type { QuoteLine, TaxableKind } from "../../../shared/quote/index";
@@ -16,6 +16,7 @@ export const quotes = sqliteTable(
     createdBy: text("created_by").references(() => users.id, { onDelete: "set null" }),
     createdAt: createdAt(),
     updatedAt: updatedAt(),
+    ...editVersion(),
   },
   (t) => [index("quotes_job_idx").on(t.jobId), index("quotes_updated_idx").on(t.updatedAt)],
 );

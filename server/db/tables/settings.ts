@@ -6,5 +6,7 @@ export const shopSettings = sqliteTable("shop_settings", {
   id: integer("id").primaryKey(),
   data: text("data", { mode: "json" }).notNull(),
   updatedAt: integer("updated_at").notNull(),
+  /** Goes up with every save; a save must name the version it read (see editVersion in columns.ts). */
+  version: integer("version").notNull().default(1),
   updatedBy: text("updated_by").references(() => users.id, { onDelete: "set null" }),
 });

@@ -1,6 +1,6 @@
 import { index, integer, sqliteTable, text } from "drizzle-orm/sqlite-core";
 import { jobs, users } from "./core";
-import { createdAt } from "./columns";
+import { createdAt, editVersion } from "./columns";
 import { PANEL_LIGHTS } from "../../../shared/domain/spray-setup";
 
 /**
@@ -30,6 +30,7 @@ export const uploads = sqliteTable(
     light: text("light", { enum: PANEL_LIGHTS }),
     uploadedBy: text("uploaded_by").references(() => users.id, { onDelete: "set null" }),
     createdAt: createdAt(),
+    ...editVersion(),
   },
   (t) => [index("uploads_owner_idx").on(t.ownerType, t.ownerId), index("uploads_job_idx").on(t.jobId)],
 );

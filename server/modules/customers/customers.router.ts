@@ -1,6 +1,6 @@
 import { Router } from "express";
 import type { AppDeps } from "../../deps";
-import { allow } from "../../http/guard";
+import { actorOf, allow } from "../../http/guard";
 import { body, params, query } from "../../http/validate";
 import { idParamsSchema } from "../../../shared/schemas/common.schema";
 import {
@@ -22,7 +22,7 @@ export function customersRouter(deps: AppDeps) {
     res.json(getCustomer(deps, params(req, idParamsSchema).id));
   });
   r.patch("/:id", allow("office"), (req, res) => {
-    res.json(updateCustomer(deps, params(req, idParamsSchema).id, body(req, updateCustomerInputSchema)));
+    res.json(updateCustomer(deps, actorOf(res).id, params(req, idParamsSchema).id, body(req, updateCustomerInputSchema)));
   });
   r.delete("/:id", allow("office"), (req, res) => {
     deleteCustomer(deps, params(req, idParamsSchema).id);

@@ -1,3 +1,4 @@
+import { updateAtVersion } from "../../db/edit-version";
 import { asc, count, desc, eq, like, or, sql } from "drizzle-orm";
 import type { AppDeps } from "../../deps";
 import { customers, users } from "../../db/schema";
@@ -13,6 +14,7 @@ const jobCount = sql<number>`(select count(*) from "jobs" as j where j."customer
 
 const columns = {
   id: customers.id,
+  version: customers.version,
   name: customers.name,
   email: customers.email,
   phone: customers.phone,
@@ -62,13 +64,10 @@ export function createCustomer(deps: AppDeps, input: z.output<typeof createCusto
   return getCustomer(deps, row.id);
 }
 
-export function updateCustomer(deps: AppDeps, id: number, input: z.output<typeof updateCustomerInputSchema>): CustomerDto {
+export function updateCustomer(deps: AppDeps, actorId: string, id: number, input: z.output<typeof updateCustomerInputSchema>): CustomerDto {
   getCustomer(deps, id);
-  deps.db
-    .update(customers)
-    .set({ ...input, updatedAt: deps.now() })
-    .where(eq(customers.id, id))
-    .run();
+  const { version, ...fields } = input;
+  updateAtVersion(deps.db, customers, { id, version, actorId, what: "customer" }, { ...fields, updatedAt: deps.now() }, () => getCustomer(deps, id));
   return getCustomer(deps, id);
 }
 

@@ -1,6 +1,6 @@
 import { Router } from "express";
 import type { AppDeps } from "../../deps";
-import { allow } from "../../http/guard";
+import { actorOf, allow } from "../../http/guard";
 import { body, params } from "../../http/validate";
 import { idParamsSchema } from "../../../shared/schemas/common.schema";
 import { gunInputSchema, updateGunInputSchema } from "../../../shared/schemas/spray-setup.schema";
@@ -16,7 +16,7 @@ export function gunsRouter(deps: AppDeps) {
     res.status(201).json(createGun(deps, body(req, gunInputSchema)));
   });
   r.patch("/:id", allow("office"), (req, res) => {
-    res.json(updateGun(deps, params(req, idParamsSchema).id, body(req, updateGunInputSchema)));
+    res.json(updateGun(deps, actorOf(res).id, params(req, idParamsSchema).id, body(req, updateGunInputSchema)));
   });
   return r;
 }

@@ -1,3 +1,4 @@
+import { updateAtVersion } from "../../db/edit-version";
 import { asc, desc, eq } from "drizzle-orm";
 import type { z } from "zod";
 import type { AppDeps } from "../../deps";
@@ -6,7 +7,7 @@ import { badRequest, conflict, notFound } from "../../http/http-error";
 import type { GunDto, gunInputSchema, updateGunInputSchema } from "../../../shared/schemas/spray-setup.schema";
 
 type GunRow = typeof guns.$inferSelect;
-const toDto = (g: GunRow): GunDto => ({ id: g.id, name: g.name, description: g.description, active: g.active });
+const toDto = (g: GunRow): GunDto => ({ id: g.id, name: g.name, description: g.description, active: g.active, version: g.version });
 
 /** The shop's guns, active ones first; guns are never deleted (old coat logs name them), only put away. */
 export function listGuns(deps: AppDeps): GunDto[] {
@@ -29,7 +30,7 @@ export function createGun(deps: AppDeps, input: z.output<typeof gunInputSchema>)
   return toDto(row);
 }
 
-export function updateGun(deps: AppDeps, id: number, input: z.output<typeof updateGunInputSchema>): GunDto {
+export function updateGun(deps: AppDeps, actorId: string, id: number, input: z.output<typeof updateGunInputSchema>): GunDto {
   const row = deps.db.select().from(guns).where(eq(guns.id, id)).get();
   if (!row) throw notFound("Gun");
   if (input.name && nameTaken(deps, input.name, id)) throw conflict(`A gun is already called ${input.name}`, { name: "Already used" });
@@ -37,8 +38,8 @@ export function updateGun(deps: AppDeps, id: number, input: z.output<typeof upda
   if (input.name !== undefined) set.name = input.name;
   if (input.description !== undefined) set.description = input.description;
   if (input.active !== undefined) set.active = input.active;
-  const updated = deps.db.update(guns).set({ ...set, updatedAt: deps.now() }).where(eq(guns.id, id)).returning().get()!;
-  return toDto(updated);
+  updateAtVersion(deps.db, guns, { id, version: input.version, actorId, what: "gun" }, { ...set, updatedAt: deps.now() }, () => toDto(deps.db.select().from(guns).where(eq(guns.id, id)).get()!));
+  return toDto(deps.db.select().from(guns).where(eq(guns.id, id)).get()!);
 }
 
 /** Checks a gun id sent with a coat log or a panel: it must be one of the shop's guns. */

@@ -1,3 +1,4 @@
+import { updateAtVersion } from "../../db/edit-version";
 import { and, asc, eq, sql } from "drizzle-orm";
 import { preparedQuery } from "../../db/prepared";
 import type { z } from "zod";
@@ -11,8 +12,9 @@ import type { createJobItemInputSchema, updateJobItemInputSchema } from "../../.
 import { findJobFor } from "./jobs.access";
 
 function toDto(row: typeof jobItems.$inferSelect, actor: Actor): JobItemDto {
+  const { updatedBy: _updatedBy, ...fields } = row;
   return {
-    ...row,
+    ...fields,
     notes: actor.role === "customer" ? null : row.notes,
     createdAt: iso(row.createdAt),
     updatedAt: iso(row.updatedAt),
@@ -60,15 +62,13 @@ export function createItem(deps: AppDeps, actor: Actor, jobId: number, input: z.
 }
 
 export function updateItem(deps: AppDeps, actor: Actor, jobId: number, itemId: number, input: z.output<typeof updateJobItemInputSchema>) {
-  findItem(deps, actor, jobId, itemId);
-  const row = deps.db
-    .update(jobItems)
-    .set({ ...input, updatedAt: deps.now() })
-    .where(eq(jobItems.id, itemId))
-    .returning()
-    .get();
+  const before = findItem(deps, actor, jobId, itemId);
+  const { version, ...fields } = input;
+  updateAtVersion(deps.db, jobItems, { id: itemId, version, actorId: actor.id, what: "item" }, { ...fields, updatedAt: deps.now() }, () =>
+    toDto(deps.db.select().from(jobItems).where(eq(jobItems.id, itemId)).get() ?? before, actor),
+  );
   touchJob(deps, jobId);
-  return toDto(row, actor);
+  return toDto(deps.db.select().from(jobItems).where(eq(jobItems.id, itemId)).get()!, actor);
 }
 
 export function deleteItem(deps: AppDeps, actor: Actor, jobId: number, itemId: number) {

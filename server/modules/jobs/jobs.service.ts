@@ -1,6 +1,8 @@
+import { updateAtVersion } from "../../db/edit-version";
 import { aliasedTable, and, asc, count, desc, eq, gte, inArray, like, lt, lte, notInArray, or, sql, type SQL } from "drizzle-orm";
 import type { z } from "zod";
 import type { AppDeps } from "../../deps";
+import { nextSlots } from "../schedule/schedule.service";
 import type { Actor } from "../../auth/session";
 import { customers, jobStageEvents, jobs, users } from "../../db/schema";
 import { badRequest, conflict, notFound } from "../../http/http-error";
@@ -8,7 +10,7 @@ import { preparedQuery } from "../../db/prepared";
 import type { Db } from "../../db/client";
 import { iso } from "../../http/dates";
 import { parseSort, type Page } from "../../../shared/api/pagination";
-import { nextStagesFor, STAGES, type Stage, STAGE_LABELS } from "../../../shared/domain/stages";
+import { nextStagesFor, OPEN_STAGES, STAGES, type Stage, STAGE_LABELS } from "../../../shared/domain/stages";
 import type {
   BoardDto,
   JobDetailDto,
@@ -29,6 +31,7 @@ const itemCount = sql<number>`(select count(*) from "job_items" as ji where ji."
 
 const jobColumns = {
   id: jobs.id,
+  version: jobs.version,
   title: jobs.title,
   stage: jobs.stage,
   dueDate: jobs.dueDate,
@@ -44,6 +47,7 @@ const jobColumns = {
 };
 
 type JobRow = {
+  version: number;
   id: number;
   title: string;
   stage: Stage;
@@ -199,6 +203,11 @@ export function jobBoard(deps: AppDeps, actor: Actor): BoardDto {
       .all() as JobRow[];
     return { stage, total: counts.get(stage) ?? 0, jobs: rows.map((r) => toDto(r, actor)) };
   });
+  const slots = nextSlots(deps, columns.flatMap((c) => (OPEN_STAGES.includes(c.stage) ? c.jobs.map((j) => j.id) : [])));
+  for (const job of columns.flatMap((c) => c.jobs)) {
+    const slot = slots.get(job.id);
+    job.nextBoothSlot = slot ? { startsAt: new Date(slot.startsAt).toISOString(), boothName: slot.boothName } : null;
+  }
   return { columns };
 }
 
@@ -280,11 +289,8 @@ export function updateJob(deps: AppDeps, actor: Actor, id: number, input: z.outp
   const job = findJobFor(deps, actor, id);
   checkRefs(deps, input);
   checkCustomerMove(deps, job, input.customerId);
-  deps.db
-    .update(jobs)
-    .set({ ...input, updatedAt: deps.now() })
-    .where(eq(jobs.id, id))
-    .run();
+  const { version, ...fields } = input;
+  updateAtVersion(deps.db, jobs, { id, version, actorId: actor.id, what: "job" }, { ...fields, updatedAt: deps.now() }, () => getJob(deps, actor, id));
   return getJob(deps, actor, id);
 }
 

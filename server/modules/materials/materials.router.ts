@@ -68,7 +68,7 @@ export function materialsRouter(deps: AppDeps) {
   });
   r.patch("/:id/lots/:lotId", allow("office"), (req, res) => {
     const p = params(req, lotParamsSchema);
-    res.json(updateLot(deps, p.id, p.lotId, body(req, updateLotInputSchema)));
+    res.json(updateLot(deps, actorOf(res).id, p.id, p.lotId, body(req, updateLotInputSchema)));
   });
   r.delete("/:id/lots/:lotId", allow("office"), (req, res) => {
     const p = params(req, lotParamsSchema);

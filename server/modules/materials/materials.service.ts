@@ -1,3 +1,4 @@
+import { updateAtVersion } from "../../db/edit-version";
 import { and, asc, count, eq, inArray, like, or, sql, type SQL } from "drizzle-orm";
 import type { AppDeps } from "../../deps";
 import type { Actor } from "../../auth/session";
@@ -40,7 +41,7 @@ export function todayOf(ms: number) {
 const stockSum = sql<number>`coalesce((select sum(l."quantity_on_hand") from "material_lots" as l where l."material_id" = "materials"."id"), 0)`.mapWith(Number);
 
 export function toMaterialDto(row: MaterialRow, stockOnHand: number, actor: Actor): MaterialDto {
-  const { costCents, ...rest } = row;
+  const { costCents, updatedBy: _updatedBy, ...rest } = row;
   const dto: MaterialDto = {
     ...rest,
     stockOnHand,
@@ -56,6 +57,7 @@ export function toMaterialDto(row: MaterialRow, stockOnHand: number, actor: Acto
 export function toLotDto(row: LotRow, today: string): LotDto {
   return {
     id: row.id,
+    version: row.version,
     materialId: row.materialId,
     lotNumber: row.lotNumber,
     quantityOnHand: row.quantityOnHand,
@@ -174,12 +176,13 @@ export function createMaterial(deps: AppDeps, ctx: RequestContext, input: Create
 export function updateMaterial(deps: AppDeps, ctx: RequestContext, id: number, input: z.output<typeof updateMaterialInputSchema>): MaterialDetailDto {
   const before = findMaterial(deps, id);
   if (input.code && codeTaken(deps, input.code, id)) throw conflict(`Code ${input.code} is already used by another material`, { code: "Already used" });
+  const { version, ...fields } = input;
   const set: Partial<MaterialRow> = {};
-  for (const [k, v] of Object.entries(input)) if (v !== undefined) (set as Record<string, unknown>)[k] = v;
+  for (const [k, v] of Object.entries(fields)) if (v !== undefined) (set as Record<string, unknown>)[k] = v;
   if ("waterExemptPct" in set && set.waterExemptPct === null) set.waterExemptPct = 0;
   const now = deps.now();
   deps.db.transaction((tx) => {
-    tx.update(materials).set({ ...set, updatedAt: now }).where(eq(materials.id, id)).run();
+    updateAtVersion(tx, materials, { id, version, actorId: ctx.actor.id, what: "material" }, { ...set, updatedAt: now }, () => getMaterial(deps, ctx.actor, id));
     const moneyChanged = (set.costCents !== undefined && set.costCents !== before.costCents) || (set.purchaseUnit !== undefined && set.purchaseUnit !== before.purchaseUnit);
     if (moneyChanged) {
       recordAudit(
@@ -262,14 +265,16 @@ function findLot(deps: AppDeps, materialId: number, lotId: number): LotRow {
 }
 
 /** A stock count correction or a date fix. */
-export function updateLot(deps: AppDeps, materialId: number, lotId: number, input: z.output<typeof updateLotInputSchema>): LotDto {
+export function updateLot(deps: AppDeps, actorId: string, materialId: number, lotId: number, input: z.output<typeof updateLotInputSchema>): LotDto {
   const lot = findLot(deps, materialId, lotId);
   checkLotDates({ receivedOn: input.receivedOn !== undefined ? input.receivedOn : lot.receivedOn, expiresOn: input.expiresOn !== undefined ? input.expiresOn : lot.expiresOn });
+  const { version, ...fields } = input;
   const set: Partial<LotRow> = {};
-  for (const [k, v] of Object.entries(input)) if (v !== undefined) (set as Record<string, unknown>)[k] = v;
+  for (const [k, v] of Object.entries(fields)) if (v !== undefined) (set as Record<string, unknown>)[k] = v;
   const now = deps.now();
-  const row = deps.db.update(materialLots).set({ ...set, updatedAt: now }).where(eq(materialLots.id, lotId)).returning().get();
-  return toLotDto(row, todayOf(now));
+  const current = () => toLotDto(deps.db.select().from(materialLots).where(eq(materialLots.id, lotId)).get()!, todayOf(now));
+  updateAtVersion(deps.db, materialLots, { id: lotId, version, actorId, what: "lot" }, { ...set, updatedAt: now }, current);
+  return current();
 }
 
 /** Mix-sheet lines keep the lot number they copied, so a used lot may still be removed (e.g. when empty). */

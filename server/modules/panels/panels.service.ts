@@ -1,3 +1,4 @@
+import { updateAtVersion } from "../../db/edit-version";
 import { and, asc, count, desc, eq, inArray, like, or, sql, type SQL } from "drizzle-orm";
 import type { z } from "zod";
 import type { AppDeps } from "../../deps";
@@ -125,6 +126,7 @@ function toDtos(deps: AppDeps, actor: Actor, rows: Selected[], t: Thresholds): P
       approvedPanelId != null && approvedPanelId !== p.id ? compareColour({ id: approvedPanelId, lab: approved.get(approvedPanelId) ?? null }, lab, t) : null;
     return {
       id: p.id,
+      version: p.version,
       label: panelLabel(p),
       groundName: p.groundName,
       groundMaterialId: customer ? null : p.groundMaterialId,
@@ -229,11 +231,11 @@ function groundNameOf(deps: AppDeps, input: { groundName?: string; groundMateria
   return m.name;
 }
 
-type PanelInput = z.output<typeof updatePanelInputSchema>;
+type PanelInput = Omit<z.output<typeof updatePanelInputSchema>, "version">;
 
 /** The columns an input sets (only the fields it carries), with the ground named from the catalogue. */
-function columnsOf(deps: AppDeps, input: PanelInput): Partial<PanelRow> {
-  const { readings: _readings, ...fields } = input;
+function columnsOf(deps: AppDeps, input: PanelInput & { version?: number }): Partial<PanelRow> {
+  const { readings: _readings, version: _version, ...fields } = input;
   const set: Partial<PanelRow> = {};
   for (const [k, v] of Object.entries(fields)) if (v !== undefined) (set as Record<string, unknown>)[k] = v;
   if (input.groundMaterialId != null) set.groundName = groundNameOf(deps, input);
@@ -291,7 +293,7 @@ export function updatePanel(deps: AppDeps, actor: Actor, id: number, input: z.ou
   if ((merged.distance != null || merged.fanWidth != null) && !merged.distanceUnit) throw badRequest("Say whether lengths are in cm or in", { distanceUnit: "Missing unit" });
   if (merged.boothTemp != null && !merged.tempUnit) throw badRequest("Say whether the temperature is °C or °F", { tempUnit: "Missing unit" });
   deps.db.transaction((tx) => {
-    tx.update(testPanels).set({ ...set, updatedAt: deps.now() }).where(eq(testPanels.id, id)).run();
+    updateAtVersion(tx, testPanels, { id, version: input.version, actorId: actor.id, what: "test panel" }, { ...set, updatedAt: deps.now() }, () => getPanel(deps, actor, id));
     replaceReadings(tx, id, input.readings);
     if (input.jobId !== undefined) tx.update(uploads).set({ jobId: input.jobId }).where(and(eq(uploads.ownerType, "panel"), eq(uploads.ownerId, id))).run();
   });

@@ -8,6 +8,7 @@ import {
   copyAsTemplateInputSchema,
   listPlansQuerySchema,
   planDocumentSchema,
+  savePlanInputSchema,
   startJobPlanInputSchema,
   versionParamsSchema,
 } from "../../../shared/schemas/plan.schema";
@@ -30,7 +31,7 @@ export function plansRouter(deps: AppDeps) {
     res.json(getPlan(deps, actorOf(res), params(req, idParamsSchema).id));
   });
   r.put("/:id", allow("office"), (req, res) => {
-    res.json(savePlan(deps, ctxOf(req, res), params(req, idParamsSchema).id, body(req, planDocumentSchema)));
+    res.json(savePlan(deps, ctxOf(req, res), params(req, idParamsSchema).id, body(req, savePlanInputSchema)));
   });
   r.delete("/:id", allow("office"), (req, res) => {
     deletePlan(deps, ctxOf(req, res), params(req, idParamsSchema).id);

@@ -8,6 +8,7 @@ import { badRequest, conflict, notFound } from "../../http/http-error";
 import { iso, isoOrNull } from "../../http/dates";
 import type { RequestContext } from "../../http/context";
 import { recordAudit } from "../audit/audit.service";
+import { atVersion, nextVersion, staleEdit } from "../../db/edit-version";
 import { findJobFor, jobScope } from "../jobs/jobs.access";
 import { seesCost } from "../materials/materials.service";
 import { cautionsFor } from "../../../shared/domain/safety";
@@ -16,6 +17,7 @@ import type {
   LayerComponentDto,
   ListPlansQuery,
   PlanDocument,
+  SavePlanInput,
   PlanDto,
   PlanLayerDto,
   PlanSummaryDto,
@@ -217,6 +219,7 @@ function planDto(deps: AppDeps, actor: Actor, plan: PlanRow): PlanDto {
     updatedAt: iso(plan.updatedAt),
     versionCount,
     latest: toVersionDto(loaded, actor, versionLocked(deps.db, latest.id, latest.frozenAt)),
+    version: plan.version,
   };
 }
 
@@ -509,11 +512,21 @@ export function startJobPlan(deps: AppDeps, ctx: RequestContext, jobId: number, 
  * Saves the editor's whole document. The latest version is replaced in place unless it is locked (frozen at the
  * booth, or a mix sheet refers to it): then version N+1 is made and the old one stays exactly as it was.
  */
-export function savePlan(deps: AppDeps, ctx: RequestContext, planId: number, doc: PlanDocument): PlanDto {
+export function savePlan(deps: AppDeps, ctx: RequestContext, planId: number, doc: SavePlanInput): PlanDto {
   const plan = findPlanFor(deps, ctx.actor, planId);
   validateDocument(deps, doc);
   const now = deps.now();
   deps.db.transaction((tx) => {
+    // Claim the edit first: if someone saved since this user opened the plan, nothing below runs.
+    const claimed = tx
+      .update(plans)
+      .set({ name: doc.name, description: doc.description ?? null, updatedAt: now, ...nextVersion(plans, ctx.actor.id) })
+      .where(and(eq(plans.id, planId), atVersion(plans, doc.version)))
+      .run();
+    if (claimed.changes === 0) {
+      const row = tx.select().from(plans).where(eq(plans.id, planId)).get()!;
+      throw staleEdit(tx, "plan", planDto(deps, ctx.actor, row), row);
+    }
     const latest = latestVersionRow(tx, planId);
     const before = loadPlanVersion({ db: tx }, latest.id);
     const locked = versionLocked(tx, latest.id, latest.frozenAt);
@@ -531,7 +544,6 @@ export function savePlan(deps: AppDeps, ctx: RequestContext, planId: number, doc
       if (doc.versionNote !== undefined) tx.update(planVersions).set({ note: doc.versionNote }).where(eq(planVersions.id, latest.id)).run();
       insertLayers(tx, latest.id, doc.layers);
     }
-    tx.update(plans).set({ name: doc.name, description: doc.description ?? null, updatedAt: now }).where(eq(plans.id, planId)).run();
     recordAudit(
       tx,
       ctx,

@@ -1,3 +1,4 @@
+import { updateAtVersion } from "../../db/edit-version";
 import { aliasedTable, and, asc, eq } from "drizzle-orm";
 import type { z } from "zod";
 import type { AppDeps } from "../../deps";
@@ -39,6 +40,7 @@ function toDto(deps: AppDeps, actor: Actor, rows: Selected[]): PrepRecordDto[] {
   const photos = photosOf(deps, actor, "prep_record", rows.map((x) => x.r.id));
   return rows.map(({ r, itemName, preparedByName, signedOffByName }) => ({
     id: r.id,
+    version: r.version,
     jobId: r.jobId,
     itemId: r.itemId,
     itemName,
@@ -98,7 +100,7 @@ export function jobPrep(deps: AppDeps, actor: Actor, jobId: number): JobPrepDto 
 }
 
 /** Only the fields given are written; missing ones keep their value. */
-function stepValues(input: z.output<typeof updatePrepRecordInputSchema>) {
+function stepValues(input: Omit<z.output<typeof updatePrepRecordInputSchema>, "version">) {
   const out: Partial<PrepRow> = {};
   for (const key of ["scuffMedium", "scuffGrit", "cleaner", "tackCloth", "adhesionPromoter", "adhesionPromoterProduct", "notes"] as const) {
     if (input[key] !== undefined) (out as Record<string, unknown>)[key] = input[key];
@@ -139,11 +141,9 @@ export function updatePrepRecord(deps: AppDeps, actor: Actor, id: number, input:
   const { r } = findRecord(deps, actor, id);
   if (r.signedOffAt) throw conflict("This prep is signed off and can no longer change; the office can reopen it with a reason");
   const now = deps.now();
-  deps.db
-    .update(prepRecords)
-    .set({ ...stepValues(input), preparedBy: actor.id, preparedAt: now, updatedAt: now })
-    .where(eq(prepRecords.id, id))
-    .run();
+  updateAtVersion(deps.db, prepRecords, { id, version: input.version, actorId: actor.id, what: "prep record" }, { ...stepValues(input), preparedBy: actor.id, preparedAt: now, updatedAt: now }, () =>
+    getPrepRecord(deps, actor, id),
+  );
   return getPrepRecord(deps, actor, id);
 }
 

@@ -1,3 +1,4 @@
+import { updateAtVersion } from "../../db/edit-version";
 import { and, asc, count, desc, eq, inArray, isNotNull, isNull, lt, or, sql, type SQL } from "drizzle-orm";
 import type { z } from "zod";
 import type { AppDeps } from "../../deps";
@@ -117,6 +118,7 @@ function selectQuoteRows(deps: AppDeps) {
       customerName: customers.name,
       customerEmail: customers.email,
       updatedAt: quotes.updatedAt,
+      editVersion: quotes.version,
       v: quoteVersions,
     })
     .from(quotes)
@@ -213,6 +215,7 @@ export function getQuote(deps: AppDeps, id: number): QuoteDetailDto {
   const plan = planForQuote(deps, row.jobId, 0);
   return {
     ...toQuoteDto(deps, row, today),
+    editVersion: row.editVersion,
     current: toVersionDto(current.v, current.by, today),
     versions,
     offeredVersion: offered ? offered.v.version : null,
@@ -298,7 +301,8 @@ export function createQuote(deps: AppDeps, ctx: RequestContext, jobId: number): 
   return getQuote(deps, id);
 }
 
-type UpdateInput = z.output<typeof updateQuoteInputSchema>;
+/** A change to a quote; `version` (the quote's edit version) when it comes from the editor, which must not be stale. */
+type UpdateInput = Omit<z.output<typeof updateQuoteInputSchema>, "editVersion"> & { editVersion?: number };
 
 function applyUpdate(v: VersionRow, input: UpdateInput) {
   return {
@@ -345,6 +349,7 @@ export function updateQuote(deps: AppDeps, ctx: RequestContext, id: number, inpu
   const now = deps.now();
   deps.db.transaction((tx) => {
     refuseIfApproved(tx, id);
+    if (input.editVersion !== undefined) updateAtVersion(tx, quotes, { id, version: input.editVersion, actorId: ctx.actor.id, what: "quote" }, { updatedAt: now }, () => getQuote(deps, id));
     const latest = latestVersion(tx, id)!;
     if (latest.status !== "draft") {
       newVersion(tx, ctx, latest, input, now);

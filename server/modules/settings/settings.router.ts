@@ -4,7 +4,7 @@ import { allow } from "../../http/guard";
 import { body } from "../../http/validate";
 import { ctxOf } from "../../http/context";
 import { updateShopSettingsSchema } from "../../../shared/schemas/settings.schema";
-import { getPublicSettings, getSettings, updateSettings } from "./settings.service";
+import { getEditableSettings, getPublicSettings, updateSettings } from "./settings.service";
 
 export function settingsRouter(deps: AppDeps) {
   const r = Router();
@@ -13,7 +13,7 @@ export function settingsRouter(deps: AppDeps) {
     res.json(getPublicSettings(deps));
   });
   r.get("/", allow("office"), (_req, res) => {
-    res.json(getSettings(deps));
+    res.json(getEditableSettings(deps));
   });
   r.patch("/", allow("owner"), (req, res) => {
     res.json(updateSettings(deps, ctxOf(req, res), body(req, updateShopSettingsSchema)));

@@ -1,3 +1,4 @@
+import { atVersion, nextVersion, staleEdit } from "../../db/edit-version";
 import { and, asc, eq, inArray, type SQL } from "drizzle-orm";
 import type { AppDeps } from "../../deps";
 import type { Actor } from "../../auth/session";
@@ -92,6 +93,7 @@ const OWNER_NAMES: Record<UploadOwnerType, string> = {
 export function toUploadDto(row: UploadRow & { uploadedByName?: string | null }): UploadDto {
   return {
     id: row.id,
+    version: row.version,
     ownerType: row.ownerType,
     ownerId: row.ownerId,
     jobId: row.jobId,
@@ -224,16 +226,25 @@ export function updateUpload(deps: AppDeps, actor: Actor, id: number, input: z.o
   const row = findUploadFor(deps, actor, id, "write");
   checkWrite(row);
   if (input.shareable && row.jobId === null) throw badRequest("Only photos of a customer's job can be shared", { shareable: "Not a job photo" });
+  const dto = (r: typeof uploads.$inferSelect) => {
+    const name = r.uploadedBy ? deps.db.select({ name: users.name }).from(users).where(eq(users.id, r.uploadedBy)).get()?.name : null;
+    return toUploadDto({ ...r, uploadedByName: name ?? null });
+  };
   const updated = deps.db
     .update(uploads)
     .set({
       ...(input.shareable !== undefined ? { shareable: input.shareable } : {}),
       ...(input.caption !== undefined ? { caption: input.caption } : {}),
       ...(input.light !== undefined && row.ownerType === "panel" ? { light: input.light } : {}),
+      ...nextVersion(uploads, actor.id),
     })
-    .where(eq(uploads.id, id))
+    .where(and(eq(uploads.id, id), atVersion(uploads, input.version)))
     .returning()
     .get();
+  if (!updated) {
+    const now = deps.db.select().from(uploads).where(eq(uploads.id, id)).get()!;
+    throw staleEdit(deps.db, "photo", dto(now), { updatedBy: now.updatedBy, updatedAt: null });
+  }
   const by = updated.uploadedBy ? deps.db.select({ name: users.name }).from(users).where(eq(users.id, updated.uploadedBy)).get()?.name : null;
   return toUploadDto({ ...updated, uploadedByName: by ?? null });
 }

@@ -1,3 +1,4 @@
+import { updateAtVersion } from "../../db/edit-version";
 import { and, asc, count, desc, eq, like, ne, or, type SQL } from "drizzle-orm";
 import { randomUUID } from "node:crypto";
 import type { AppDeps } from "../../deps";
@@ -12,6 +13,7 @@ import { recordAudit } from "../audit/audit.service";
 
 const userColumns = {
   id: users.id,
+  version: users.version,
   email: users.email,
   name: users.name,
   role: users.role,
@@ -98,7 +100,7 @@ export async function updateUser(deps: AppDeps, ctx: RequestContext, id: string,
   const customerId = checkCustomerLink(deps, role, input.customerId !== undefined ? input.customerId : user.customerId);
   const name = input.name ?? user.name;
   deps.db.transaction((tx) => {
-    tx.update(users).set({ name, role, active, customerId, updatedAt: deps.now() }).where(eq(users.id, id)).run();
+    updateAtVersion(tx, users, { id, version: input.version, actorId: actor.id, what: "user" }, { name, role, active, customerId, updatedAt: deps.now() }, () => getUser(deps, id));
     const action = role !== user.role ? "role_changed" : active !== user.active ? (active ? "reactivated" : "deactivated") : "updated";
     recordAudit(
       tx,

@@ -20,7 +20,7 @@ export const rows: MatrixRows = {
   "GET /api/materials/low-stock": { prepare: fx, path: () => "/api/materials/low-stock", expect: staff(200) },
   "POST /api/materials": { path: () => "/api/materials", body: newMaterial, expect: office(201) },
   "GET /api/materials/:id": { prepare: fx, path: (s) => `/api/materials/${fx(s).clear.id}`, expect: staff(200) },
-  "PATCH /api/materials/:id": { prepare: fx, path: (s) => `/api/materials/${fx(s).clear.id}`, body: () => ({ costCents: 9900 }), expect: office(200) },
+  "PATCH /api/materials/:id": { prepare: fx, path: (s) => `/api/materials/${fx(s).clear.id}`, body: () => ({ costCents: 9900, version: 1 }), expect: office(200) },
   "DELETE /api/materials/:id": { prepare: fx, path: (s) => `/api/materials/${fx(s).spare.id}`, expect: office(204) },
   "GET /api/materials/:id/lots": { prepare: fx, path: (s) => `/api/materials/${fx(s).clear.id}/lots`, expect: staff(200) },
   "POST /api/materials/:id/lots": {
@@ -32,7 +32,7 @@ export const rows: MatrixRows = {
   "PATCH /api/materials/:id/lots/:lotId": {
     prepare: fx,
     path: (s) => `/api/materials/${fx(s).clear.id}/lots/${fx(s).clearLot.id}`,
-    body: () => ({ quantityOnHand: 1.5 }),
+    body: () => ({ quantityOnHand: 1.5, version: 1 }),
     expect: office(200),
   },
   "DELETE /api/materials/:id/lots/:lotId": { prepare: fx, path: (s) => `/api/materials/${fx(s).clear.id}/lots/${fx(s).clearLot.id}`, expect: office(204) },

@@ -21,7 +21,7 @@ export const rows: MatrixRows = {
     expect: staff(201),
   },
   "GET /api/panels/:id": { path: (s) => `/api/panels/${panelIds(s)[0]}`, prepare: twoPanels, expect: staff(200) },
-  "PATCH /api/panels/:id": { path: (s) => `/api/panels/${panelIds(s)[0]}`, prepare: twoPanels, body: () => ({ notes: "Sprayed at 22 °C" }), expect: staff(200) },
+  "PATCH /api/panels/:id": { path: (s) => `/api/panels/${panelIds(s)[0]}`, prepare: twoPanels, body: () => ({ notes: "Sprayed at 22 °C", version: 1 }), expect: staff(200) },
   "DELETE /api/panels/:id": { path: (s) => `/api/panels/${panelIds(s)[1]}`, prepare: twoPanels, expect: office(204) },
   "GET /api/jobs/:id/colour": { path: (s) => `/api/jobs/${s.jobA.id}/colour`, prepare: twoPanels, expect: signedIn(200) },
   "PUT /api/jobs/:id/approved-panel": { path: (s) => `/api/jobs/${s.jobA.id}/approved-panel`, prepare: twoPanels, body: (s) => ({ panelId: panelIds(s)[0] }), expect: office(200) },

@@ -3,6 +3,7 @@ import { fx } from "../../support/finish-fixtures";
 import type { Shop } from "../../support/test-app";
 
 const doc = (s: Shop) => ({
+  version: 1,
   name: "Test solid colour",
   layers: [
     {

@@ -15,7 +15,7 @@ export const rows: MatrixRows = {
   "GET /api/prep-records": { path: (s) => `/api/prep-records?jobId=${s.jobA.id}`, expect: staff(200) },
   "POST /api/prep-records": { path: () => "/api/prep-records", body: (s) => ({ itemId: s.itemA.id, scuffMedium: "scuff_pad", scuffGrit: 600 }), expect: staff(201) },
   "GET /api/prep-records/:id": { path: (s) => `/api/prep-records/${recordId(s)}`, prepare: openRecord, expect: staff(200) },
-  "PATCH /api/prep-records/:id": { path: (s) => `/api/prep-records/${recordId(s)}`, prepare: openRecord, body: () => ({ scuffGrit: 800 }), expect: staff(200) },
+  "PATCH /api/prep-records/:id": { path: (s) => `/api/prep-records/${recordId(s)}`, prepare: openRecord, body: () => ({ scuffGrit: 800, version: 1 }), expect: staff(200) },
   "POST /api/prep-records/:id/sign-off": { path: (s) => `/api/prep-records/${recordId(s)}/sign-off`, prepare: openRecord, expect: staff(200) },
   "POST /api/prep-records/:id/reopen": {
     path: (s) => `/api/prep-records/${recordId(s)}/reopen`,

@@ -9,7 +9,7 @@ export const rows: MatrixRows = {
   "GET /api/quotes": { path: () => "/api/quotes", expect: office(200) },
   "POST /api/quotes": { path: () => "/api/quotes", body: (s) => ({ jobId: s.jobA.id }), expect: office(201) },
   "GET /api/quotes/:id": { prepare: (s) => draftQuote(s), path: () => "/api/quotes/1", expect: office(200) },
-  "PATCH /api/quotes/:id": { prepare: (s) => draftQuote(s), path: () => "/api/quotes/1", body: () => ({ intro: "Thanks for asking us." }), expect: office(200) },
+  "PATCH /api/quotes/:id": { prepare: (s) => draftQuote(s), path: () => "/api/quotes/1", body: () => ({ intro: "Thanks for asking us.", editVersion: 2 }), expect: office(200) },
   "DELETE /api/quotes/:id": { prepare: (s) => draftQuote(s), path: () => "/api/quotes/1", expect: office(200) },
   "POST /api/quotes/:id/versions": { prepare: (s) => sentQuote(s), path: () => "/api/quotes/1/versions", expect: office(201) },
   "GET /api/quotes/:id/versions/:version": { prepare: (s) => draftQuote(s), path: () => "/api/quotes/1/versions/1", expect: office(200) },

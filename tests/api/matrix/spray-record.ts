@@ -18,7 +18,7 @@ const panelId = (s: Shop) => (s as Shop & { panelId?: number }).panelId;
 export const rows: MatrixRows = {
   "GET /api/guns": { prepare: withGun, path: () => "/api/guns", expect: staff(200) },
   "POST /api/guns": { path: () => "/api/guns", body: () => ({ name: "Gun 4 (pearl)", description: "HVLP, 1.4 mm" }), expect: office(201) },
-  "PATCH /api/guns/:id": { prepare: withGun, path: (s) => `/api/guns/${gunId(s)}`, body: () => ({ active: false }), expect: office(200) },
+  "PATCH /api/guns/:id": { prepare: withGun, path: (s) => `/api/guns/${gunId(s)}`, body: () => ({ active: false, version: 1 }), expect: office(200) },
   // Job A is the painter's and customer A's own.
   "GET /api/jobs/:id/finish-record": { prepare: sprayed, path: (s) => `/api/jobs/${s.jobA.id}/finish-record`, expect: signedIn(200) },
   "GET /api/jobs/:id/finish-record.pdf": { prepare: sprayed, path: (s) => `/api/jobs/${s.jobA.id}/finish-record.pdf`, expect: signedIn(200) },

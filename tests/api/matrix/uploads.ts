@@ -21,6 +21,6 @@ export const rows: MatrixRows = {
   "GET /api/uploads": { path: (s) => `/api/uploads?jobId=${s.jobA.id}`, prepare: sharedPhoto, expect: signedIn(200) },
   "GET /api/uploads/:id": { path: (s) => `/api/uploads/${photoId(s)}`, prepare: sharedPhoto, expect: signedIn(200) },
   "GET /api/uploads/:id/thumb": { path: (s) => `/api/uploads/${photoId(s)}/thumb`, prepare: sharedPhoto, expect: signedIn(200) },
-  "PATCH /api/uploads/:id": { path: (s) => `/api/uploads/${photoId(s)}`, prepare: sharedPhoto, body: () => ({ shareable: false }), expect: staff(200) },
+  "PATCH /api/uploads/:id": { path: (s) => `/api/uploads/${photoId(s)}`, prepare: sharedPhoto, body: () => ({ shareable: false, version: 1 }), expect: staff(200) },
   "DELETE /api/uploads/:id": { path: (s) => `/api/uploads/${photoId(s)}`, prepare: sharedPhoto, expect: staff(204) },
 };

@@ -9,6 +9,6 @@ export const rows: MatrixRows = {
     expect: ownerOnly(201),
   },
   "GET /api/users/:id": { path: (s) => `/api/users/${s.painter.id}`, expect: ownerOnly(200) },
-  "PATCH /api/users/:id": { path: (s) => `/api/users/${s.painter.id}`, body: () => ({ name: "Renamed" }), expect: ownerOnly(200) },
+  "PATCH /api/users/:id": { path: (s) => `/api/users/${s.painter.id}`, body: () => ({ name: "Renamed", version: 1 }), expect: ownerOnly(200) },
   "GET /api/painters": { path: () => "/api/painters", expect: office(200) },
 };

@@ -9,6 +9,7 @@ import { Spinner } from "@/components/ui/spinner";
 import { paths } from "@/config/paths";
 import { useCurrentUser } from "@/features/auth/hooks/use-current-user";
 import { jobQueries } from "@/features/jobs/api/jobs.queries";
+import { BoothDay } from "@/features/schedule/components/booth-day";
 import { formatDate } from "@/utils/format-date";
 
 /** The jobs at the booth (in prep, in the booth, curing): painters see theirs, the owner all. Big tap targets. */
@@ -18,6 +19,7 @@ export default function BoothIndexRoute() {
   return (
     <>
       <PageHeader title="Booth" description={user.role === "painter" ? "Your jobs in prep, in the booth and curing. Tap one to open its booth card." : "Jobs in prep, in the booth and curing."} />
+      <BoothDay mine={user.role === "painter"} />
       {jobs.isPending ? (
         <Spinner label="Loading jobs…" />
       ) : jobs.error ? (

@@ -91,7 +91,7 @@ function EditCustomerDialog({ customer, onClose }: { customer: CustomerDto; onCl
         }}
         onCancel={onClose}
         onSubmit={async (values) => {
-          await update.mutateAsync(values);
+          await update.mutateAsync({ ...values, version: customer.version });
           toast.success("Customer saved");
           onClose();
         }}

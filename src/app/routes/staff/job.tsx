@@ -140,7 +140,7 @@ function EditJobDialog({ job, onClose }: { job: JobDetailDto; onClose: () => voi
           submitLabel="Save job"
           onCancel={onClose}
           onSubmit={async (values) => {
-            await update.mutateAsync(values);
+            await update.mutateAsync({ ...values, version: job.version });
             toast.success("Job saved");
             onClose();
           }}

@@ -136,7 +136,7 @@ function EditMaterialDialog({ material: m, onClose }: { material: MaterialDetail
         }}
         onCancel={onClose}
         onSubmit={async (values) => {
-          await update.mutateAsync(values);
+          await update.mutateAsync({ ...values, version: m.version });
           toast.success("Material saved");
           onClose();
         }}

@@ -211,7 +211,7 @@ function EditPanelDialog({ panel, grounds, candies, onClose }: { panel: PanelDto
         onCancel={onClose}
         onSubmit={async (values) => {
           const { jobId: _jobId, ...rest } = values;
-          await update.mutateAsync({ ...rest, labL: rest.labL ?? null, labA: rest.labA ?? null, labB: rest.labB ?? null });
+          await update.mutateAsync({ ...rest, labL: rest.labL ?? null, labA: rest.labA ?? null, labB: rest.labB ?? null, version: panel.version });
           toast.success("Panel saved");
           onClose();
         }}

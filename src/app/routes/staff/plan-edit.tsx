@@ -52,8 +52,8 @@ function Editor({ planId }: { planId: number | null }) {
         materials={materials.data ?? []}
         submitLabel={current ? "Save plan" : "Create template"}
         onCancel={back}
-        onSave={async (doc) => {
-          const saved = current ? await save.mutateAsync(doc) : await create.mutateAsync(doc);
+        onSave={async (doc, version) => {
+          const saved = current ? await save.mutateAsync({ ...doc, version }) : await create.mutateAsync(doc);
           toast.success(current && saved.latest.version > current.latest.version ? `Saved as version ${saved.latest.version}` : "Plan saved");
           navigate(saved.jobId ? paths.jobPlan(saved.jobId) : paths.plan(saved.id));
         }}

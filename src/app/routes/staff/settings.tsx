@@ -9,6 +9,7 @@ import { VocLimitsNote } from "@/features/compliance/components/voc-notes";
 import { settingsQueries, useUpdateSettings } from "@/features/settings/api/settings.queries";
 import { SettingsForm } from "@/features/settings/components/settings-form";
 import { GunsPanel } from "@/features/guns/components/guns-panel";
+import { BoothsPanel } from "@/features/schedule/components/booths-panel";
 
 export default function SettingsRoute() {
   return (
@@ -44,7 +45,7 @@ function SettingsPage() {
           canEdit={canEdit}
           limitsNote={<VocLimitsNote />}
           onSubmit={async (values) => {
-            const saved = await update.mutateAsync(values);
+            const saved = await update.mutateAsync({ ...values, version: data.version });
             toast.success("Settings saved");
             return saved;
           }}
@@ -53,6 +54,11 @@ function SettingsPage() {
       <div className="mt-8 max-w-3xl">
         <GunsPanel />
       </div>
+      {user.role === "owner" ? (
+        <div className="mt-8 max-w-3xl">
+          <BoothsPanel />
+        </div>
+      ) : null}
     </>
   );
 }

@@ -24,5 +24,5 @@ export function useCreateGun() {
 
 export function useUpdateGun() {
   const after = useAfterGun();
-  return useMutation({ mutationFn: ({ id, ...input }: Partial<GunInput> & { id: number }) => api.patch<GunDto>(`/guns/${id}`, input), onSuccess: after });
+  return useMutation({ mutationFn: ({ id, ...input }: Partial<GunInput> & { id: number; version: number }) => api.patch<GunDto>(`/guns/${id}`, input), onSuccess: after });
 }

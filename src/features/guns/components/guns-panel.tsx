@@ -49,7 +49,7 @@ export function GunsPanel() {
               variant="ghost"
               size="sm"
               disabled={update.isPending}
-              onClick={() => update.mutate({ id: g.id, active: !g.active }, { onError: (err) => toast.error(err.message) })}
+              onClick={() => update.mutate({ id: g.id, active: !g.active, version: g.version }, { onError: (err) => toast.error(err.message) })}
             >
               {g.active ? "Put away" : "Back in use"}
               <span className="sr-only"> {g.name}</span>

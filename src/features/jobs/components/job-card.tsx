@@ -1,6 +1,6 @@
 import { useState } from "react";
 import { Link } from "react-router";
-import { ArrowRightLeft, Layers, UserRound } from "lucide-react";
+import { ArrowRightLeft, CalendarClock, Layers, UserRound } from "lucide-react";
 import type { Stage } from "@shared/domain/stages";
 import type { JobDto } from "@shared/schemas/job.schema";
 import { Button } from "@/components/ui/button";
@@ -8,6 +8,9 @@ import { paths } from "@/config/paths";
 import { cn } from "@/utils/cn";
 import { DueDate, dueStatus } from "./due-date";
 import { StageMoveDialog } from "./stage-move-dialog";
+
+const slotFormat = new Intl.DateTimeFormat(undefined, { weekday: "short", day: "numeric", month: "short", hour: "2-digit", minute: "2-digit" });
+const boothSlotText = (iso: string) => slotFormat.format(Date.parse(iso));
 
 /** One job on the board: what it is, whose, when, who sprays it, and a way to move it on. */
 export function JobCard({ job, moves }: { job: JobDto; moves: readonly Stage[] }) {
@@ -42,6 +45,15 @@ export function JobCard({ job, moves }: { job: JobDto; moves: readonly Stage[] }
           {job.itemCount} {job.itemCount === 1 ? "item" : "items"}
         </span>
       </div>
+      {job.nextBoothSlot ? (
+        <p className="inline-flex items-center gap-1 text-sm text-ink-900">
+          <CalendarClock aria-hidden className="size-4 text-primer-700" />
+          <span>
+            <span className="sr-only">Next booth slot: </span>
+            {job.nextBoothSlot.boothName}, {boothSlotText(job.nextBoothSlot.startsAt)}
+          </span>
+        </p>
+      ) : null}
       {moves.length > 0 ? (
         <Button
           variant="secondary"

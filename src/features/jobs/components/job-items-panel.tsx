@@ -141,7 +141,7 @@ function EditItemDialog({ jobId, item, onClose }: { jobId: number; item: JobItem
         }}
         onCancel={onClose}
         onSubmit={async (values) => {
-          await update.mutateAsync({ itemId: item.id, ...values });
+          await update.mutateAsync({ itemId: item.id, ...values, version: item.version });
           toast.success(`Saved ${values.name}`);
           onClose();
         }}

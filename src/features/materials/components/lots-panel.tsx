@@ -123,7 +123,7 @@ function LotDialog({ materialId, unit, lot, onClose }: { materialId: number; uni
   const submit = handleSubmit(async (values) => {
     setProblem(null);
     try {
-      if (lot) await update.mutateAsync({ lotId: lot.id, ...values });
+      if (lot) await update.mutateAsync({ lotId: lot.id, ...values, version: lot.version });
       else await create.mutateAsync(values);
       toast.success(lot ? `Saved lot ${values.lotNumber}` : `Added lot ${values.lotNumber}`);
       onClose();

@@ -15,6 +15,9 @@ import { RefundDialog } from "./refund-dialog";
 
 type Show = "all" | "to-check";
 
+/** A flagged payment's reason ("paid $1.00 but …") as the refund's reason, starting with a capital. */
+const upperFirst = (text: string) => text.charAt(0).toUpperCase() + text.slice(1);
+
 /**
  * Every card payment, those waiting for the owner first (flagged: an amount that does not match, or more than was
  * still due); `?show=to-check` lists only those. A refund is one dialog away, opened with all that is left.
@@ -72,7 +75,7 @@ export function PaymentsTable() {
         />
       )}
       {refunding ? (
-        <RefundDialog payment={refunding} onClose={() => setRefunding(null)} defaultReason={refunding.needsReview ? "More than was due" : ""} />
+        <RefundDialog payment={refunding} onClose={() => setRefunding(null)} defaultReason={refunding.needsReview ? upperFirst(refunding.flagReason ?? "") : ""} />
       ) : null}
     </>
   );

@@ -63,7 +63,7 @@ export function useCreateTemplate() {
 
 export function useSavePlan(id: number) {
   const after = useAfterPlanWrite();
-  return useMutation({ mutationFn: (doc: PlanDocumentInput) => api.put<PlanDto>(`/plans/${id}`, doc), onSuccess: (p) => after(p) });
+  return useMutation({ mutationFn: (doc: PlanDocumentInput & { version: number }) => api.put<PlanDto>(`/plans/${id}`, doc), onSuccess: (p) => after(p) });
 }
 
 export function useDeletePlan() {

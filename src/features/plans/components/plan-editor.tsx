@@ -19,6 +19,8 @@ import { TextareaField } from "@/components/ui/form/textarea-field";
 import { SafetyCautions } from "@/components/ui/safety-cautions";
 import { cn } from "@/utils/cn";
 import { formatNumber } from "@/utils/format-quantity";
+import { useVersionGuard } from "@/hooks/use-version-guard";
+import { VersionConflictNotice } from "@/components/ui/version-conflict-notice";
 
 /*
  * The plan editor: the whole layer stack in one form. Layers move with the up/down buttons (touch, keyboard)
@@ -178,6 +180,9 @@ function newLayer(kind: LayerKind = "clear"): EditorLayer {
   };
 }
 
+/** A new template has no edit version yet. */
+const NEW_PLAN = { version: 1 };
+
 export function PlanEditor({
   plan,
   materials,
@@ -188,11 +193,22 @@ export function PlanEditor({
   plan: PlanDto | null;
   materials: MaterialDto[];
   submitLabel: string;
-  onSave: (doc: PlanDocumentInput) => Promise<unknown>;
+  /** Saves the document; `version` is the plan's edit version the editor was opened at (or moved on to). */
+  onSave: (doc: PlanDocumentInput, version: number) => Promise<unknown>;
   onCancel: () => void;
 }) {
   const [problem, setProblem] = useState<string | null>(null);
   const form = useForm<EditorValues, unknown, PlanDocument>({ resolver, defaultValues: editorValuesOf(plan) });
+  const guard = useVersionGuard(plan ?? NEW_PLAN, onSave);
+  const showError = (error: unknown) => {
+    if (isApiError(error)) {
+      let placed = 0;
+      for (const [field, message] of Object.entries(error.fields)) {
+        setError(field as Path<EditorValues>, { type: "server", message }, { shouldFocus: placed++ === 0 });
+      }
+      setProblem(error.message);
+    } else setProblem("Something went wrong. Try again.");
+  };
   const {
     control,
     register,
@@ -209,15 +225,9 @@ export function PlanEditor({
     async () => {
       setProblem(null);
       try {
-        await onSave(toDocument(form.getValues()));
+        await guard.submit(toDocument(form.getValues()));
       } catch (error) {
-        if (isApiError(error)) {
-          let placed = 0;
-          for (const [field, message] of Object.entries(error.fields)) {
-            setError(field as Path<EditorValues>, { type: "server", message }, { shouldFocus: placed++ === 0 });
-          }
-          setProblem(error.message);
-        } else setProblem("Something went wrong. Try again.");
+        showError(error);
       }
     },
     () => setProblem("Check the highlighted fields."),
@@ -235,6 +245,17 @@ export function PlanEditor({
   return (
     <form onSubmit={submit} noValidate className="flex flex-col gap-6">
       {problem ? <Alert tone="error">{problem}</Alert> : null}
+      {guard.conflict ? (
+        <VersionConflictNotice
+          what="plan"
+          conflict={guard.conflict}
+          onReload={() => {
+            const theirs = guard.reload();
+            if (theirs) form.reset(editorValuesOf(theirs as PlanDto));
+          }}
+          onSaveAgain={() => guard.saveAgain().catch(showError)}
+        />
+      ) : null}
       {locked ? (
         <Alert tone="info" title={`Version ${plan!.latest.version} has been used`}>
           It is kept exactly as it was sprayed. Saving makes version {plan!.latest.version + 1}.

@@ -125,7 +125,7 @@ function PrepForm({ jobId, item, record }: { jobId: number; item: Item; record: 
   const submit = handleSubmit(async (values) => {
     setProblem(null);
     try {
-      await save.mutateAsync(record ? { id: record.id, ...values } : { itemId: item.itemId, ...values });
+      await save.mutateAsync(record ? { id: record.id, ...values, version: record.version } : { itemId: item.itemId, ...values });
       toast.success(`Prep of ${item.itemName} saved`);
     } catch (error) {
       setProblem(applyServerErrors(error, setError, FIELDS));

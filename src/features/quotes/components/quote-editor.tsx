@@ -37,8 +37,9 @@ const KIND_TONE: Record<QuoteLineKind, string> = {
   discount: "bg-emerald-50 text-emerald-900 ring-emerald-300",
 };
 
-function toFormValues(v: QuoteVersionDto): FormIn {
+function toFormValues(v: QuoteVersionDto, editVersion: number): FormIn {
   return {
+    editVersion,
     lines: v.lines.map((l) => ({ ...l })),
     taxPercent: v.taxPercent,
     taxedKinds: v.taxedKinds,
@@ -114,7 +115,7 @@ export function QuoteEditor({
     return { rateCents: labour?.rateCents ?? 9500, markupPercent: mat?.markupPercent ?? 30, suppliesPercent: sup?.percent ?? 8 };
   }, [v.lines]);
   const [problem, setProblem] = useState<string | null>(null);
-  const form = useForm<FormIn, unknown, FormOut>({ resolver: zodResolver(updateQuoteInputSchema), defaultValues: toFormValues(v) });
+  const form = useForm<FormIn, unknown, FormOut>({ resolver: zodResolver(updateQuoteInputSchema), defaultValues: toFormValues(v, quote.editVersion) });
   const {
     control,
     register,
@@ -155,8 +156,9 @@ export function QuoteEditor({
         async (values) => {
           setProblem(null);
           try {
-            const saved = await onSave(values);
-            reset(toFormValues(saved.current));
+            // The version on screen now (it moves on when someone else saved and the quote was refetched).
+            const saved = await onSave({ ...values, editVersion: quote.editVersion });
+            reset(toFormValues(saved.current, saved.editVersion));
             resolve(true);
           } catch (error) {
             setProblem(applyServerErrors(error, setError, fieldNames()));

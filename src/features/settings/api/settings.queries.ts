@@ -1,6 +1,6 @@
 import { queryOptions, useMutation, useQueryClient } from "@tanstack/react-query";
 import { api } from "@/lib/api-client";
-import type { ShopSettings, UpdateShopSettings } from "@shared/schemas/settings.schema";
+import type { EditableShopSettings, UpdateShopSettings } from "@shared/schemas/settings.schema";
 
 export const settingsKeys = {
   /** Also the prefix of ["settings", "shop"] (the money-free settings other screens read). */
@@ -13,7 +13,7 @@ export const settingsQueries = {
   full: () =>
     queryOptions({
       queryKey: settingsKeys.full(),
-      queryFn: ({ signal }) => api.get<ShopSettings>("/settings", { signal }),
+      queryFn: ({ signal }) => api.get<EditableShopSettings>("/settings", { signal }),
     }),
 };
 
@@ -21,7 +21,7 @@ export const settingsQueries = {
 export function useUpdateSettings() {
   const queryClient = useQueryClient();
   return useMutation({
-    mutationFn: (input: UpdateShopSettings) => api.patch<ShopSettings>("/settings", input),
+    mutationFn: (input: UpdateShopSettings) => api.patch<EditableShopSettings>("/settings", input),
     onSuccess: (saved) => {
       queryClient.setQueryData(settingsKeys.full(), saved);
       return queryClient.invalidateQueries({ queryKey: settingsKeys.all });

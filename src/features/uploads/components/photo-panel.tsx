@@ -144,7 +144,7 @@ function PhotoTile({ photo, canShare, canDelete }: { photo: UploadDto; canShare:
             className="min-h-11 rounded-md border border-primer-300 bg-white px-1 text-sm font-normal"
             value={photo.light ?? ""}
             disabled={update.isPending}
-            onChange={(e) => update.mutate({ id: photo.id, light: (e.target.value || null) as PanelLight | null }, { onError: (err) => toast.error(err.message) })}
+            onChange={(e) => update.mutate({ id: photo.id, light: (e.target.value || null) as PanelLight | null, version: photo.version }, { onError: (err) => toast.error(err.message) })}
           >
             <option value="">Not said</option>
             {PANEL_LIGHTS.map((l) => (
@@ -161,7 +161,7 @@ function PhotoTile({ photo, canShare, canDelete }: { photo: UploadDto; canShare:
             type="button"
             aria-pressed={photo.shareable}
             disabled={update.isPending}
-            onClick={() => update.mutate({ id: photo.id, shareable: !photo.shareable }, { onError: (e) => toast.error(e.message) })}
+            onClick={() => update.mutate({ id: photo.id, shareable: !photo.shareable, version: photo.version }, { onError: (e) => toast.error(e.message) })}
             className={cn(
               "inline-flex min-h-11 flex-1 items-center justify-center gap-1 rounded-md border text-xs font-semibold",
               photo.shareable ? "border-emerald-700 bg-emerald-50 text-emerald-950" : "border-primer-300 bg-white text-ink-950",

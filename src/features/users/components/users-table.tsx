@@ -120,7 +120,7 @@ function EditUserDialog({
         isSelf={isSelf}
         onCancel={onClose}
         onSubmit={async (values) => {
-          await update.mutateAsync({ id: user.id, ...values });
+          await update.mutateAsync({ id: user.id, ...values, version: user.version });
           toast.success(`Saved ${values.name ?? user.name}`);
           onClose();
         }}
@@ -150,7 +150,7 @@ function ToggleActiveDialog({ user, onClose }: { user: UserDto; onClose: () => v
             onClick={async () => {
               setProblem(null);
               try {
-                await update.mutateAsync({ id: user.id, active: !switchingOff });
+                await update.mutateAsync({ id: user.id, active: !switchingOff, version: user.version });
                 toast.success(switchingOff ? `${user.name} is switched off` : `${user.name} can sign in again`);
                 onClose();
               } catch (error) {

@@ -1,0 +1,5 @@
+export * from "./types";
+export * from "./timing";
+export * from "./hours";
+export * from "./conflicts";
+export * from "./suggest";
