@@ -6,7 +6,7 @@ import type { SessionUser } from "../../shared/schemas/auth.schema";
 export type Actor = SessionUser;
 
 declare global {
-  // eslint-disable-next-line @typescript-eslint/no-namespace
+  // eslint-disable-next-line @typescript-eslint/no-namespace -- Express declares res.locals in a global namespace; merging into it is the only way
   namespace Express {
     interface Locals {
       actor?: Actor;

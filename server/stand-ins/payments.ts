@@ -282,7 +282,8 @@ export async function startPaymentsStandIn(options: PaymentsStandInOptions = {})
     else next();
   });
   v1.post("/checkout/sessions", (req, res) => {
-    const b = req.body as Record<string, any>;
+    // The SDK's own parameter shape; form-encoded, so every leaf arrives as a string and is converted below.
+    const b = req.body as Stripe.Checkout.SessionCreateParams;
     const item = Array.isArray(b.line_items) ? b.line_items[0] : undefined;
     const amount = Number(item?.price_data?.unit_amount);
     const quantity = Number(item?.quantity ?? 1);
@@ -338,7 +339,7 @@ export async function startPaymentsStandIn(options: PaymentsStandInOptions = {})
     res.json(pi);
   });
   v1.post("/refunds", (req, res) => {
-    const b = req.body as Record<string, any>;
+    const b = req.body as Stripe.RefundCreateParams;
     const pi = intents.get(String(b.payment_intent ?? ""));
     if (!pi) return apiError(res, 400, `No such payment_intent: '${b.payment_intent ?? ""}'`, "invalid_request_error", { param: "payment_intent" });
     const done = (refundsByIntent.get(pi.id) ?? []).reduce((s, r) => s + r.amount, 0);

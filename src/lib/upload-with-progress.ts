@@ -15,7 +15,7 @@ export function uploadWithProgress<T>(path: string, form: FormData, onProgress?:
       if (e.lengthComputable) onProgress?.(e.loaded / e.total);
     };
     xhr.onload = () => {
-      let body: unknown = null;
+      let body: unknown;
       try {
         body = xhr.responseText ? JSON.parse(xhr.responseText) : null;
       } catch {

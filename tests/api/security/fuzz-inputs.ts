@@ -44,10 +44,14 @@ function apply(body: unknown, s: Step): unknown {
   const all = positions(root);
   const path = all[s.at % all.length]!;
   if (path.length === 0) return s.op === "replace" ? s.value : s.op === "wrap" ? [root] : root;
-  const parent = path.slice(0, -1).reduce<any>((o, k) => o[k], root);
+  type Node = Record<string | number, unknown>;
+  const parent = path.slice(0, -1).reduce<Node>((o, k) => o[k] as Node, root as Node);
   const key = path[path.length - 1]!;
   if (s.op === "replace") parent[key] = s.value;
-  else if (s.op === "delete") Array.isArray(parent) ? parent.splice(Number(key), 1) : delete parent[key];
+  else if (s.op === "delete") {
+    if (Array.isArray(parent)) parent.splice(Number(key), 1);
+    else delete parent[key];
+  }
   else if (s.op === "wrap") parent[key] = [parent[key]];
   else if (parent && typeof parent === "object" && !Array.isArray(parent)) parent[s.key] = s.value;
   return root;
@@ -119,5 +123,5 @@ export const oddFile = (realFile: Buffer) =>
     data: fc.oneof(fc.uint8Array({ maxLength: 2000 }).map((a) => Buffer.from(a)), fc.nat({ max: realFile.length }).map((n) => realFile.subarray(0, n)), fc.constant(realFile)),
     filename: fc.oneof(fc.constantFrom("x.png", "../../x.png", "a.heic", "x", ".png", "x.exe", "😀.jpg", "a".repeat(300) + ".png"), fc.string({ minLength: 1, maxLength: 30 }).map((s) => s.replace(/[\r\n"\\/]/g, "_") || "f")),
     field: fc.constantFrom("file", "file", "photo", "files[]"),
-    fields: fc.dictionary(fc.constantFrom("ownerType", "ownerId", "caption", "shareable", "kind", "jobId", "x"), oddString.map((v) => v.replace(/[\ud800-\udfff\u0000]/g, "")), { maxKeys: 4 }),
+    fields: fc.dictionary(fc.constantFrom("ownerType", "ownerId", "caption", "shareable", "kind", "jobId", "x"), oddString.map((v) => v.replace(/[\ud800-\udfff]/g, "").replaceAll("\0", "")), { maxKeys: 4 }),
   });

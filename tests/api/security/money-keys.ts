@@ -5,7 +5,7 @@ export const MONEY_WORDS = ["price", "cost", "total", "amount", "rate", "cents"]
 export const keyWords = (key: string) =>
   key
     .replace(/([a-z0-9])([A-Z])/g, "$1 $2")
-    .split(/[\s_\-]+/)
+    .split(/[\s_-]+/)
     .map((w) => w.toLowerCase())
     .filter(Boolean);
 

@@ -13,7 +13,7 @@ import { cn } from "@/utils/cn";
 import { DataTablePagination, type DataTablePaginationProps } from "./data-table-pagination";
 
 type DataTableProps<TData> = {
-  // eslint-disable-next-line @typescript-eslint/no-explicit-any
+  // eslint-disable-next-line @typescript-eslint/no-explicit-any -- columns differ in value type; TanStack Table types a mixed list this way
   columns: ColumnDef<TData, any>[];
   data: TData[];
   /** The table's accessible name (also its caption for screen readers). */

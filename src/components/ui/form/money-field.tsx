@@ -1,4 +1,4 @@
-import { useEffect, useState, type ReactNode } from "react";
+import { useState, type ReactNode } from "react";
 import { centsToInput, parseMoneyToCents } from "@shared/quote/index";
 import { cn } from "@/utils/cn";
 import { controlClasses, Field } from "./field";
@@ -35,12 +35,14 @@ export function MoneyField({
   suffix?: string;
 }) {
   const [text, setText] = useState(() => (typeof value === "number" ? centsToInput(value) : (value ?? "")));
-  // Follow outside changes (form reset, a refill from the plan) unless the field holds the same amount.
-  useEffect(() => {
+  // Follow outside changes (form reset, a refill from the plan) unless the field holds the same amount: adjusted
+  // while rendering when the value changes, as React's docs advise, rather than in an effect one render late.
+  const [seen, setSeen] = useState(value);
+  if (seen !== value) {
+    setSeen(value);
     if (typeof value === "number" && parseMoneyToCents(text) !== value) setText(centsToInput(value));
     if (value == null && text !== "" && parseMoneyToCents(text) !== null) setText("");
-    // eslint-disable-next-line react-hooks/exhaustive-deps
-  }, [value]);
+  }
   return (
     <Field label={label} error={error} hint={hint} required={required} className={fieldClassName}>
       {(control) => (

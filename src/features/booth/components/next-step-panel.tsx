@@ -1,4 +1,4 @@
-import { useEffect, useState, type ChangeEvent, type FormEvent } from "react";
+import { useState, type ChangeEvent, type FormEvent } from "react";
 import { Link } from "react-router";
 import { CheckCircle2, PaintBucket, TriangleAlert } from "lucide-react";
 import { LAYER_KIND_LABELS } from "@shared/domain/layers";
@@ -138,11 +138,13 @@ function LogCoatForm({ card, prepPath }: { card: BoothDto; prepPath: string }) {
   const { values, errors, set } = form;
   const [submitting, setSubmitting] = useState(false);
 
-  // Conditions carry over from the latest entry when the card refreshes.
-  useEffect(() => {
+  // Conditions carry over from the latest entry when the card refreshes: only a new latest entry fills the field
+  // (not the painter clearing it), so it is adjusted while rendering when `last` changes, as React's docs advise.
+  const [seenLast, setSeenLast] = useState(last);
+  if (seenLast !== last) {
+    setSeenLast(last);
     if (last?.boothTemp != null && values.boothTemp === "") set("boothTemp", String(last.boothTemp));
-    // Only a new latest entry fills the field (not the painter clearing it), so `values` is not a dependency.
-  }, [last]);
+  }
 
   const step = (field: "boothTemp" | "humidityPct", delta: number, fallback: number) => {
     const raw = Number(values[field]);

@@ -434,7 +434,8 @@ function ComponentsEditor({
 }: Pick<LayerCardProps, "control" | "register" | "setValue" | "errors" | "materials"> & { layerIndex: number }) {
   const name = `layers.${layerIndex}.components` as const;
   const rows = useFieldArray({ control, name });
-  const values = useWatch({ control, name }) ?? [];
+  const watched = useWatch({ control, name });
+  const values = useMemo(() => watched ?? [], [watched]);
   const byId = useMemo(() => new Map(materials.map((m) => [String(m.id), m])), [materials]);
   const live = mixProblemOf(values);
   const layerErrors = errors.layers?.[layerIndex]?.components;

@@ -1,5 +1,5 @@
 import { useMemo, useState } from "react";
-import { Controller, useFieldArray, useForm, useWatch, type Control, type FieldErrors, type UseFormRegister } from "react-hook-form";
+import { Controller, useFieldArray, useForm, useWatch, type Control, type FieldErrors, type Path, type UseFormRegister } from "react-hook-form";
 import { zodResolver } from "@hookform/resolvers/zod";
 import type { z } from "zod";
 import { ArrowDown, ArrowUp, Plus, Trash2 } from "lucide-react";
@@ -137,7 +137,7 @@ export function QuoteEditor({
     [watched],
   );
 
-  const fieldNames = () => [
+  const fieldNames = (): Path<FormIn>[] => [
     "lines",
     "taxPercent",
     "taxedKinds",
@@ -147,7 +147,7 @@ export function QuoteEditor({
     "intro",
     "terms",
     "finishText",
-    ...lines.fields.flatMap((_f, i) => ["kind", "description", "hours", "rateCents", "costCents", "markupPercent", "basis", "percent", "amountCents"].map((k) => `lines.${i}.${k}`)),
+    ...lines.fields.flatMap((_f, i) => ["kind", "description", "hours", "rateCents", "costCents", "markupPercent", "basis", "percent", "amountCents"].map((k) => `lines.${i}.${k}` as Path<FormIn>)),
   ];
 
   const save = (): Promise<boolean> =>
@@ -161,8 +161,7 @@ export function QuoteEditor({
             reset(toFormValues(saved.current, saved.editVersion));
             resolve(true);
           } catch (error) {
-            // eslint-disable-next-line @typescript-eslint/no-explicit-any
-            setProblem(applyServerErrors(error, setError, fieldNames() as any));
+            setProblem(applyServerErrors(error, setError, fieldNames()));
             resolve(false);
           }
         },

@@ -1,4 +1,4 @@
-import { useMemo, useRef, useState } from "react";
+import { useRef, useState } from "react";
 import { useQuery } from "@tanstack/react-query";
 import { ChevronLeft, ChevronRight } from "lucide-react";
 import type { BoothDto, ConflictDto, SessionDto } from "@shared/schemas/schedule.schema";
@@ -34,7 +34,7 @@ export function ScheduleView({ movable, preview }: Props) {
   const booths: BoothDto[] = (schedule.data?.booths ?? []).filter((b) => b.active);
   const sessions = preview?.sessions ?? schedule.data?.sessions ?? [];
   const conflicts = preview?.conflicts ?? schedule.data?.conflicts ?? [];
-  const conflicted = useMemo(() => new Set(conflicts.flatMap((c) => c.sessionIds)), [conflicts]);
+  const conflicted = new Set(conflicts.flatMap((c) => c.sessionIds));
   const marks = marksOf(kind, from, to);
 
   const onMove = async (id: number, m: MoveTo) => {
