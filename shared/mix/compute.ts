@@ -11,8 +11,8 @@ export type MixRequest = {
   amount: number;
   unit: VolumeUnit;
   knownName?: string;
-  /** Round for a mixing cup (volume unit) or a scale (mass unit). */
-  rounding?: { step: number; unit: MeasuringUnit };
+  /** Round for a mixing cup (volume unit) or a scale (mass unit); name ratio moves beyond `tolerancePct`. */
+  rounding?: { step: number; unit: MeasuringUnit; tolerancePct?: number; keep?: string[]; allowUnder?: boolean };
 };
 
 export type MixResult = {
@@ -35,6 +35,9 @@ export function computeMix(req: MixRequest): MixResult {
   }
   const total = lines.reduce((sum, l) => sum + l.volume, 0);
   const scale = lines.every((l) => l.grams !== undefined) ? scaleTargets(lines) : null;
-  const rounded = req.rounding ? roundForMeasuring(lines, req.rounding.step, req.rounding.unit) : null;
+  const r = req.rounding;
+  const rounded = r
+    ? roundForMeasuring(lines, r.step, r.unit, { components: req.components, tolerancePct: r.tolerancePct, keep: r.keep, allowUnder: r.allowUnder })
+    : null;
   return { lines, total, unit: req.unit, scale, rounded };
 }

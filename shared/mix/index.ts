@@ -20,8 +20,8 @@ export {
 export type { VolumeUnit, MassUnit, UnitOption } from "./units";
 export { resolveShares, mixForTotal, mixFromComponent, scaleTargets } from "./mix";
 export type { MixComponent, PartsComponent, PercentComponent, ComponentShare, MixLine, ScaleTarget } from "./mix";
-export { roundForMeasuring } from "./rounding";
-export type { MeasuringUnit, RoundedLine, MeasuringResult } from "./rounding";
+export { roundForMeasuring, DEFAULT_RATIO_TOLERANCE_PCT } from "./rounding";
+export type { MeasuringUnit, RoundedLine, MeasuringResult, RoundingOptions } from "./rounding";
 export {
   M2_PER_L_AT_1_UM,
   FT2_PER_GAL_AT_1_MIL,

@@ -81,7 +81,10 @@ export type MixSheetLineDto = {
   cumulativeGrams: number | null;
   /** Rounded amount for the cup or scale, in the rounding unit. */
   rounded: number | null;
+  /** How far rounding moves this component's ratio to `ratioReference`, in %. */
   ratioErrorPct: number | null;
+  /** Labels this component's ratio is measured against (the base part, or what its percent is of). */
+  ratioReference: string[] | null;
   actualMl: number | null;
   lotId: number | null;
   lotNumber: string | null;
@@ -117,6 +120,9 @@ export type MixSheetDto = {
   roundingUnit: MeasuringUnit | null;
   worstRatioErrorPct: number | null;
   worstComponent: string | null;
+  /** Components whose ratio moved beyond the shop's tolerance when rounded, worst first. */
+  movedComponents: string[];
+  ratioTolerancePct: number;
   roundedTotal: number | null;
   total: number;
   totalMl: number;
@@ -154,5 +160,4 @@ export type MixSheetSummaryDto = {
   createdAt: string;
 };
 
-/** A ratio error above this (in %) is shown as a warning beside the rounded amounts (common practice: ~2 %). */
-export const RATIO_WARNING_PCT = 2;
+

@@ -53,6 +53,27 @@ describe("making a mix sheet", () => {
     expect(res.body.worstRatioErrorPct).toBe(expected.worstRatioErrorPct);
   });
 
+  it("names every component whose ratio rounding moves past the shop's tolerance, and never makes less than asked", async () => {
+    const s = await makeShop();
+    const f = finishFixtures(s);
+    // 4:1:1 of 100 mL on a 5 mL cup → 70 / 15 / 15 (worked by hand in tests/mix/rounding.test.ts): the hardener
+    // and the reducer are each 14.3 % short of a quarter of the clear.
+    let res = await s.as("painter").post("/api/mix-sheets").send({ jobId: s.jobA.id, layerId: f.layer.id, mode: "total", amount: 100, unit: "mL", roundingStep: 5 });
+    expect(res.status).toBe(201);
+    expect(res.body.lines.map((l: { rounded: number }) => l.rounded)).toEqual([70, 15, 15]);
+    expect(res.body.roundedTotal).toBe(100);
+    expect(res.body.movedComponents).toEqual(["hardener", "reducer"]);
+    expect(res.body.lines[1].ratioReference).toEqual(["clear"]);
+    expect(res.body.ratioTolerancePct).toBe(2);
+    expect((await editAt(s, "owner", "/api/settings", { ratioTolerancePct: 15 })).status).toBe(200);
+    res = await s.as("painter").get(`/api/mix-sheets/${res.body.id}`);
+    expect(res.body.movedComponents).toEqual([]);
+    expect(res.body.ratioTolerancePct).toBe(15);
+    const bad = await editAt(s, "owner", "/api/settings", { ratioTolerancePct: 50 });
+    expect(bad.status).toBe(400);
+    expect(JSON.stringify(bad.body)).toContain("ratioTolerancePct");
+  });
+
   it("refuses what cannot be mixed: a layer of another job, a missing density for weighing, a component not in the mix, bad numbers", async () => {
     const s = await makeShop();
     const f = finishFixtures(s);

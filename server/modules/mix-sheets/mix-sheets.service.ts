@@ -1,7 +1,8 @@
 import { aliasedTable, and, asc, desc, eq, inArray, type SQL } from "drizzle-orm";
 import type { AppDeps } from "../../deps";
 import type { Actor } from "../../auth/session";
-import { jobs, materialLots, materials, mixSheetLines, mixSheets, planLayers, planVersions, plans, users } from "../../db/schema";
+import { jobs, layerComponents, materialLots, materials, mixSheetLines, mixSheets, planLayers, planVersions, plans, users } from "../../db/schema";
+import { getSettings } from "../settings/settings.service";
 import { badRequest, conflict, notFound } from "../../http/http-error";
 import { iso, isoOrNull } from "../../http/dates";
 import type { RequestContext } from "../../http/context";
@@ -99,6 +100,16 @@ function neededInPurchaseUnit(ml: number, m: MaterialRow, density: number | null
   }
 }
 
+/** The layer's mix as written (parts, percent of), to measure rounding against. */
+function layerComponentsOf(db: DbOrTx, layerId: number) {
+  return db
+    .select({ label: layerComponents.label, parts: layerComponents.parts, percent: layerComponents.percent, percentOf: layerComponents.percentOf })
+    .from(layerComponents)
+    .where(eq(layerComponents.layerId, layerId))
+    .orderBy(asc(layerComponents.position))
+    .all();
+}
+
 function lotsByMaterial(db: DbOrTx, materialIds: number[]): Map<number, LotRow[]> {
   const out = new Map<number, LotRow[]>();
   if (!materialIds.length) return out;
@@ -154,10 +165,15 @@ function sheetDto(deps: AppDeps, actor: Actor, sheet: SheetRow): MixSheetDto {
     if (d != null) line.grams = r.l.plannedMl * d;
     return line;
   });
+  const tolerancePct = getSettings(deps).ratioTolerancePct;
   let rounded: ReturnType<typeof roundForMeasuring> | null = null;
   if (sheet.roundingStep != null && sheet.roundingUnit) {
     try {
-      rounded = roundForMeasuring(mixLines, sheet.roundingStep, sheet.roundingUnit as MeasuringUnit);
+      rounded = roundForMeasuring(mixLines, sheet.roundingStep, sheet.roundingUnit as MeasuringUnit, {
+        components: toMixComponents(layerComponentsOf(deps.db, sheet.layerId)),
+        keep: rows.filter((r) => r.m.category === "hardener").map((r) => r.l.label),
+        tolerancePct,
+      });
     } catch {
       rounded = null;
     }
@@ -196,6 +212,7 @@ function sheetDto(deps: AppDeps, actor: Actor, sheet: SheetRow): MixSheetDto {
       cumulativeGrams: allGrams && ml.grams !== undefined ? running : null,
       rounded: rl?.rounded ?? null,
       ratioErrorPct: rl?.ratioErrorPct ?? null,
+      ratioReference: rl?.reference ?? null,
       actualMl: r.l.actualMl,
       lotId: r.l.lotId,
       lotNumber: r.l.lotNumber,
@@ -230,6 +247,8 @@ function sheetDto(deps: AppDeps, actor: Actor, sheet: SheetRow): MixSheetDto {
     roundingUnit: (sheet.roundingUnit as MeasuringUnit | null) ?? null,
     worstRatioErrorPct: rounded?.worstRatioErrorPct ?? null,
     worstComponent: rounded?.worstComponent ?? null,
+    movedComponents: rounded?.moved ?? [],
+    ratioTolerancePct: tolerancePct,
     roundedTotal: rounded?.roundedTotal ?? null,
     total: mixLines.reduce((a, l) => a + l.volume, 0),
     totalMl: sheet.totalMl,
