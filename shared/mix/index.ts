@@ -18,8 +18,10 @@ export {
   convertMass,
 } from "./units";
 export type { VolumeUnit, MassUnit, UnitOption } from "./units";
-export { resolveShares, mixForTotal, mixFromComponent, scaleTargets } from "./mix";
-export type { MixComponent, PartsComponent, PercentComponent, ComponentShare, MixLine, ScaleTarget } from "./mix";
+export { resolveShares, mixForTotal, mixFromComponent } from "./mix";
+export type { MixComponent, PartsComponent, PercentComponent, ComponentShare, MixLine } from "./mix";
+export { weighingPlan, DEFAULT_SCALE_STEP_G } from "./weighing";
+export type { ScaleTarget, WeighingPlan } from "./weighing";
 export { roundForMeasuring, DEFAULT_RATIO_TOLERANCE_PCT } from "./rounding";
 export type { MeasuringUnit, RoundedLine, MeasuringResult, RoundingOptions } from "./rounding";
 export {

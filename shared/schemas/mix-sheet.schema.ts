@@ -2,7 +2,7 @@ import { z } from "zod";
 import type { LayerKind } from "../domain/layers";
 import type { MaterialCategory, PurchaseUnit } from "../domain/materials";
 import type { Caution } from "../domain/safety";
-import type { MeasuringUnit, VolumeUnit } from "../mix/index";
+import type { MassUnit, MeasuringUnit, VolumeUnit } from "../mix/index";
 import { idSchema, requiredText } from "./common.schema";
 import { optionalNumber, requiredNumber } from "./material.schema";
 import { measuringUnitSchema, volumeUnitSchema } from "./mix.schema";
@@ -77,8 +77,10 @@ export type MixSheetLineDto = {
   share: number;
   /** Weight on a scale (when the material has a density). */
   grams: number | null;
-  /** Scale reading after adding this component to a tared cup (weighed sheets). */
-  cumulativeGrams: number | null;
+  /** Weighed sheets: what to pour of this component after taring, in `scaleUnit` (a whole scale step)… */
+  scaleTarget: number | null;
+  /** …and what the scale reads with it in, poured into one cup without taring (the sum of the targets so far). */
+  scaleReads: number | null;
   /** Rounded amount for the cup or scale, in the rounding unit. */
   rounded: number | null;
   /** How far rounding moves this component's ratio to `ratioReference`, in %. */
@@ -122,6 +124,10 @@ export type MixSheetDto = {
   worstComponent: string | null;
   /** Components whose ratio moved beyond the shop's tolerance when rounded, worst first. */
   movedComponents: string[];
+  /** Weighed sheets: the scale's unit and step, and Σ targets (the last scale reading). */
+  scaleUnit: MassUnit | null;
+  scaleStep: number | null;
+  scaleTotal: number | null;
   ratioTolerancePct: number;
   roundedTotal: number | null;
   total: number;

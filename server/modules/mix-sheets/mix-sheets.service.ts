@@ -18,6 +18,8 @@ import {
   mixVoc,
   potLifeEnds,
   roundForMeasuring,
+  weighingPlan,
+  type WeighingPlan,
   type MeasuringUnit,
   type MixLine,
   type VolumeUnit,
@@ -166,25 +168,28 @@ function sheetDto(deps: AppDeps, actor: Actor, sheet: SheetRow): MixSheetDto {
     return line;
   });
   const tolerancePct = getSettings(deps).ratioTolerancePct;
+  const rounding = {
+    components: toMixComponents(layerComponentsOf(deps.db, sheet.layerId)),
+    keep: rows.filter((r) => r.m.category === "hardener").map((r) => r.l.label),
+    tolerancePct,
+  };
+  const roundingUnit = sheet.roundingUnit as MeasuringUnit | null;
   let rounded: ReturnType<typeof roundForMeasuring> | null = null;
-  if (sheet.roundingStep != null && sheet.roundingUnit) {
-    try {
-      rounded = roundForMeasuring(mixLines, sheet.roundingStep, sheet.roundingUnit as MeasuringUnit, {
-        components: toMixComponents(layerComponentsOf(deps.db, sheet.layerId)),
-        keep: rows.filter((r) => r.m.category === "hardener").map((r) => r.l.label),
-        tolerancePct,
-      });
-    } catch {
-      rounded = null;
+  let scale: WeighingPlan | null = null;
+  try {
+    if (sheet.roundingStep != null && roundingUnit) rounded = roundForMeasuring(mixLines, sheet.roundingStep, roundingUnit, rounding);
+    if (mixLines.every((l) => l.grams !== undefined)) {
+      const onScale = sheet.roundingStep != null && roundingUnit && isMassUnit(roundingUnit) ? { unit: roundingUnit, step: sheet.roundingStep } : {};
+      scale = weighingPlan(mixLines, { ...onScale, ...rounding });
     }
+  } catch {
+    rounded = null;
+    scale = null;
   }
-  const allGrams = mixLines.every((l) => l.grams !== undefined);
-  let running = 0;
   const today = todayOf(deps.now());
   const lots = sheet.status === "draft" ? lotsByMaterial(deps.db, rows.map((r) => r.m.id)) : new Map<number, LotRow[]>();
   const lines: MixSheetLineDto[] = rows.map((r, i) => {
     const ml = mixLines[i]!;
-    if (ml.grams !== undefined) running += ml.grams;
     const materialLotsOf = lots.get(r.m.id) ?? [];
     const suggested = sheet.status === "draft" ? suggestLot(materialLotsOf, neededInPurchaseUnit(r.l.plannedMl, r.m, density(r)), today) : undefined;
     const choices: LotChoiceDto[] = lotOrder(materialLotsOf).map((l) => ({
@@ -209,7 +214,8 @@ function sheetDto(deps: AppDeps, actor: Actor, sheet: SheetRow): MixSheetDto {
       plannedMl: r.l.plannedMl,
       share: ml.share,
       grams: ml.grams ?? null,
-      cumulativeGrams: allGrams && ml.grams !== undefined ? running : null,
+      scaleTarget: scale?.steps[i]!.target ?? null,
+      scaleReads: scale?.steps[i]!.scaleReads ?? null,
       rounded: rl?.rounded ?? null,
       ratioErrorPct: rl?.ratioErrorPct ?? null,
       ratioReference: rl?.reference ?? null,
@@ -248,6 +254,9 @@ function sheetDto(deps: AppDeps, actor: Actor, sheet: SheetRow): MixSheetDto {
     worstRatioErrorPct: rounded?.worstRatioErrorPct ?? null,
     worstComponent: rounded?.worstComponent ?? null,
     movedComponents: rounded?.moved ?? [],
+    scaleUnit: scale?.unit ?? null,
+    scaleStep: scale?.step ?? null,
+    scaleTotal: scale?.total ?? null,
     ratioTolerancePct: tolerancePct,
     roundedTotal: rounded?.roundedTotal ?? null,
     total: mixLines.reduce((a, l) => a + l.volume, 0),

@@ -226,7 +226,7 @@ function Results({ result }: { result: MixResult }) {
                 {formatAmount(l.volume, l.unit)}
               </td>
               {grams ? <td className="px-3 py-2 text-right tabular-nums">{l.grams === undefined ? "—" : `${formatNumber(l.grams, 1)} g`}</td> : null}
-              {result.scale ? <td className="px-3 py-2 text-right font-semibold tabular-nums">{formatNumber(result.scale[i]!.cumulativeGrams, 1)} g</td> : null}
+              {result.scale ? <td className="px-3 py-2 text-right font-semibold tabular-nums">{formatAmount(result.scale.steps[i]!.scaleReads, result.scale.unit, 4)}</td> : null}
               {r ? (
                 <td className={cn("px-3 py-2 text-right font-semibold tabular-nums", r.moved.includes(l.name) && "text-flake-800")}>{formatAmount(r.lines[i]!.rounded, r.unit, 4)}</td>
               ) : null}

@@ -34,7 +34,7 @@ export function MixPreview({ result, labels, caption }: { result: MixResult; lab
                 <td className="px-3 py-2 text-right text-base font-semibold tabular-nums">{formatAmount(l.volume, l.unit)}</td>
                 <td className="px-3 py-2 text-right whitespace-nowrap tabular-nums">{formatNumber(l.share * 100, 1)} %</td>
                 {result.lines.some((x) => x.grams !== undefined) ? <td className="px-3 py-2 text-right tabular-nums">{l.grams === undefined ? "—" : `${formatNumber(l.grams, 1)} g`}</td> : null}
-                {scale ? <td className="px-3 py-2 text-right tabular-nums">{formatNumber(scale[i]!.cumulativeGrams, 1)} g</td> : null}
+                {scale ? <td className="px-3 py-2 text-right tabular-nums">{formatAmount(scale.steps[i]!.scaleReads, scale.unit, 4)}</td> : null}
                 {rounded ? (
                   <td className={cn("px-3 py-2 text-right font-semibold tabular-nums", rounded.moved.includes(l.name) && "text-flake-800")}>
                     {formatAmount(rounded.lines[i]!.rounded, rounded.unit, 4)}

@@ -69,7 +69,7 @@ export function PotLife({ sheet }: { sheet: MixSheetDto }) {
 /** The batch table: amounts in the sheet's unit, grams and scale readings, rounded amounts, lots. */
 export function MixSheetTable({ sheet }: { sheet: MixSheetDto }) {
   const showGrams = sheet.lines.some((l) => l.grams != null);
-  const showScale = sheet.weigh && sheet.lines.every((l) => l.cumulativeGrams != null);
+  const showScale = sheet.weigh && sheet.scaleUnit != null && sheet.lines.every((l) => l.scaleReads != null);
   const showRounded = sheet.roundingStep != null && sheet.lines.every((l) => l.rounded != null);
   const recorded = sheet.status !== "draft";
   const showCost = recorded && sheet.totalCostCents !== undefined;
@@ -100,7 +100,7 @@ export function MixSheetTable({ sheet }: { sheet: MixSheetDto }) {
               </th>
               <td className="px-3 py-2 text-right text-base font-semibold whitespace-nowrap tabular-nums">{formatAmount(l.amount, sheet.unit)}</td>
               {showGrams ? <td className="px-3 py-2 text-right whitespace-nowrap tabular-nums">{l.grams == null ? "—" : `${formatNumber(l.grams, 1)} g`}</td> : null}
-              {showScale ? <td className="px-3 py-2 text-right text-base font-semibold tabular-nums">{formatNumber(l.cumulativeGrams!, 1)} g</td> : null}
+              {showScale ? <td className="px-3 py-2 text-right text-base font-semibold tabular-nums">{formatAmount(l.scaleReads!, sheet.scaleUnit!, 4)}</td> : null}
               {showRounded ? (
                 <td className={cn("px-3 py-2 text-right text-base font-semibold tabular-nums", sheet.movedComponents.includes(l.label) && "text-flake-800")}>
                   {formatAmount(l.rounded!, sheet.roundingUnit ?? sheet.unit, 4)}
@@ -118,7 +118,7 @@ export function MixSheetTable({ sheet }: { sheet: MixSheetDto }) {
             <th scope="row" className="px-3 py-2">Total</th>
             <td className="px-3 py-2 text-right tabular-nums">{formatAmount(sheet.total, sheet.unit)}</td>
             {showGrams ? <td /> : null}
-            {showScale ? <td /> : null}
+            {showScale ? <td className="px-3 py-2 text-right tabular-nums">{formatAmount(sheet.scaleTotal!, sheet.scaleUnit!, 4)}</td> : null}
             {showRounded ? <td className="px-3 py-2 text-right tabular-nums">{formatAmount(sheet.roundedTotal ?? 0, sheet.roundingUnit ?? sheet.unit, 4)}</td> : null}
             <td />
             {recorded ? <td className="px-3 py-2 text-right tabular-nums">{formatVolume(sheet.totalMl, sheet.unit)}</td> : null}
