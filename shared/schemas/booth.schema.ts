@@ -110,8 +110,17 @@ export type BoothMixSheetDto = {
   mixedByName: string | null;
   potLifeMinutes: number | null;
   potLifeEndsAt: string | null;
-  /** Planned volume in mL and in the sheet's unit; what was really poured (mL). */
-  lines: { label: string; plannedMl: number; plannedInUnit: number; actualMl: number | null; lotNumber: string | null }[];
+  /** Planned volume in mL and in the sheet's unit, and its share of the ready-to-spray batch in %; what was really poured (mL). */
+  lines: {
+    label: string;
+    materialCode: string;
+    materialName: string;
+    plannedMl: number;
+    plannedInUnit: number;
+    readyPct: number | null;
+    actualMl: number | null;
+    lotNumber: string | null;
+  }[];
 };
 
 export type BoothTimerDto = { kind: "flash" | "dry"; startedAt: string; endsAt: string };

@@ -74,7 +74,10 @@ export type MixSheetLineDto = {
   /** Planned amount in the sheet's unit, and in mL. */
   amount: number;
   plannedMl: number;
+  /** Fraction of the ready-to-spray batch. */
   share: number;
+  /** The amount as the plan gives it, saying what a percent is of: "1 part", "10 % of IC-10 Intercoat clear". */
+  asPlanned: string | null;
   /** Weight on a scale (when the material has a density). */
   grams: number | null;
   /** Weighed sheets: what to pour of this component after taring, in `scaleUnit` (a whole scale step)… */
@@ -127,7 +130,7 @@ export type MixSheetDto = {
   /** Weighed sheets: the scale's unit and step, and Σ targets (the last scale reading). */
   scaleUnit: MassUnit | null;
   scaleStep: number | null;
-  scaleTotal: number | null;
+  scaleLastReading: number | null;
   ratioTolerancePct: number;
   roundedTotal: number | null;
   total: number;

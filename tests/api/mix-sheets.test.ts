@@ -26,7 +26,10 @@ describe("making a mix sheet", () => {
     // Densities 1.00 / 1.10 / 0.87 g/mL → 200.00 → 255.00 → 298.50 g cumulative (references.md §7 "cumulative scale").
     expect(f.sheet.lines.map((l) => l.scaleReads)).toEqual([200, 255, 298.5]);
     expect(f.sheet.lines.map((l) => l.scaleTarget)).toEqual([200, 55, 43.5]);
-    expect(f.sheet).toMatchObject({ scaleUnit: "g", scaleStep: 0.1, scaleTotal: 298.5 });
+    expect(f.sheet).toMatchObject({ scaleUnit: "g", scaleStep: 0.1, scaleLastReading: 298.5 });
+    // Each line says its amount as the plan gives it, and its share of the ready-to-spray mix (4/6, 1/6, 1/6).
+    expect(f.sheet.lines.map((l) => l.asPlanned)).toEqual(["4 parts", "1 part", "1 part"]);
+    expect(f.sheet.lines.map((l) => l.share)).toEqual([expect.closeTo(4 / 6, 12), expect.closeTo(1 / 6, 12), expect.closeTo(1 / 6, 12)]);
     expect(f.sheet).toMatchObject({ status: "draft", unit: "mL", total: 300, totalMl: 300, potLifeMinutes: 90, potLifeEndsAt: null, planVersion: 1, planChanged: false });
     expect(f.sheet.cautions.map((c) => c.id)).toEqual(["isocyanates", "flammable", "defer"]);
     // Expected VOC from the catalogue: (4·500 + 300 + 880)/6 = 530 g/L (volume-weighted, no water or exempt).

@@ -4,7 +4,7 @@ import type { z } from "zod";
 import type { AppDeps } from "../../deps";
 import type { Actor } from "../../auth/session";
 import type { RequestContext } from "../../http/context";
-import { coatLogs, customers, guns, jobItems, jobs, jobStageEvents, mixSheetLines, mixSheets, planVersions, plans, prepRecords, testPanels, uploads, users } from "../../db/schema";
+import { coatLogs, customers, guns, jobItems, jobs, jobStageEvents, materials, mixSheetLines, mixSheets, planVersions, plans, prepRecords, testPanels, uploads, users } from "../../db/schema";
 import { badRequest, conflict, forbidden, notFound } from "../../http/http-error";
 import { iso, isoOrNull } from "../../http/dates";
 import { checkGun, gunNames } from "../guns/guns.service";
@@ -123,9 +123,19 @@ const sheetsQuery = preparedQuery((db) =>
 );
 const sheetLinesQuery = preparedQuery((db) =>
   db
-    .select({ sheetId: mixSheetLines.mixSheetId, position: mixSheetLines.position, label: mixSheetLines.label, plannedMl: mixSheetLines.plannedMl, actualMl: mixSheetLines.actualMl, lotNumber: mixSheetLines.lotNumber })
+    .select({
+      sheetId: mixSheetLines.mixSheetId,
+      position: mixSheetLines.position,
+      label: mixSheetLines.label,
+      materialCode: materials.code,
+      materialName: materials.name,
+      plannedMl: mixSheetLines.plannedMl,
+      actualMl: mixSheetLines.actualMl,
+      lotNumber: mixSheetLines.lotNumber,
+    })
     .from(mixSheetLines)
     .innerJoin(mixSheets, eq(mixSheetLines.mixSheetId, mixSheets.id))
+    .innerJoin(materials, eq(mixSheetLines.materialId, materials.id))
     .where(eq(mixSheets.jobId, p("jobId")))
     .orderBy(asc(mixSheetLines.position))
     .prepare(),
@@ -151,6 +161,9 @@ function mixSheetDtos(deps: AppDeps, jobId: number): BoothMixSheetDto[] {
         .filter((l) => l.sheetId === s.id)
         .map((l) => ({
           label: l.label,
+          materialCode: l.materialCode,
+          materialName: l.materialName,
+          readyPct: s.totalMl > 0 ? (l.plannedMl / s.totalMl) * 100 : null,
           plannedMl: l.plannedMl,
           plannedInUnit: isVolumeUnit(unit) ? convertVolume(l.plannedMl, "mL", unit) : l.plannedMl,
           actualMl: l.actualMl,

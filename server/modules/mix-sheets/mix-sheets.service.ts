@@ -25,6 +25,7 @@ import {
   type VolumeUnit,
 } from "../../../shared/mix/index";
 import { toMixComponents } from "../../../shared/domain/layer-mix";
+import { mixComponentWords } from "../../../shared/domain/mix-words";
 import { centsPerMl, mlToPurchaseUnit } from "../../../shared/domain/material-units";
 import { cautionsFor } from "../../../shared/domain/safety";
 import type {
@@ -168,8 +169,17 @@ function sheetDto(deps: AppDeps, actor: Actor, sheet: SheetRow): MixSheetDto {
     return line;
   });
   const tolerancePct = getSettings(deps).ratioTolerancePct;
+  const written = layerComponentsOf(deps.db, sheet.layerId);
+  const words = new Map(
+    mixComponentWords(
+      written.map((c) => {
+        const r = rows.find((x) => x.l.label === c.label);
+        return { ...c, materialCode: r?.m.code ?? "", materialName: r?.m.name ?? c.label };
+      }),
+    ).map((w) => [w.label, w.amount]),
+  );
   const rounding = {
-    components: toMixComponents(layerComponentsOf(deps.db, sheet.layerId)),
+    components: toMixComponents(written),
     keep: rows.filter((r) => r.m.category === "hardener").map((r) => r.l.label),
     tolerancePct,
   };
@@ -213,6 +223,7 @@ function sheetDto(deps: AppDeps, actor: Actor, sheet: SheetRow): MixSheetDto {
       amount: ml.volume,
       plannedMl: r.l.plannedMl,
       share: ml.share,
+      asPlanned: words.get(r.l.label) ?? null,
       grams: ml.grams ?? null,
       scaleTarget: scale?.steps[i]!.target ?? null,
       scaleReads: scale?.steps[i]!.scaleReads ?? null,
@@ -256,7 +267,7 @@ function sheetDto(deps: AppDeps, actor: Actor, sheet: SheetRow): MixSheetDto {
     movedComponents: rounded?.moved ?? [],
     scaleUnit: scale?.unit ?? null,
     scaleStep: scale?.step ?? null,
-    scaleTotal: scale?.total ?? null,
+    scaleLastReading: scale?.total ?? null,
     ratioTolerancePct: tolerancePct,
     roundedTotal: rounded?.roundedTotal ?? null,
     total: mixLines.reduce((a, l) => a + l.volume, 0),

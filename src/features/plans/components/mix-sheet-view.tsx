@@ -97,6 +97,10 @@ export function MixSheetTable({ sheet }: { sheet: MixSheetDto }) {
                 <span className="block text-xs font-normal text-primer-700">
                   <span className="font-mono">{l.materialCode}</span> {l.materialName}
                 </span>
+                <span className="block text-xs font-normal text-ink-900">
+                  {l.asPlanned ? `${l.asPlanned} · ` : ""}
+                  {formatNumber(l.share * 100, 1)} % of the ready-to-spray mix
+                </span>
               </th>
               <td className="px-3 py-2 text-right text-base font-semibold whitespace-nowrap tabular-nums">{formatAmount(l.amount, sheet.unit)}</td>
               {showGrams ? <td className="px-3 py-2 text-right whitespace-nowrap tabular-nums">{l.grams == null ? "—" : `${formatNumber(l.grams, 1)} g`}</td> : null}
@@ -118,7 +122,7 @@ export function MixSheetTable({ sheet }: { sheet: MixSheetDto }) {
             <th scope="row" className="px-3 py-2">Total</th>
             <td className="px-3 py-2 text-right tabular-nums">{formatAmount(sheet.total, sheet.unit)}</td>
             {showGrams ? <td /> : null}
-            {showScale ? <td className="px-3 py-2 text-right tabular-nums">{formatAmount(sheet.scaleTotal!, sheet.scaleUnit!, 4)}</td> : null}
+            {showScale ? <td className="px-3 py-2 text-right tabular-nums">{formatAmount(sheet.scaleLastReading!, sheet.scaleUnit!, 4)}</td> : null}
             {showRounded ? <td className="px-3 py-2 text-right tabular-nums">{formatAmount(sheet.roundedTotal ?? 0, sheet.roundingUnit ?? sheet.unit, 4)}</td> : null}
             <td />
             {recorded ? <td className="px-3 py-2 text-right tabular-nums">{formatVolume(sheet.totalMl, sheet.unit)}</td> : null}

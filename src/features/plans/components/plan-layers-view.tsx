@@ -4,17 +4,15 @@ import { LAYER_KIND_LABELS } from "@shared/domain/layers";
 import { formatCents } from "@shared/quote/money";
 import type { LayerEstimateDto, PlanEstimateDto, PlanLayerDto } from "@shared/schemas/plan.schema";
 import type { VolumeUnit } from "@shared/mix/index";
+import { mixSentence } from "@shared/domain/mix-words";
+import { MixWordsList } from "@/components/ui/mix-words-list";
 import { SafetyCautions } from "@/components/ui/safety-cautions";
 import { paths } from "@/config/paths";
 import { formatNumber, formatVolume } from "@/utils/format-quantity";
 
-/** "4 clear : 1 hardener : 1 reducer" and "reducer 10 % of sealer". */
+/** The mix in one line, each component named by material, each percent saying what it is of. */
 export function mixWords(layer: Pick<PlanLayerDto, "components">): string {
-  const parts = layer.components.filter((c) => c.parts != null);
-  const percents = layer.components.filter((c) => c.percent != null);
-  const ratio = parts.map((c) => `${formatNumber(c.parts!, 3)} ${c.label}`).join(" : ");
-  const extra = percents.map((c) => `${c.label} ${formatNumber(c.percent!, 2)} % of ${(c.percentOf ?? []).join(" + ")}`);
-  return [ratio, ...extra].filter(Boolean).join("; ");
+  return mixSentence(layer.components);
 }
 
 /** Volume units of the US system: coverage is then shown per gallon in ft², else per litre in m². */
@@ -51,7 +49,7 @@ export function PlanLayersView({
                   {l.name}
                   <span className="ml-2 rounded-full bg-ink-50 px-2 py-0.5 align-middle text-xs font-semibold text-ink-800">{LAYER_KIND_LABELS[l.kind]}</span>
                 </h3>
-                {l.components.length ? <p className="mt-0.5 text-sm text-ink-900">{mixWords(l)}</p> : null}
+                <MixWordsList components={l.components} className="mt-0.5 text-ink-900" />
               </div>
               {layerActions ? <div className="flex flex-wrap gap-2">{layerActions(l)}</div> : null}
             </div>

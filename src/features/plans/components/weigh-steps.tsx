@@ -22,7 +22,7 @@ export function WeighSteps({ sheet }: { sheet: MixSheetDto }) {
       </h2>
       <p className="mt-1 text-sm text-primer-700">
         Each target is what the scale shows after you tare it. Scale step {formatAmount(sheet.scaleStep!, unit, 4)}; the batch is{" "}
-        {formatAmount(sheet.scaleTotal!, unit, 4)}.
+        {formatAmount(sheet.scaleLastReading!, unit, 4)}.
       </p>
       <ol className="mt-4 flex flex-col gap-3">
         {lines.map((l, i) => {
@@ -63,7 +63,7 @@ export function WeighSteps({ sheet }: { sheet: MixSheetDto }) {
         </Button>
         {done ? (
           <p role="status" className="text-lg font-semibold">
-            All {lines.length} poured: {formatAmount(sheet.scaleTotal!, unit, 4)} in the cup. Stir before use.
+            All {lines.length} poured: {formatAmount(sheet.scaleLastReading!, unit, 4)} in the cup. Stir before use.
           </p>
         ) : (
           <Button size="lg" onClick={() => setCurrent((c) => c + 1)} icon={<ArrowRight aria-hidden className="size-5" />}>
