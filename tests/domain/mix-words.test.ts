@@ -32,3 +32,13 @@ describe("mix words say what every percentage is of", () => {
     expect(mixSentence(broken)).toBe("TN-4 Candy toner 10 % of nothing");
   });
 });
+
+describe("durations read the way a data sheet means them", () => {
+  it("shows 720 min as 12 h, 90 as 1 h 30 min, and short times in minutes", async () => {
+    const { formatMinutes } = await import("../../shared/domain/duration");
+    expect(formatMinutes(720)).toBe("12 h");
+    expect(formatMinutes(90)).toBe("1 h 30 min");
+    expect(formatMinutes(45)).toBe("45 min");
+    expect(formatMinutes(0)).toBe("0 min");
+  });
+});

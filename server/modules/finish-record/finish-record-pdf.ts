@@ -1,3 +1,4 @@
+import { formatMinutes } from "../../../shared/domain/duration";
 import { mixComponentWords, plainNumber } from "../../../shared/domain/mix-words";
 import type { FinishRecordDto } from "../../../shared/schemas/finish-record.schema";
 import { LAYER_KIND_LABELS } from "../../../shared/domain/layers";
@@ -47,7 +48,7 @@ export function renderFinishRecordPdf(d: FinishRecordDto, shopName: string): Pro
       line(`${w.material} ("${w.label}"): ${w.amount}${w.readyPct !== null ? `, ${plainNumber(w.readyPct, 1)} % of the ready-to-spray mix` : ""}`, { indent: 8 });
     }
     if (layer.kind === "prep") line("Done through the prep records above.", { color: MUTED });
-    else line(`Planned ${layer.plannedCoats} ${layer.plannedCoats === 1 ? "coat" : "coats"}, flash ${layer.flashMinutes} min, dry ${layer.dryMinutes} min before the next layer`, { color: MUTED });
+    else line(`Planned ${layer.plannedCoats} ${layer.plannedCoats === 1 ? "coat" : "coats"}, flash ${formatMinutes(layer.flashMinutes)}, dry ${formatMinutes(layer.dryMinutes)} before the next layer`, { color: MUTED });
     if (layer.materials.length)
       line(`Materials: ${layer.materials.map((m) => `${m.code} ${m.name}${m.lots.length ? ` (lot ${m.lots.join(", ")})` : ""}`).join("; ")}`);
     for (const b of layer.batches) {

@@ -1,3 +1,4 @@
+import { formatMinutes } from "@shared/domain/duration";
 import { MixWordsList } from "@/components/ui/mix-words-list";
 import { FileDown, Printer, TriangleAlert } from "lucide-react";
 import { LAYER_KIND_LABELS } from "@shared/domain/layers";
@@ -105,7 +106,7 @@ function LayerRecord({ layer }: { layer: FinishLayerDto }) {
       <p className="text-primer-900">
         {layer.kind === "prep"
           ? "Done through the prep records above."
-          : `Planned ${layer.plannedCoats} ${layer.plannedCoats === 1 ? "coat" : "coats"}, flash ${layer.flashMinutes} min, dry ${layer.dryMinutes} min before the next layer.`}
+          : `Planned ${layer.plannedCoats} ${layer.plannedCoats === 1 ? "coat" : "coats"}, flash ${formatMinutes(layer.flashMinutes)}, dry ${formatMinutes(layer.dryMinutes)} before the next layer.`}
       </p>
       {layer.materials.length ? (
         <p>

@@ -5,6 +5,7 @@ import { formatCents } from "@shared/quote/money";
 import type { LayerEstimateDto, PlanEstimateDto, PlanLayerDto } from "@shared/schemas/plan.schema";
 import type { VolumeUnit } from "@shared/mix/index";
 import { mixSentence } from "@shared/domain/mix-words";
+import { formatMinutes } from "@shared/domain/duration";
 import { MixWordsList } from "@/components/ui/mix-words-list";
 import { SafetyCautions } from "@/components/ui/safety-cautions";
 import { paths } from "@/config/paths";
@@ -55,12 +56,18 @@ export function PlanLayersView({
             </div>
             <div className="grid gap-4 px-4 py-3 2xl:grid-cols-[minmax(0,1fr)_minmax(0,1fr)]">
               <dl className="grid grid-cols-2 gap-x-4 gap-y-2 text-sm sm:grid-cols-4">
-                <Fact label="Coats">{formatNumber(l.coats, 2)}</Fact>
-                <Fact label="Flash">{formatNumber(l.flashMinutes, 0)} min</Fact>
-                <Fact label="Dry before next">{formatNumber(l.dryMinutes, 0)} min</Fact>
-                {l.gunTip ? <Fact label="Gun tip">{l.gunTip}</Fact> : null}
-                {l.pressurePsi != null ? <Fact label="Pressure">{formatNumber(l.pressurePsi, 1)} psi</Fact> : null}
-                {l.overlapPct != null ? <Fact label="Overlap">{formatNumber(l.overlapPct, 0)} %</Fact> : null}
+                {l.kind === "prep" ? (
+                  <Fact label="Prep">Scuff, clean and sign off each item</Fact>
+                ) : (
+                  <>
+                    <Fact label="Coats">{formatNumber(l.coats, 2)}</Fact>
+                    <Fact label="Flash">{formatMinutes(l.flashMinutes)}</Fact>
+                  </>
+                )}
+                <Fact label="Dry before next">{formatMinutes(l.dryMinutes)}</Fact>
+                {l.kind !== "prep" && l.gunTip ? <Fact label="Gun tip">{l.gunTip}</Fact> : null}
+                {l.kind !== "prep" && l.pressurePsi != null ? <Fact label="Pressure">{formatNumber(l.pressurePsi, 1)} psi</Fact> : null}
+                {l.kind !== "prep" && l.overlapPct != null ? <Fact label="Overlap">{formatNumber(l.overlapPct, 0)} %</Fact> : null}
                 {film(l) ? <Fact label="Dry film / coat">{film(l)}</Fact> : null}
                 {e?.film ? (
                   <Fact label="Wet film / coat">
@@ -72,7 +79,7 @@ export function PlanLayersView({
                     {US_UNITS.has(unit) ? `${formatNumber(e.film.ft2PerGal, 0)} ft²/gal` : `${formatNumber(e.film.m2PerL, 1)} m²/L`}
                   </Fact>
                 ) : null}
-                {l.potLifeMinutes ? <Fact label="Pot life">{l.potLifeMinutes} min</Fact> : null}
+                {l.potLifeMinutes ? <Fact label="Pot life">{formatMinutes(l.potLifeMinutes)}</Fact> : null}
                 {e && e.volumeMl > 0 ? <Fact label="Estimated volume">{formatVolume(e.volumeMl, unit)}</Fact> : null}
                 {e?.vocGPerL != null ? <Fact label="Mixed VOC">{formatNumber(e.vocGPerL, 0)} g/L</Fact> : null}
                 {e?.costCents != null && e.volumeMl > 0 ? <Fact label="Material cost">{formatCents(e.costCents)}</Fact> : null}
