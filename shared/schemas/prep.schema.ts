@@ -1,7 +1,7 @@
 import { z } from "zod";
 import { SCUFF_MEDIA, type PrepStatus, type PrepStep, type ScuffMedium } from "../domain/prep";
 import type { Substrate } from "../domain/substrates";
-import { idSchema, optionalText, requiredText, versionSchema } from "./common.schema";
+import { idSchema, madeAtSchema, optionalText, requiredText, versionSchema } from "./common.schema";
 import type { UploadDto } from "./upload.schema";
 
 /** Empty input → null; otherwise a number (form inputs send strings). */
@@ -33,6 +33,10 @@ export type UpdatePrepRecordInput = z.input<typeof updatePrepRecordInputSchema>;
 
 export const reopenPrepRecordInputSchema = z.object({ reason: requiredText(500, "Reason") });
 export type ReopenPrepRecordInput = z.input<typeof reopenPrepRecordInputSchema>;
+
+/** A sign-off; `at` is when it was made on the tablet, for one sent late. */
+export const signOffPrepRecordInputSchema = z.object({ at: madeAtSchema });
+export type SignOffPrepRecordInput = z.input<typeof signOffPrepRecordInputSchema>;
 
 export const listPrepRecordsQuerySchema = z.object({ jobId: idSchema });
 
