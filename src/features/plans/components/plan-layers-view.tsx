@@ -60,6 +60,12 @@ export function PlanLayersView({
                 <Fact label="Coats">{formatNumber(l.coats, 2)}</Fact>
                 <Fact label="Flash">{formatNumber(l.flashMinutes, 0)} min</Fact>
                 <Fact label="Dry before next">{formatNumber(l.dryMinutes, 0)} min</Fact>
+                {l.inductionMinutes ? <Fact label="Induction">{formatNumber(l.inductionMinutes, 0)} min</Fact> : null}
+                {l.recoatMinMinutes != null || l.recoatMaxMinutes != null ? (
+                  <Fact label="Recoat window">
+                    {formatNumber(l.recoatMinMinutes ?? 0, 0)} to {l.recoatMaxMinutes != null ? `${formatNumber(l.recoatMaxMinutes, 0)} min` : "any time"}
+                  </Fact>
+                ) : null}
                 {l.gunTip ? <Fact label="Gun tip">{l.gunTip}</Fact> : null}
                 {l.pressurePsi != null ? <Fact label="Pressure">{formatNumber(l.pressurePsi, 1)} psi</Fact> : null}
                 {l.overlapPct != null ? <Fact label="Overlap">{formatNumber(l.overlapPct, 0)} %</Fact> : null}
