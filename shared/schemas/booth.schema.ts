@@ -111,6 +111,10 @@ export type BoothLayerDto = Pick<
   | "gunTip" | "pressurePsi" | "overlapPct" | "notes" | "cautions"
 > & {
   components: BoothComponentDto[];
+  /** The mixed layer's VOC (g/L less water and exempt), the shop's limit for its category, and whether it is over. */
+  vocGPerL: number | null;
+  vocLimitGPerL: number | null;
+  vocOverLimit: boolean;
   /** A prep layer is done through the item prep records, not logged coat by coat. */
   isPrep: boolean;
   coatsDone: number;

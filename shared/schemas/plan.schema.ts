@@ -204,6 +204,9 @@ export type LayerEstimateDto = {
   costCents?: number;
   /** VOC of the mixed layer, g/L less water and exempt (null when a material has no VOC figure). */
   vocGPerL: number | null;
+  /** The shop's VOC limit for the layer's category (null: none entered), and whether the mixed layer is over it. */
+  vocLimitGPerL: number | null;
+  vocOverLimit: boolean;
   /** Volume solids of the mixed layer, %. */
   volumeSolidsPct: number | null;
   /** One coat's dry and wet film (in the layer's film unit), and the coverage of the mixed layer at its transfer efficiency. */

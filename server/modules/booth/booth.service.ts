@@ -16,6 +16,9 @@ import { panelLabel } from "../panels/panels.service";
 import { prepStatusOf } from "../prep/prep.service";
 import { asEntry, coatDtos, coatRows, mixSheetDtos } from "./booth-records";
 import { nextCoatTiming, timingOverride } from "./coat-timing";
+import { layerVoc } from "../plans/plan-estimate.service";
+import { getSettings } from "../settings/settings.service";
+import { vocAgainstLimit } from "../../../shared/domain/voc-limits";
 import { coatCount, effectiveCoats, nextBoothStep, type TempUnit } from "../../../shared/domain/booth";
 import { needsAdhesionPromoter } from "../../../shared/domain/substrates";
 import { STAGE_LABELS, type Stage } from "../../../shared/domain/stages";
@@ -147,9 +150,15 @@ export function getBooth(deps: AppDeps, actor: Actor, jobId: number): BoothDto {
     const effective = effectiveCoats(rows.filter((r) => layerIds.has(r.c.layerId)).map((r) => asEntry(r.c)));
     const step = nextBoothStep(sprayLayers, effective, now);
     const progress = new Map(step.layers.map((p) => [p.layerId, p]));
+    const { vocLimits } = getSettings(deps);
     layers = versionLayers.map((l) => {
       const p = progress.get(l.id);
+      const vocGPerL = layerVoc(l);
+      const voc = vocAgainstLimit(l.kind, vocGPerL, vocLimits);
       return {
+        vocGPerL,
+        vocLimitGPerL: voc.limitGPerL,
+        vocOverLimit: voc.over,
         id: l.id,
         position: l.position,
         kind: l.kind,

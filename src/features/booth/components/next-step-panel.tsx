@@ -2,6 +2,7 @@ import { useState, type ChangeEvent, type FormEvent } from "react";
 import { Link } from "react-router";
 import { CheckCircle2, PaintBucket, TriangleAlert } from "lucide-react";
 import { LAYER_KIND_LABELS } from "@shared/domain/layers";
+import { vocWarning } from "@shared/domain/voc-limits";
 import type { BoothDto } from "@shared/schemas/booth.schema";
 import { isApiError } from "@/lib/api-client";
 import { Alert } from "@/components/ui/alert";
@@ -97,6 +98,11 @@ export function NextStepPanel({ card, now, prepPath }: { card: BoothDto; now: nu
               {batch ? <PotLifeTimer endsAt={batch.potLifeEndsAt} mixedAt={batch.mixedAt} now={now} /> : null}
               <TimingWindowTimers card={card} now={now} />
             </div>
+            {current?.vocOverLimit && current.vocGPerL != null && current.vocLimitGPerL != null ? (
+              <Alert tone="error" title="VOC over the shop's limit">
+                {vocWarning(current.kind, current.vocGPerL, current.vocLimitGPerL)}
+              </Alert>
+            ) : null}
             {!batch && current && current.components.length > 0 ? (
               <Alert tone="warning" title="No batch recorded as mixed for this layer">
                 Mix it from the mix sheet first, so the pot life is timed and the batch is on the record.

@@ -21,6 +21,7 @@ import { cn } from "@/utils/cn";
 import { formatNumber } from "@/utils/format-quantity";
 import { useVersionGuard } from "@/hooks/use-version-guard";
 import { VersionConflictNotice } from "@/components/ui/version-conflict-notice";
+import { LayerVocNote } from "./layer-voc-note";
 
 /*
  * The plan editor: the whole layer stack in one form. Layers move with the up/down buttons (touch, keyboard)
@@ -463,19 +464,20 @@ function ComponentsEditor({
     if (live && live.path === `components.${j}.${field}`) return live.message;
     return undefined;
   };
-  const summary = useMemo(() => {
+  const shares = useMemo(() => {
     if (live || values.length === 0) return null;
     try {
-      const shares = resolveShares(
+      return resolveShares(
         toMixComponents(
           values.map((c) => ({ label: c.label.trim(), parts: c.mode === "parts" ? num(c.parts) : null, percent: c.mode === "percent" ? num(c.percent) : null, percentOf: c.mode === "percent" ? c.percentOf : null })),
         ),
       );
-      return shares.map((s) => `${s.name} ${formatNumber(s.share * 100, 1)} %`).join(" · ");
     } catch {
       return null;
     }
   }, [live, values]);
+  const summary = shares?.map((s) => `${s.name} ${formatNumber(s.share * 100, 1)} %`).join(" · ");
+  const kind = useWatch({ control, name: `layers.${layerIndex}.kind` });
   const chosen = values.map((c) => byId.get(c.materialId)).filter((m): m is MaterialDto => !!m);
   const cautions = cautionsFor(chosen);
 
@@ -570,6 +572,7 @@ function ComponentsEditor({
           <span className="font-semibold">Shares by volume:</span> {summary}
         </p>
       ) : null}
+      {shares ? <LayerVocNote kind={kind} parts={values.map((c) => ({ share: shares.find((x) => x.name === c.label.trim())?.share ?? 0, material: byId.get(c.materialId) }))} /> : null}
       <div className="mt-3 flex flex-wrap items-start gap-3">
         <Button
           variant="secondary"
