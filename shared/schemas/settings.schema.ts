@@ -2,6 +2,8 @@ import { z } from "zod";
 import { VOLUME_UNIT_IDS } from "../mix/index";
 import { AREA_UNITS } from "../domain/substrates";
 import { LAYER_KINDS } from "../domain/layers";
+import { FILM_UNITS, PRESSURE_UNITS, SCALE_UNITS, UNIT_SYSTEMS } from "../domain/measures";
+import { TEMP_UNITS } from "../domain/booth";
 import { patchSchemaOf, versionSchema } from "./common.schema";
 
 /** Kinds of quote line a shop may charge sales tax on (which kinds are taxed depends on the state). */
@@ -35,8 +37,14 @@ export const shopSettingsSchema = z.object({
   shopSuppliesPercent: pct("Shop supplies"),
   quoteValidDays: z.coerce.number().int().min(1, "At least one day").max(365, "At most a year"),
   quoteTerms: z.string().trim().max(4000).default(""),
+  /** The unit system the shop works in; each measure below may override it. */
+  unitSystem: z.enum(UNIT_SYSTEMS, { error: "Unit system must be metric or us" }),
   defaultVolumeUnit: z.enum(VOLUME_UNIT_IDS),
   defaultAreaUnit: z.enum(AREA_UNITS),
+  filmUnit: z.enum(FILM_UNITS, { error: "Film unit must be um or mil" }),
+  pressureUnit: z.enum(PRESSURE_UNITS, { error: "Pressure unit must be psi or bar" }),
+  tempUnit: z.enum(TEMP_UNITS, { error: "Temperature unit must be C or F" }),
+  massUnit: z.enum(SCALE_UNITS, { error: "Scale unit must be g or oz" }),
   /** Colour-difference verdicts for test panels: ΔE00 below `match` reads "match", below `close` "close". */
   deltaEMatch: z.coerce.number().positive().max(20),
   deltaEClose: z.coerce.number().positive().max(50),
@@ -73,7 +81,7 @@ export const updateShopSettingsSchema = patchSchemaOf(shopSettingsSchema).extend
 export type UpdateShopSettings = z.input<typeof updateShopSettingsSchema>;
 
 /** What any signed-in user may read: no money. */
-export type PublicShopSettings = Pick<ShopSettings, "shopName" | "shopAddress" | "shopPhone" | "shopEmail" | "defaultVolumeUnit" | "defaultAreaUnit" | "deltaEMatch" | "deltaEClose" | "ratioTolerancePct" | "vocLimits">;
+export type PublicShopSettings = Pick<ShopSettings, "shopName" | "shopAddress" | "shopPhone" | "shopEmail" | "defaultVolumeUnit" | "defaultAreaUnit" | "deltaEMatch" | "deltaEClose" | "ratioTolerancePct" | "vocLimits" | "unitSystem" | "filmUnit" | "pressureUnit" | "tempUnit" | "massUnit">;
 
 export const DEFAULT_SETTINGS: ShopSettings = {
   shopName: "My custom paint shop",
@@ -88,8 +96,13 @@ export const DEFAULT_SETTINGS: ShopSettings = {
   shopSuppliesPercent: 8,
   quoteValidDays: 30,
   quoteTerms: "",
+  unitSystem: "metric",
   defaultVolumeUnit: "mL",
   defaultAreaUnit: "m2",
+  filmUnit: "um",
+  pressureUnit: "bar",
+  tempUnit: "C",
+  massUnit: "g",
   deltaEMatch: 1,
   deltaEClose: 2,
   vocLimits: [],

@@ -1,4 +1,5 @@
-import { queryOptions } from "@tanstack/react-query";
+import { queryOptions, useQuery } from "@tanstack/react-query";
+import { UNIT_PRESETS, type ShopUnits } from "@shared/domain/measures";
 import type { PublicShopSettings } from "@shared/schemas/settings.schema";
 import { api } from "./api-client";
 
@@ -14,3 +15,17 @@ export const shopSettingsQueries = {
       staleTime: 5 * 60_000,
     }),
 };
+
+/** The shop's chosen unit for each measure (the metric set until the settings arrive). */
+export function useShopUnits(): ShopUnits {
+  const s = useQuery(shopSettingsQueries.public()).data;
+  const d = UNIT_PRESETS.metric;
+  return {
+    volume: s?.defaultVolumeUnit ?? d.volume,
+    area: s?.defaultAreaUnit ?? d.area,
+    film: s?.filmUnit ?? d.film,
+    pressure: s?.pressureUnit ?? d.pressure,
+    temperature: s?.tempUnit ?? d.temperature,
+    mass: s?.massUnit ?? d.mass,
+  };
+}

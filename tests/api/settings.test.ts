@@ -31,6 +31,22 @@ describe("shop settings", () => {
     expect(res.status).toBe(200);
     expect(Object.keys(res.body).some((k) => /rate|tax|deposit|markup|cents/i.test(k))).toBe(false);
   });
+
+  it("the shop picks a unit system with a unit per measure, which every staff screen reads, and a bad unit is refused by name", async () => {
+    const s = await makeShop();
+    let shop = await s.as("painter").get("/api/settings/shop");
+    expect(shop.body).toMatchObject({ unitSystem: "metric", defaultVolumeUnit: "mL", filmUnit: "um", pressureUnit: "bar", tempUnit: "C", massUnit: "g" });
+    const saved = await editAt(s, "owner", "/api/settings", { unitSystem: "us", defaultVolumeUnit: "floz", defaultAreaUnit: "ft2", filmUnit: "mil", pressureUnit: "psi", tempUnit: "F", massUnit: "oz" });
+    expect(saved.status).toBe(200);
+    shop = await s.as("painter").get("/api/settings/shop");
+    expect(shop.body).toMatchObject({ unitSystem: "us", filmUnit: "mil", pressureUnit: "psi", tempUnit: "F", massUnit: "oz" });
+    // An override: a US shop that reads its gun gauges in bar.
+    expect((await editAt(s, "owner", "/api/settings", { pressureUnit: "bar" })).status).toBe(200);
+    expect((await s.as("painter").get("/api/settings/shop")).body).toMatchObject({ unitSystem: "us", pressureUnit: "bar" });
+    const bad = await editAt(s, "owner", "/api/settings", { pressureUnit: "kgf" });
+    expect(bad.status).toBe(400);
+    expect(JSON.stringify(bad.body)).toContain("pressureUnit");
+  });
 });
 
 describe("audit trail for users", () => {

@@ -40,5 +40,7 @@ describe("durations read the way a data sheet means them", () => {
     expect(formatMinutes(90)).toBe("1 h 30 min");
     expect(formatMinutes(45)).toBe("45 min");
     expect(formatMinutes(0)).toBe("0 min");
+    expect(formatMinutes(0.5)).toBe("0.5 min");
+    expect(formatMinutes(119.8)).toBe("2 h");
   });
 });

@@ -64,4 +64,47 @@ describe("weighing a batch at the bench", () => {
     expect(errors).toEqual([]);
     await close();
   });
+
+  it("the owner switches the shop to US units and the plan shows every measure in them; one measure can differ", async () => {
+    const { page, errors, close } = await newPage(browser, { width: 1280, height: 1400 });
+    await signIn(page, baseUrl, "owner");
+    const templates = await call<{ id: number; name: string }[]>(page, "GET", "/api/plans?kind=template");
+    const customers = await call<{ items: { id: number }[] }>(page, "GET", "/api/customers?pageSize=1");
+    const job = await call<{ id: number }>(page, "POST", "/api/jobs", { customerId: customers.items[0]!.id, title: `E2E units ${Date.now()}` });
+    await call(page, "POST", `/api/jobs/${job.id}/items`, { name: "Helmet", substrate: "fiberglass", surfaceArea: 0.3, areaUnit: "m2" });
+    const plan = await call<{ latest: { layers: { pressurePsi: number | null; dryFilmPerCoat: number | null }[] } }>(page, "POST", `/api/jobs/${job.id}/plan`, {
+      fromPlanId: templates.find((t) => t.name === "Candy over metallic ground")!.id,
+    });
+    // The template gives gun pressures (stored in psi) and film builds (in µm).
+    expect(plan.latest.layers.some((l) => l.pressurePsi != null) && plan.latest.layers.some((l) => l.dryFilmPerCoat != null)).toBe(true);
+    const planned = job.id;
+    const setUnits = async (changes: object) => {
+      const current = await call<{ version: number }>(page, "GET", "/api/settings");
+      await call(page, "PATCH", "/api/settings", { ...changes, version: current.version });
+    };
+    try {
+      await page.goto(`${baseUrl}/settings`);
+      await page.getByLabel("Unit system").selectOption("us");
+      // Picking the system sets every measure's unit on the form.
+      expect(await page.getByLabel("Gun pressure").inputValue()).toBe("psi");
+      expect(await page.getByLabel("Film thickness").inputValue()).toBe("mil");
+      await page.getByRole("button", { name: "Save settings" }).click();
+      await expect.poll(() => page.getByText("Settings saved").count()).toBeGreaterThan(0);
+
+      await page.goto(`${baseUrl}/jobs/${planned}/plan`);
+      const layers = page.getByRole("list", { name: "Layers, bottom to top" });
+      await expect.poll(async () => /\d psi/.test(await layers.innerText()) && /\d mil/.test(await layers.innerText())).toBe(true);
+      expect(await layers.innerText()).not.toMatch(/\d(\.\d+)? bar|µm/);
+      await page.screenshot({ path: path.join(ARTEFACTS, "plan-us-units.png"), fullPage: true });
+
+      // One override: this shop reads its gauges in bar.
+      await setUnits({ pressureUnit: "bar" });
+      await page.reload();
+      await expect.poll(async () => /\d bar/.test(await layers.innerText()) && /\d mil/.test(await layers.innerText())).toBe(true);
+    } finally {
+      await setUnits({ unitSystem: "metric", defaultVolumeUnit: "mL", defaultAreaUnit: "m2", filmUnit: "um", pressureUnit: "bar", tempUnit: "C", massUnit: "g" });
+    }
+    expect(errors).toEqual([]);
+    await close();
+  });
 });

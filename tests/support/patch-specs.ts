@@ -27,6 +27,8 @@ import { SCUFF_MEDIA } from "../../shared/domain/prep";
 import { ILLUMINANTS, PANEL_LIGHTS } from "../../shared/domain/spray-setup";
 import { TAXABLE_KINDS } from "../../shared/quote/totals";
 import { TAXABLE_LINE_KINDS } from "../../shared/schemas/settings.schema";
+import { FILM_UNITS, PRESSURE_UNITS, SCALE_UNITS, UNIT_SYSTEMS } from "../../shared/domain/measures";
+import { TEMP_UNITS } from "../../shared/domain/booth";
 
 /**
  * How to test one PATCH route for "a field left out stays as it was": how to read the record back, and for each
@@ -98,6 +100,12 @@ export const PATCH_SPECS: Record<string, PatchSpec> = {
       vocMonthlyCapKg: one("vocMonthlyCapKg", fc.option(decimal(1, 1000), { nil: null })),
       vocYearlyCapKg: one("vocYearlyCapKg", fc.option(decimal(1, 10000), { nil: null })),
       lowDiskWarningGb: one("lowDiskWarningGb", decimal(0, 1000)),
+      ratioTolerancePct: one("ratioTolerancePct", decimal(0.1, 20, 1)),
+      unitSystem: one("unitSystem", fc.constantFrom(...UNIT_SYSTEMS)),
+      filmUnit: one("filmUnit", fc.constantFrom(...FILM_UNITS)),
+      pressureUnit: one("pressureUnit", fc.constantFrom(...PRESSURE_UNITS)),
+      tempUnit: one("tempUnit", fc.constantFrom(...TEMP_UNITS)),
+      massUnit: one("massUnit", fc.constantFrom(...SCALE_UNITS)),
     },
   },
   "PATCH /api/customers/:id": {
@@ -155,6 +163,10 @@ export const PATCH_SPECS: Record<string, PatchSpec> = {
       lowStockThreshold: one("lowStockThreshold", fc.option(decimal(0, 1000), { nil: null })),
       notes: one("notes", optText),
       active: one("active", bool),
+      // Minimum recoat under an hour and maximum from two hours, so each changed alone keeps min ≤ max.
+      inductionMinutes: one("inductionMinutes", fc.option(fc.integer({ min: 1, max: 120 }), { nil: null })),
+      recoatMinMinutes: one("recoatMinMinutes", fc.option(fc.integer({ min: 0, max: 60 }), { nil: null })),
+      recoatMaxMinutes: one("recoatMaxMinutes", fc.option(fc.integer({ min: 120, max: 10_080 }), { nil: null })),
     },
     follows: {
       category: ["categoryLabel", "cautions", "hazardous", "usage"],

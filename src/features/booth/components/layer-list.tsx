@@ -1,14 +1,17 @@
+import { useShopUnits } from "@/lib/shop-settings.queries";
+import { formatPressure } from "@/utils/format-measure";
 import { MixWordsList } from "@/components/ui/mix-words-list";
 import { Check, ShieldAlert } from "lucide-react";
 import { Link } from "react-router";
 import { LAYER_KIND_LABELS } from "@shared/domain/layers";
 import type { BoothLayerDto } from "@shared/schemas/booth.schema";
 import { cn } from "@/utils/cn";
-import { formatMinutes } from "../hooks/use-server-now";
+import { formatMinutes } from "@shared/domain/duration";
 
 
 /** The plan's layers in spray order: done, the current one, and what comes after. */
 export function LayerList({ layers, prepPath }: { layers: BoothLayerDto[]; prepPath: string }) {
+  const units = useShopUnits();
   return (
     <ol className="flex flex-col gap-3" aria-label="Layers in order">
       {layers.map((layer, i) => {
@@ -48,7 +51,7 @@ export function LayerList({ layers, prepPath }: { layers: BoothLayerDto[]; prepP
                   <p className="mt-1 text-sm text-ink-900">
                     Flash {formatMinutes(layer.flashMinutes)} · dry {formatMinutes(layer.dryMinutes)}
                     {layer.gunTip ? ` · tip ${layer.gunTip}` : ""}
-                    {layer.pressurePsi != null ? ` · ${layer.pressurePsi} psi` : ""}
+                    {layer.pressurePsi != null ? ` · ${formatPressure(layer.pressurePsi, units.pressure)}` : ""}
                   </p>
                 ) : (
                   <Link to={prepPath} className="mt-1 inline-flex min-h-11 items-center text-sm font-semibold text-candy-700 underline underline-offset-2">

@@ -15,7 +15,9 @@ import { cn } from "@/utils/cn";
 import { PhotoUploadButton } from "@/features/uploads/components/photo-panel";
 import { useLogCoat } from "../api/booth.queries";
 import { useLogCoatForm, type LogFields } from "../hooks/use-log-coat-form";
-import { formatMinutes } from "../hooks/use-server-now";
+import { formatMinutes } from "@shared/domain/duration";
+import { useShopUnits } from "@/lib/shop-settings.queries";
+import { formatPressure } from "@/utils/format-measure";
 import { ConditionInput } from "./condition-input";
 import { setupPrefill, SpraySetupPanel } from "./spray-setup-fields";
 import { formatClock, PotLifeTimer, StepTimer } from "./booth-timers";
@@ -26,6 +28,7 @@ import { breachesAt, TimingWindowTimers } from "./timing-windows";
 export function NextStepPanel({ card, now, prepPath }: { card: BoothDto; now: number; prepPath: string }) {
   const next = card.next;
   const current = next.state === "spray" ? card.layers.find((l) => l.id === next.layerId) : undefined;
+  const units = useShopUnits();
 
   if (next.state === "no_plan" || next.state === "no_layers") {
     return (
@@ -75,7 +78,7 @@ export function NextStepPanel({ card, now, prepPath }: { card: BoothDto; now: nu
               ? [
                   next.layerName.toLowerCase() !== LAYER_KIND_LABELS[next.layerKind].toLowerCase() && LAYER_KIND_LABELS[next.layerKind],
                   current.gunTip && `tip ${current.gunTip}`,
-                  current.pressurePsi != null && `${current.pressurePsi} psi`,
+                  current.pressurePsi != null && formatPressure(current.pressurePsi, units.pressure),
                   current.overlapPct != null && `${current.overlapPct}% overlap`,
                   `flash ${formatMinutes(current.flashMinutes)}`,
                 ]
@@ -135,12 +138,13 @@ function LogCoatForm({ card, now, prepPath }: { card: BoothDto; now: number; pre
   const [overridingTiming, setOverridingTiming] = useState(false);
   const [noting, setNoting] = useState(false);
   const last = card.lastConditions;
-  const [setup] = useState(() => setupPrefill(card, next.layerId, next.layerKind));
+  const units = useShopUnits();
+  const [setup] = useState(() => setupPrefill(card, next.layerId, next.layerKind, units.pressure));
   const form = useLogCoatForm(
     { jobId: card.job.id, layerId: next.layerId, coatNumber: next.coat },
     {
       boothTemp: last?.boothTemp != null ? String(last.boothTemp) : "",
-      tempUnit: last?.tempUnit ?? "C",
+      tempUnit: last?.tempUnit ?? units.temperature,
       humidityPct: last?.humidityPct != null ? String(last.humidityPct) : "",
       note: "",
       prepOverrideReason: "",

@@ -27,7 +27,7 @@ const text = (n: number | null) => (n == null ? "" : String(n));
  * What the coat form starts from: the set-up of the last coat of this layer (the painter keeps the gun as it was),
  * else the approved panel's when this layer is the one the panel was sprayed for (or a candy), else nothing.
  */
-export function setupPrefill(card: BoothDto, layerId: number, layerKind: string): { fields: SetupFields; target: SpraySetupDto | null } {
+export function setupPrefill(card: BoothDto, layerId: number, layerKind: string, defaultPressure: "psi" | "bar" = "psi"): { fields: SetupFields; target: SpraySetupDto | null } {
   const panel = card.job.approvedPanel;
   const target = panel && panel.setup.summary && (panel.planLayerId === layerId || (panel.planLayerId == null && layerKind === "candy")) ? panel.setup : null;
   const lastOfLayer = card.coatLogs.filter((c) => c.layerId === layerId && c.status !== "voided" && c.setup.summary).at(-1)?.setup;
@@ -38,7 +38,7 @@ export function setupPrefill(card: BoothDto, layerId: number, layerKind: string)
       gunId: from?.gunId != null ? String(from.gunId) : "",
       tipMm: text(from?.tipMm ?? null),
       inletPressure: text(from?.inletPressure ?? null),
-      pressureUnit: from?.pressureUnit ?? "psi",
+      pressureUnit: from?.pressureUnit ?? defaultPressure,
       distance: text(from?.distance ?? null),
       fanWidth: text(from?.fanWidth ?? null),
       distanceUnit: from?.distanceUnit ?? "in",

@@ -26,12 +26,6 @@ export function formatCountdown(ms: number): string {
 }
 
 /** "12 min", "1 h 5 min" for a plain duration in minutes. */
-export function formatMinutes(minutes: number): string {
-  if (minutes < 60) return `${Math.round(minutes * 10) / 10} min`;
-  const h = Math.floor(minutes / 60);
-  const m = Math.round(minutes % 60);
-  return m ? `${h} h ${m} min` : `${h} h`;
-}
 
 /** How long ago, for people: "45 s", "12 min", "3 h 5 min", "4 days". */
 export function formatAgo(ms: number): string {

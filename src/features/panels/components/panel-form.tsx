@@ -1,5 +1,6 @@
 import { switchTemperatureText, type TempUnit } from "@shared/domain/booth";
 import { useState, type ChangeEvent } from "react";
+import { useShopUnits } from "@/lib/shop-settings.queries";
 import { useQuery } from "@tanstack/react-query";
 import { useFieldArray, useForm, type UseFormRegister } from "react-hook-form";
 import { zodResolver } from "@hookform/resolvers/zod";
@@ -72,6 +73,7 @@ export function PanelForm({
   onCancel: () => void;
 }) {
   const [problem, setProblem] = useState<string | null>(null);
+  const units = useShopUnits();
   const {
     register,
     handleSubmit,
@@ -98,13 +100,13 @@ export function PanelForm({
       gunId: "",
       tipMm: "",
       inletPressure: "",
-      pressureUnit: "psi",
+      pressureUnit: units.pressure,
       distance: "",
       fanWidth: "",
       distanceUnit: "in",
       overlapPct: "",
       boothTemp: "",
-      tempUnit: "F",
+      tempUnit: units.temperature,
       humidityPct: "",
       readings: [],
       ...defaultValues,

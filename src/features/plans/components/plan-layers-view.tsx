@@ -9,6 +9,8 @@ import type { VolumeUnit } from "@shared/mix/index";
 import { mixSentence } from "@shared/domain/mix-words";
 import { formatMinutes } from "@shared/domain/duration";
 import { MixWordsList } from "@/components/ui/mix-words-list";
+import { useShopUnits } from "@/lib/shop-settings.queries";
+import { formatFilm, formatPressure } from "@/utils/format-measure";
 import { SafetyCautions } from "@/components/ui/safety-cautions";
 import { paths } from "@/config/paths";
 import { formatNumber, formatVolume } from "@/utils/format-quantity";
@@ -18,9 +20,6 @@ export function mixWords(layer: Pick<PlanLayerDto, "components">): string {
   return mixSentence(layer.components);
 }
 
-/** Volume units of the US system: coverage is then shown per gallon in ft², else per litre in m². */
-const US_UNITS = new Set<VolumeUnit>(["floz", "cup", "pint", "quart", "gallon"]);
-const film = (l: PlanLayerDto) => (l.dryFilmPerCoat == null ? null : `${formatNumber(l.dryFilmPerCoat, 2)} ${l.dryFilmUnit === "mil" ? "mil" : "µm"}`);
 
 /**
  * A plan's layers, bottom to top, each with its mix, coats and timings, gun set-up, the materials, and the
@@ -37,6 +36,7 @@ export function PlanLayersView({
   unit?: VolumeUnit;
   layerActions?: (layer: PlanLayerDto) => ReactNode;
 }) {
+  const units = useShopUnits();
   if (layers.length === 0) return <p className="rounded-lg border border-dashed border-primer-300 bg-white p-4 text-primer-700">This plan has no layers yet.</p>;
   const byLayer = new Map<number, LayerEstimateDto>((estimate?.layers ?? []).map((e) => [e.layerId, e]));
   return (
@@ -74,17 +74,17 @@ export function PlanLayersView({
                   </Fact>
                 ) : null}
                 {l.kind !== "prep" && l.gunTip ? <Fact label="Gun tip">{l.gunTip}</Fact> : null}
-                {l.kind !== "prep" && l.pressurePsi != null ? <Fact label="Pressure">{formatNumber(l.pressurePsi, 1)} psi</Fact> : null}
+                {l.kind !== "prep" && l.pressurePsi != null ? <Fact label="Pressure">{formatPressure(l.pressurePsi, units.pressure)}</Fact> : null}
                 {l.kind !== "prep" && l.overlapPct != null ? <Fact label="Overlap">{formatNumber(l.overlapPct, 0)} %</Fact> : null}
-                {film(l) ? <Fact label="Dry film / coat">{film(l)}</Fact> : null}
+                {l.dryFilmPerCoat != null ? <Fact label="Dry film / coat">{formatFilm(l.dryFilmPerCoat, l.dryFilmUnit, units.film)}</Fact> : null}
                 {e?.film ? (
                   <Fact label="Wet film / coat">
-                    {formatNumber(e.film.wetFilmPerCoat, 2)} {e.film.unit === "mil" ? "mil" : "µm"}
+                    {formatFilm(e.film.wetFilmPerCoat, e.film.unit, units.film)}
                   </Fact>
                 ) : null}
                 {e?.film ? (
                   <Fact label={`Coverage at ${formatNumber(e.film.transferEfficiencyPct, 0)} % transfer`}>
-                    {US_UNITS.has(unit) ? `${formatNumber(e.film.ft2PerGal, 0)} ft²/gal` : `${formatNumber(e.film.m2PerL, 1)} m²/L`}
+                    {units.area === "ft2" ? `${formatNumber(e.film.ft2PerGal, 0)} ft²/gal` : `${formatNumber(e.film.m2PerL, 1)} m²/L`}
                   </Fact>
                 ) : null}
                 {l.potLifeMinutes ? <Fact label="Pot life">{formatMinutes(l.potLifeMinutes)}</Fact> : null}

@@ -1,10 +1,11 @@
-import { useState, type ComponentProps, type ReactNode } from "react";
+import { useState, type ChangeEvent, type ComponentProps, type ReactNode } from "react";
 import { Controller, useFieldArray, useForm, type Path } from "react-hook-form";
 import { zodResolver } from "@hookform/resolvers/zod";
 import type { z } from "zod";
 import { Plus, Trash2 } from "lucide-react";
 import { LAYER_KIND_LABELS, LAYER_KINDS } from "@shared/domain/layers";
 import { AREA_UNIT_LABELS, AREA_UNITS } from "@shared/domain/substrates";
+import { FILM_UNIT_LABELS, FILM_UNITS, PRESSURE_UNIT_LABELS, PRESSURE_UNITS, SCALE_UNITS, UNIT_PRESETS, type UnitSystem } from "@shared/domain/measures";
 import { VOLUME_UNITS } from "@shared/mix/index";
 import { TAXABLE_LINE_KINDS, updateShopSettingsSchema, type ShopSettings } from "@shared/schemas/settings.schema";
 import { applyServerErrors } from "@/lib/form-errors";
@@ -49,6 +50,11 @@ const TOP_FIELDS = [
   "vocYearlyCapKg",
   "lowDiskWarningGb",
   "ratioTolerancePct",
+  "unitSystem",
+  "filmUnit",
+  "pressureUnit",
+  "tempUnit",
+  "massUnit",
 ] as const;
 
 /** "" → null for the optional caps (an empty box means "no cap"). */
@@ -80,6 +86,7 @@ export function SettingsForm({
   const [problem, setProblem] = useState<string | null>(null);
   const {
     register,
+    setValue,
     control,
     handleSubmit,
     setError,
@@ -152,8 +159,53 @@ export function SettingsForm({
           <TextareaField label="Quote terms" rows={4} hint="Printed at the foot of every quote." error={errors.quoteTerms?.message} {...register("quoteTerms")} />
         </Group>
 
-        <Group title="Units and colour matching">
+        <Group title="Units and colour matching" description="Every screen shows each measure in the unit chosen here. Picking a system sets them all; any one can then differ.">
           <div className="grid gap-5 sm:grid-cols-2">
+            <SelectField
+              label="Unit system"
+              error={errors.unitSystem?.message}
+              {...register("unitSystem", {
+                onChange: (e: ChangeEvent<HTMLSelectElement>) => {
+                  const preset = UNIT_PRESETS[e.target.value as UnitSystem];
+                  if (!preset) return;
+                  const opts = { shouldDirty: true };
+                  setValue("defaultVolumeUnit", preset.volume, opts);
+                  setValue("defaultAreaUnit", preset.area, opts);
+                  setValue("filmUnit", preset.film, opts);
+                  setValue("pressureUnit", preset.pressure, opts);
+                  setValue("tempUnit", preset.temperature, opts);
+                  setValue("massUnit", preset.mass, opts);
+                },
+              })}
+            >
+              <option value="metric">Metric (mL, m², µm, bar, °C, g)</option>
+              <option value="us">US customary (fl oz, ft², mil, psi, °F, oz)</option>
+            </SelectField>
+            <SelectField label="Film thickness" error={errors.filmUnit?.message} {...register("filmUnit")}>
+              {FILM_UNITS.map((u) => (
+                <option key={u} value={u}>
+                  {FILM_UNIT_LABELS[u]}
+                </option>
+              ))}
+            </SelectField>
+            <SelectField label="Gun pressure" error={errors.pressureUnit?.message} {...register("pressureUnit")}>
+              {PRESSURE_UNITS.map((u) => (
+                <option key={u} value={u}>
+                  {PRESSURE_UNIT_LABELS[u]}
+                </option>
+              ))}
+            </SelectField>
+            <SelectField label="Booth temperature" error={errors.tempUnit?.message} {...register("tempUnit")}>
+              <option value="C">°C</option>
+              <option value="F">°F</option>
+            </SelectField>
+            <SelectField label="Scale" error={errors.massUnit?.message} {...register("massUnit")}>
+              {SCALE_UNITS.map((u) => (
+                <option key={u} value={u}>
+                  {u === "g" ? "grams (g)" : "ounces (oz)"}
+                </option>
+              ))}
+            </SelectField>
             <SelectField label="Default volume unit" error={errors.defaultVolumeUnit?.message} {...register("defaultVolumeUnit")}>
               {VOLUME_UNITS.map((u) => (
                 <option key={u.value} value={u.value}>
