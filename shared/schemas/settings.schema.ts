@@ -48,6 +48,8 @@ export const shopSettingsSchema = z.object({
   /** Optional VOC mass caps from the shop's air permit, in kg. */
   vocMonthlyCapKg: z.coerce.number().positive().max(1e6).nullable().default(null),
   vocYearlyCapKg: z.coerce.number().positive().max(1e7).nullable().default(null),
+  /** Shop rule: the booth takes no colour coat until the customer has approved a test panel in the portal. */
+  requireColourSignOff: z.boolean({ error: "Must be true or false" }).default(false),
   /** The owner's dashboard warns when the free space left for the data folder falls below this many GB. */
   lowDiskWarningGb: z.coerce
     .number({ error: "Low-disk warning must be a number of GB" })
@@ -88,4 +90,5 @@ export const DEFAULT_SETTINGS: ShopSettings = {
   vocMonthlyCapKg: null,
   vocYearlyCapKg: null,
   lowDiskWarningGb: 2,
+  requireColourSignOff: false,
 };
