@@ -59,8 +59,16 @@ export const saveInspectionInputSchema = z
   .refine((v) => new Set(v.items.map((i) => i.itemId)).size === v.items.length, { path: ["items"], message: "Each item once" });
 export type SaveInspectionInput = z.input<typeof saveInspectionInputSchema>;
 
-/** POST /api/jobs/:id/inspection/prep-line: the quote (and its edit version) the suggested line goes on. */
-export const addPrepLineInputSchema = z.object({ quoteId: idSchema, editVersion: z.preprocess(fromDigits, z.number({ error: "Send the quote's editVersion" }).int().positive()) });
+/**
+ * POST /api/jobs/:id/inspection/prep-line: the quote (and its edit version) the suggested line goes on; without a
+ * quote, a job that has none gets a new draft quote with the line on it.
+ */
+export const addPrepLineInputSchema = z
+  .object({
+    quoteId: idSchema.optional(),
+    editVersion: z.preprocess(fromDigits, z.number({ error: "Send the quote's editVersion" }).int("editVersion is a whole number").positive("editVersion is positive")).optional(),
+  })
+  .refine((v) => v.quoteId === undefined || v.editVersion !== undefined, { path: ["editVersion"], message: "Send the quote's editVersion with the quote" });
 export type AddPrepLineInput = z.input<typeof addPrepLineInputSchema>;
 
 export type InspectionItemDto = {

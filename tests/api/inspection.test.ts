@@ -174,3 +174,25 @@ describe("intake inspection", () => {
     expect(s.db.select().from(uploads).where(eq(uploads.ownerType, "inspection_item")).all()).toEqual([]);
   });
 });
+
+describe("a prep line on a job without a quote", () => {
+  it("starts a draft quote with the line on it; once the job has a quote, the quote must be named", async () => {
+    const s = await makeShop();
+    await s.as("estimator").put(`/api/jobs/${s.inquiryA.id}/inspection`).send({ version: 0, items: [] });
+    const nothing = await s.as("estimator").post(`/api/jobs/${s.inquiryA.id}/inspection/prep-line`).send({});
+    expect(nothing.status).toBe(409);
+    const item = s.db.insert(jobItems).values({ jobId: s.inquiryA.id, name: "Roof", substrate: "plastic", surfaceArea: 1, areaUnit: "m2" }).returning().get();
+    await editAt(s, "estimator", `/api/jobs/${s.inquiryA.id}/inspection`, { items: [{ itemId: item.id, existingFinish: "factory_finish", solventTest: "unaffected" }] }, { method: "put" });
+    const started = await s.as("estimator").post(`/api/jobs/${s.inquiryA.id}/inspection/prep-line`).send({});
+    expect(started.status).toBe(200);
+    expect(started.body).toMatchObject({ jobId: s.inquiryA.id, status: "draft" });
+    // 1 m² of scuff, clean and mask at 1 h/m² (common practice) = 1 h.
+    expect(started.body.current.lines.filter((l: { description: string }) => l.description.startsWith("Prep found"))).toEqual([expect.objectContaining({ hours: 1 })]);
+    const named = await s.as("estimator").post(`/api/jobs/${s.inquiryA.id}/inspection/prep-line`).send({});
+    expect(named.status).toBe(400);
+    expect(named.body.error.fields).toHaveProperty("quoteId");
+    const half = await s.as("estimator").post(`/api/jobs/${s.inquiryA.id}/inspection/prep-line`).send({ quoteId: started.body.id });
+    expect(half.status).toBe(400);
+    expect(half.body.error.fields).toHaveProperty("editVersion");
+  });
+});

@@ -10,7 +10,7 @@ import { iso } from "../../http/dates";
 import { findJobFor } from "../jobs/jobs.access";
 import { photosOf } from "../uploads/uploads.service";
 import { getSettings } from "../settings/settings.service";
-import { latestVersion, updateQuote } from "../quotes/quotes.service";
+import { createQuote, latestVersion, updateQuote } from "../quotes/quotes.service";
 import { computeQuoteTotals, type QuoteLine } from "../../../shared/quote/index";
 import {
   EXISTING_FINISH_LABELS,
@@ -196,17 +196,23 @@ export function saveInspection(deps: AppDeps, ctx: RequestContext, jobId: number
  * Puts the inspection's suggested prep line on the job's quote (through the quote's own edit, so a sent quote gets a
  * new draft version and an approved one is refused). An earlier inspection line is replaced, not doubled.
  */
-export function addPrepLine(deps: AppDeps, ctx: RequestContext, jobId: number, input: { quoteId: number; editVersion: number }): QuoteDetailDto {
+export function addPrepLine(deps: AppDeps, ctx: RequestContext, jobId: number, input: { quoteId?: number; editVersion?: number }): QuoteDetailDto {
   findJobFor(deps, ctx.actor, jobId);
-  const q = deps.db.select({ id: quotes.id, jobId: quotes.jobId }).from(quotes).where(eq(quotes.id, input.quoteId)).get();
-  if (!q || q.jobId !== jobId) throw badRequest("That quote is not one of this job's", { quoteId: "Not a quote of this job" });
   const suggestion = suggestedPrepLine(deps, jobId);
   if (!suggestion) throw conflict("Save the inspection of at least one item first; the prep line comes from it", { items: "Nothing inspected yet" });
+  if (input.quoteId === undefined) {
+    const existing = deps.db.select({ id: quotes.id }).from(quotes).where(eq(quotes.jobId, jobId)).get();
+    if (existing) throw badRequest(`This job already has quote #${existing.id}; name the quote the line goes on`, { quoteId: "Name the job's quote" });
+    const created = createQuote(deps, ctx, jobId);
+    return addPrepLine(deps, ctx, jobId, { quoteId: created.id, editVersion: created.editVersion });
+  }
+  const q = deps.db.select({ id: quotes.id, jobId: quotes.jobId }).from(quotes).where(eq(quotes.id, input.quoteId)).get();
+  if (!q || q.jobId !== jobId) throw badRequest("That quote is not one of this job's", { quoteId: "Not a quote of this job" });
   const lines = [...latestVersion(deps.db, q.id)!.lines];
   const at = lines.findIndex((l) => l.description.startsWith(PREP_LINE_PREFIX));
   if (at >= 0) lines[at] = suggestion.line;
   else lines.splice(lines.filter((l) => l.kind === "labour").length, 0, suggestion.line);
-  return updateQuote(deps, ctx, q.id, { lines, editVersion: input.editVersion });
+  return updateQuote(deps, ctx, q.id, { lines, editVersion: input.editVersion! });
 }
 
 /** The inspection as the customer reads it beside the quote: findings in words, shared photos only, no notes or hours. */
