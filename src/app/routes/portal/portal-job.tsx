@@ -9,6 +9,7 @@ import { StageBadge } from "@/features/jobs/components/stage-badge";
 import { portalQueries } from "@/features/portal/api/portal.queries";
 import { PortalJobDetails } from "@/features/portal/components/portal-job-details";
 import { ApprovedColour } from "@/features/portal/components/approved-colour";
+import { PortalColourChoice } from "@/features/portal/components/portal-colour-choice";
 import { InPageNotFound } from "../in-page-not-found";
 
 /** Stages from which the job has a finish record to read. */
@@ -27,6 +28,9 @@ export default function PortalJobRoute() {
       <PortalJobDetails job={data} />
       <div className="mt-6">
         <ApprovedColour jobId={data.id} />
+      </div>
+      <div className="mt-6">
+        <PortalColourChoice jobId={data.id} />
       </div>
       {SPRAYED.includes(data.stage as Stage) ? (
         <p className="mt-6">

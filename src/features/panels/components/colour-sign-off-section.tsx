@@ -1,0 +1,90 @@
+import { useState } from "react";
+import { useForm } from "react-hook-form";
+import { Send } from "lucide-react";
+import { PANEL_SIGN_OFF_LABELS } from "@shared/domain/colour-sign-off";
+import type { JobColourDto } from "@shared/schemas/panel.schema";
+import { applyServerErrors } from "@/lib/form-errors";
+import { Alert } from "@/components/ui/alert";
+import { Button } from "@/components/ui/button";
+import { TextareaField } from "@/components/ui/form/textarea-field";
+import { toast } from "@/components/ui/toast/toast-store";
+import { formatDateTime } from "@/utils/format-date";
+import { cn } from "@/utils/cn";
+import { useSendPanels } from "../api/panels.queries";
+
+type Values = { panelIds: string[]; message: string };
+
+/**
+ * The customer's colour sign-off: pick the job's test panels to send (each goes with its photo, let-down, coats and
+ * ΔE00 to the agreed colour), then follow what the customer answered in the portal.
+ */
+export function ColourSignOffSection({ colour, canSend }: { colour: JobColourDto; canSend: boolean }) {
+  const send = useSendPanels();
+  const [problem, setProblem] = useState<string | null>(null);
+  const { register, handleSubmit, setError, reset, watch, formState } = useForm<Values>({ defaultValues: { panelIds: [], message: "" } });
+  const chosen = watch("panelIds");
+  const submit = handleSubmit(async (values) => {
+    setProblem(null);
+    if (!values.panelIds.length) {
+      setProblem("Tick at least one panel to send.");
+      return;
+    }
+    try {
+      await send.mutateAsync({ panelIds: values.panelIds.map(Number), message: values.message });
+      toast.success(values.panelIds.length === 1 ? "Panel sent to the customer" : `${values.panelIds.length} panels sent to the customer`);
+      reset();
+    } catch (error) {
+      setProblem(applyServerErrors(error, setError, ["message"]));
+    }
+  });
+  const latest = colour.signOffs.filter((s) => s.status !== "replaced");
+  return (
+    <div className="flex flex-col gap-3 border-t border-primer-200 pt-4">
+      <h3 className="text-base font-semibold text-ink-950">Customer's sign-off</h3>
+      {colour.approvedByCustomer ? (
+        <p className="text-sm font-semibold text-emerald-900">The customer approved the agreed colour in the portal.</p>
+      ) : colour.approvedPanel ? (
+        <p className="text-sm text-primer-800">The agreed colour was set in the shop; the customer has not approved a panel in the portal.</p>
+      ) : null}
+      {latest.length ? (
+        <ul className="flex flex-col gap-1 text-sm" aria-label="Panels sent to the customer">
+          {latest.map((s) => (
+            <li key={s.id} className="flex flex-wrap items-baseline gap-x-2">
+              <span className="font-semibold text-ink-950">{s.label}</span>
+              <span className={cn("rounded-full px-2 py-0.5 text-xs font-semibold", s.status === "approved" ? "bg-emerald-100 text-emerald-950" : s.status === "waiting" ? "bg-flake-100 text-flake-900" : "bg-primer-200 text-ink-950")}>
+                {PANEL_SIGN_OFF_LABELS[s.status]}
+              </span>
+              <span className="text-primer-800">
+                sent {formatDateTime(s.sentAt)}
+                {s.decidedAt && s.status === "approved" ? `; approved by ${s.decisionName} ${formatDateTime(s.decidedAt)}${s.decidedAddress ? ` from ${s.decidedAddress}` : ""}` : ""}
+              </span>
+            </li>
+          ))}
+        </ul>
+      ) : null}
+      {canSend && colour.panels.length ? (
+        <form onSubmit={submit} noValidate aria-label="Send panels to the customer" className="flex flex-col gap-3">
+          {problem ? <Alert tone="error">{problem}</Alert> : null}
+          <fieldset className="flex flex-col gap-2">
+            <legend className="mb-1 text-sm font-semibold text-ink-950">Panels to send</legend>
+            {colour.panels.map((p) => (
+              <label key={p.id} className="flex min-h-11 items-center gap-3 rounded-lg border border-primer-300 px-3 text-sm has-checked:border-candy-700 has-checked:bg-candy-50">
+                <input type="checkbox" value={String(p.id)} className="size-5" {...register("panelIds")} />
+                <span>
+                  {p.label}
+                  {p.photo ? "" : " (no photo yet)"}
+                </span>
+              </label>
+            ))}
+          </fieldset>
+          <TextareaField label="Message to the customer (optional)" rows={2} error={formState.errors.message?.message} {...register("message")} />
+          <div>
+            <Button type="submit" icon={<Send aria-hidden className="size-4" />} pending={formState.isSubmitting}>
+              {chosen.length > 1 ? `Send ${chosen.length} panels to the customer` : "Send to the customer"}
+            </Button>
+          </div>
+        </form>
+      ) : null}
+    </div>
+  );
+}
