@@ -21,6 +21,7 @@ import { applyServerErrors } from "@/lib/form-errors";
 import { useVersionGuard } from "@/hooks/use-version-guard";
 import { Alert } from "@/components/ui/alert";
 import { Button } from "@/components/ui/button";
+import { EnumOptions } from "@/components/ui/form/enum-options";
 import { FormActions } from "@/components/ui/form/form-actions";
 import { SelectField } from "@/components/ui/form/select-field";
 import { TextareaField } from "@/components/ui/form/textarea-field";
@@ -113,37 +114,21 @@ export function InspectionForm({ inspection, photos }: { inspection: InspectionD
             </p>
             <div className="grid gap-4 sm:grid-cols-2 lg:grid-cols-3">
               <SelectField label="Existing finish" error={e?.existingFinish?.message} {...register(`items.${i}.existingFinish`)}>
-                {EXISTING_FINISHES.map((f) => (
-                  <option key={f} value={f}>
-                    {EXISTING_FINISH_LABELS[f]}
-                  </option>
-                ))}
+                <EnumOptions values={EXISTING_FINISHES} labels={EXISTING_FINISH_LABELS} />
               </SelectField>
               <SelectField label="Solvent test of the existing finish" error={e?.solventTest?.message} {...register(`items.${i}.solventTest`)}>
-                {SOLVENT_TEST_RESULTS.map((r) => (
-                  <option key={r} value={r}>
-                    {SOLVENT_TEST_LABELS[r]}
-                  </option>
-                ))}
+                <EnumOptions values={SOLVENT_TEST_RESULTS} labels={SOLVENT_TEST_LABELS} />
               </SelectField>
               {FINDINGS.filter((f) => glass || !FIBREGLASS_FINDINGS.includes(f)).map((f) => (
                 <SelectField key={f} label={FINDING_LABELS[f]} error={e?.[f]?.message} {...register(`items.${i}.${f}`)}>
-                  {FINDING_LEVELS.map((l) => (
-                    <option key={l} value={l}>
-                      {FINDING_LEVEL_LABELS[l]}
-                    </option>
-                  ))}
+                  <EnumOptions values={FINDING_LEVELS} labels={FINDING_LEVEL_LABELS} />
                 </SelectField>
               ))}
               <TextField label="Hardware to remove" hint="Badges, studs, snaps… (empty for none)" error={e?.hardwareToRemove?.message} {...register(`items.${i}.hardwareToRemove`)} />
               <div className="grid grid-cols-[1fr_6rem] gap-2">
                 <TextField label="Measured area" inputMode="decimal" hint={`Empty: the job's ${item.surfaceArea} ${AREA_UNIT_LABELS[item.areaUnit]}`} error={e?.measuredArea?.message} {...register(`items.${i}.measuredArea`)} />
                 <SelectField label="Unit" error={e?.areaUnit?.message} {...register(`items.${i}.areaUnit`)}>
-                  {AREA_UNITS.map((u) => (
-                    <option key={u} value={u}>
-                      {AREA_UNIT_LABELS[u]}
-                    </option>
-                  ))}
+                  <EnumOptions values={AREA_UNITS} labels={AREA_UNIT_LABELS} />
                 </SelectField>
               </div>
             </div>
