@@ -196,3 +196,14 @@ describe("a prep line on a job without a quote", () => {
     expect(half.body.error.fields).toHaveProperty("editVersion");
   });
 });
+
+describe("measured area from a form", () => {
+  it("a unit without an area is ignored (the item's own area counts); an area without a unit is refused", async () => {
+    const s = await makeShop();
+    const ok = await s.as("estimator").put(path(s)).send({ version: 0, items: [{ itemId: s.itemA.id, existingFinish: "primer", solventTest: "not_done", measuredArea: "", areaUnit: "ft2" }] });
+    expect(ok.status).toBe(200);
+    expect(ok.body.items[0].inspection).toMatchObject({ measuredArea: null, measuredAreaUnit: null });
+    // The helmet's own 0.6 m² at 1 h/m² (common practice) → 0.6 h, up to the quarter: 0.75 h.
+    expect(ok.body.suggestion.hours).toBe(0.75);
+  });
+});

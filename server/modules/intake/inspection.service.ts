@@ -140,7 +140,8 @@ function checkItems(input: SaveInput, jobItemsById: Map<number, JobItemRow>) {
     }
     for (const f of FIBREGLASS_FINDINGS)
       if (it[f] !== "none" && !isFibreglass(item.substrate)) fields[`items.${i}.${f}`] = `${FINDING_LABELS[f]} are looked for on fibreglass items; ${item.name} is not fibreglass`;
-    if ((it.measuredArea == null) !== (it.areaUnit == null)) fields[`items.${i}.areaUnit`] = "Give the measured area with its unit, or neither";
+    // A unit alone (a form always has one picked) means nothing; an area needs its unit.
+    if (it.measuredArea != null && it.areaUnit == null) fields[`items.${i}.areaUnit`] = "Give the measured area's unit (m2 or ft2)";
   });
   if (Object.keys(fields).length) throw badRequest("Some items could not be saved", fields);
 }

@@ -116,7 +116,7 @@ export function InspectionForm({ inspection, photos }: { inspection: InspectionD
               <SelectField label="Existing finish" error={e?.existingFinish?.message} {...register(`items.${i}.existingFinish`)}>
                 <EnumOptions values={EXISTING_FINISHES} labels={EXISTING_FINISH_LABELS} />
               </SelectField>
-              <SelectField label="Solvent test of the existing finish" error={e?.solventTest?.message} {...register(`items.${i}.solventTest`)}>
+              <SelectField label="Solvent test" hint="Thinner on a rag, held on the old finish" error={e?.solventTest?.message} {...register(`items.${i}.solventTest`)}>
                 <EnumOptions values={SOLVENT_TEST_RESULTS} labels={SOLVENT_TEST_LABELS} />
               </SelectField>
               {FINDINGS.filter((f) => glass || !FIBREGLASS_FINDINGS.includes(f)).map((f) => (
