@@ -2,7 +2,7 @@ import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
 import type { Browser, Page } from "playwright-core";
 import path from "node:path";
 import sharp from "sharp";
-import { ARTEFACTS, launch, newPage, signIn, waitForQuiet } from "./browser";
+import { ARTEFACTS, launch, newPage, seriousViolations, signIn, waitForQuiet } from "./browser";
 
 /*
  * Intake and the colour sign-off in a browser, against the real product: the estimator inspects a new job's item and
@@ -71,6 +71,7 @@ describe("intake inspection and the customer's colour sign-off", () => {
     await office.page.getByRole("button", { name: /Share .* with the customer/ }).click();
     await office.page.getByRole("button", { name: /Shared .* with the customer/ }).waitFor();
     await waitForQuiet(office.page);
+    expect(await seriousViolations(office.page)).toEqual([]);
     await shot(office.page, "intake-inspection.png");
 
     await office.page.getByRole("button", { name: "Start the quote with the suggested prep line" }).click();
@@ -82,6 +83,7 @@ describe("intake inspection and the customer's colour sign-off", () => {
     );
     await waitForQuiet(office.page);
     await shot(office.page, "intake-quote-with-prep-line.png");
+    await api(office.page, `/api/quotes/${quoteId}/send`, { method: "POST", data: {} });
 
     // The shop sprays two panels for the job and sends both from the job's colour panel.
     const lighter = await panelWithPhoto(office.page, job.id, 3, { labL: 38, labA: 52, labB: 24 }, { r: 170, g: 30, b: 45 });
@@ -95,17 +97,27 @@ describe("intake inspection and the customer's colour sign-off", () => {
     await office.page.getByRole("list", { name: "Panels sent to the customer" }).getByText("Waiting for the customer").first().waitFor();
     expect(office.errors).toEqual([]);
 
-    // The customer reads the inspection with the quote, then picks the deeper panel in the portal.
+    // The customer reads the inspection with the quote (the shared photo, not the shop's note), then picks the deeper
+    // panel in the portal.
     const customer = await newPage(browser, { width: 390, height: 844 });
     await signIn(customer.page, baseUrl, "customer");
+    await customer.page.goto(`${baseUrl}/portal/quotes/${quoteId}`);
+    const found = customer.page.getByRole("region", { name: "What we found when we looked your parts over" });
+    await found.getByText("rust (minor); hardware to remove: Tank badges").waitFor();
+    await found.getByText("Surface rust by the filler neck; the badges come off and go back on.").waitFor();
+    await found.getByRole("img", { name: "Photo of Fuel tank" }).waitFor();
+    expect(await customer.page.locator("body").innerText()).not.toContain("left knee pad");
+    await waitForQuiet(customer.page);
+    await shot(customer.page, "portal-quote-inspection.png");
     await customer.page.goto(`${baseUrl}/portal/jobs/${job.id}/colour`);
     await customer.page.getByRole("heading", { name: "Choose your colour" }).waitFor();
     await waitForQuiet(customer.page);
+    expect(await seriousViolations(customer.page)).toEqual([]);
     await shot(customer.page, "portal-colour-choice.png");
     await customer.page.getByRole("radio", { name: new RegExp(deeper.label) }).check();
     await customer.page.getByLabel("Your name").fill("Tobias Wren");
     await customer.page.getByRole("button", { name: "Approve this colour" }).click();
-    await customer.page.getByText(/You approved this colour/).waitFor();
+    await customer.page.getByText(`You approved ${deeper.label} in the portal`, { exact: false }).waitFor();
     await customer.page.getByRole("region", { name: `Agreed colour of job #${job.id}` }).getByText(deeper.label).waitFor();
     await waitForQuiet(customer.page);
     await shot(customer.page, "portal-colour-approved.png");

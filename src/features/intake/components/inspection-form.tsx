@@ -125,7 +125,7 @@ export function InspectionForm({ inspection, photos }: { inspection: InspectionD
                 </SelectField>
               ))}
               <TextField label="Hardware to remove" hint="Badges, studs, snaps… (empty for none)" error={e?.hardwareToRemove?.message} {...register(`items.${i}.hardwareToRemove`)} />
-              <div className="grid grid-cols-[1fr_6rem] gap-2">
+              <div className="grid grid-cols-[minmax(0,12rem)_7rem] gap-2 sm:col-span-2 lg:col-span-2">
                 <TextField label="Measured area" inputMode="decimal" hint={`Empty: the job's ${item.surfaceArea} ${AREA_UNIT_LABELS[item.areaUnit]}`} error={e?.measuredArea?.message} {...register(`items.${i}.measuredArea`)} />
                 <SelectField label="Unit" error={e?.areaUnit?.message} {...register(`items.${i}.areaUnit`)}>
                   <EnumOptions values={AREA_UNITS} labels={AREA_UNIT_LABELS} />

@@ -51,8 +51,17 @@ export function PortalColourChoice({ jobId, token }: { jobId: number; token?: st
   const [problem, setProblem] = useState<string | null>(null);
   const { register, handleSubmit, setError, formState } = useForm<In, unknown, Out>({ resolver: zodResolver(approveQuoteInputSchema), defaultValues: { name: "", note: "" } });
   const data = colour.data;
-  if (!data || (!data.waiting.length && !data.answered.length)) return null;
+  if (!data) return null;
   const approved = data.answered.find((s) => s.status === "approved" && s.panelId === data.approvedPanelId);
+  if (!data.waiting.length) {
+    // Nothing to choose: the agreed colour is shown beside; this says when the customer approved it.
+    return approved ? (
+      <p className="flex items-center gap-2 text-sm font-semibold text-emerald-900">
+        <BadgeCheck aria-hidden className="size-5 shrink-0" />
+        You approved {approved.label} in the portal, {formatDateTime(approved.decidedAt)}.
+      </p>
+    ) : null;
+  }
   const submit = handleSubmit(async (values) => {
     setProblem(null);
     if (picked == null) {
@@ -69,44 +78,34 @@ export function PortalColourChoice({ jobId, token }: { jobId: number; token?: st
   return (
     <section aria-labelledby="colour-choice-heading" className="flex flex-col gap-4 rounded-2xl border border-primer-200 bg-white p-4 shadow-card sm:p-5">
       <h2 id="colour-choice-heading" className="text-xl font-bold text-ink-950">
-        {data.waiting.length ? "Choose your colour" : "Your colour"}
+        Choose your colour
       </h2>
-      {approved ? (
-        <div className="flex flex-col gap-2">
-          <p className="flex items-center gap-2 font-semibold text-emerald-900">
-            <BadgeCheck aria-hidden className="size-5" />
-            You approved this colour {formatDateTime(approved.decidedAt)}
-          </p>
-          <PanelFacts s={approved} />
+      {approved ? <p className="text-sm text-primer-800">You approved {approved.label} earlier; the shop has sent new panels to choose from.</p> : null}
+      <form onSubmit={submit} noValidate aria-label="Approve a colour" className="flex flex-col gap-4">
+        <p className="text-ink-900">
+          {data.waiting.length === 1 ? "The shop sprayed this test panel for you." : `The shop sprayed ${data.waiting.length} test panels for you.`} Photos on a screen never show a candy quite
+          as it is; if you can, look at the panels in daylight at the shop. The panel you approve is the colour your parts are sprayed to.
+        </p>
+        <fieldset className="flex flex-col gap-3">
+          <legend className="sr-only">Test panels</legend>
+          {data.waiting.map((s) => (
+            <label
+              key={s.id}
+              className={cn("flex cursor-pointer items-center gap-3 rounded-xl border-2 p-3", picked === s.panelId ? "border-candy-700 bg-candy-50" : "border-primer-300")}
+            >
+              <input type="radio" name="panel" value={s.panelId} checked={picked === s.panelId} onChange={() => setPicked(s.panelId)} className="size-5 shrink-0" />
+              <PanelFacts s={s} />
+            </label>
+          ))}
+        </fieldset>
+        {problem ? <Alert tone="error">{problem}</Alert> : null}
+        <TextField label="Your name" required hint="Your name here is your signature on the colour." autoComplete="name" error={formState.errors.name?.message} {...register("name")} />
+        <div>
+          <Button type="submit" size="lg" pending={formState.isSubmitting}>
+            Approve this colour
+          </Button>
         </div>
-      ) : null}
-      {data.waiting.length ? (
-        <form onSubmit={submit} noValidate aria-label="Approve a colour" className="flex flex-col gap-4">
-          <p className="text-ink-900">
-            {data.waiting.length === 1 ? "The shop sprayed this test panel for you." : `The shop sprayed ${data.waiting.length} test panels for you.`} Photos on a screen never show a candy quite
-            as it is; if you can, look at the panels in daylight at the shop. The panel you approve is the colour your parts are sprayed to.
-          </p>
-          <fieldset className="flex flex-col gap-3">
-            <legend className="sr-only">Test panels</legend>
-            {data.waiting.map((s) => (
-              <label
-                key={s.id}
-                className={cn("flex cursor-pointer items-center gap-3 rounded-xl border-2 p-3", picked === s.panelId ? "border-candy-700 bg-candy-50" : "border-primer-300")}
-              >
-                <input type="radio" name="panel" value={s.panelId} checked={picked === s.panelId} onChange={() => setPicked(s.panelId)} className="size-5 shrink-0" />
-                <PanelFacts s={s} />
-              </label>
-            ))}
-          </fieldset>
-          {problem ? <Alert tone="error">{problem}</Alert> : null}
-          <TextField label="Your name" required hint="Your name here is your signature on the colour." autoComplete="name" error={formState.errors.name?.message} {...register("name")} />
-          <div>
-            <Button type="submit" size="lg" pending={formState.isSubmitting}>
-              Approve this colour
-            </Button>
-          </div>
-        </form>
-      ) : null}
+      </form>
     </section>
   );
 }
