@@ -15,3 +15,4 @@ export * from "./tables/equipment";
 export * from "./tables/booth";
 export * from "./tables/schedule";
 export * from "./tables/intake";
+export * from "./tables/idempotency";

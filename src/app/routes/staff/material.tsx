@@ -1,3 +1,4 @@
+import { formatMinutes } from "@shared/domain/duration";
 import { useState, type ReactNode } from "react";
 import { useNavigate, useParams } from "react-router";
 import { useQuery } from "@tanstack/react-query";
@@ -95,7 +96,7 @@ function MaterialPage({ material: m }: { material: MaterialDetailDto }) {
               <Fact label="VOC, less water and exempt">{orDash(m.vocGPerL, " g/L", 0)}</Fact>
               <Fact label="Water and exempt">{orDash(m.waterExemptPct, " %", 1)}</Fact>
               <Fact label="Density">{orDash(m.densityGPerMl, " g/mL", 3)}</Fact>
-              <Fact label="Pot life">{m.potLifeMinutes == null ? "—" : `${m.potLifeMinutes} min`}</Fact>
+              <Fact label="Pot life">{m.potLifeMinutes == null ? "—" : formatMinutes(m.potLifeMinutes)}</Fact>
             </dl>
             {m.notes ? <p className="mt-5 border-t border-primer-200 pt-4 whitespace-pre-line">{m.notes}</p> : null}
           </Panel>

@@ -18,6 +18,7 @@ import { cn } from "@/utils/cn";
 import { formatDateTime } from "@/utils/format-date";
 import { formatAmount, formatNumber } from "@/utils/format-quantity";
 import { mixSheetQueries, useDeleteMixSheet, useRecordMixSheet, useVoidMixSheet } from "@/features/plans/api/mix-sheets.queries";
+import { WeighSteps } from "@/features/plans/components/weigh-steps";
 import { MIX_SHEET_PRINT_CSS, MixSheetTable, PotLife, RatioWarning, RecordMixedForm, SheetCautions } from "@/features/plans/components/mix-sheet-view";
 import { InPageNotFound } from "../in-page-not-found";
 
@@ -86,6 +87,7 @@ function MixSheetPage({ sheet }: { sheet: MixSheetDto }) {
       <section aria-label="Batch" className="flex flex-col gap-3">
         <MixSheetTable sheet={sheet} />
         <RatioWarning sheet={sheet} />
+        {sheet.status === "draft" ? <WeighSteps sheet={sheet} /> : null}
         <div className="flex flex-wrap items-center gap-x-6 gap-y-2">
           <PotLife sheet={sheet} />
           {sheet.vocGPerL != null ? (
