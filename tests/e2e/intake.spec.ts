@@ -93,6 +93,10 @@ describe("intake inspection and the customer's colour sign-off", () => {
     await send.getByLabel(lighter.label).check();
     await send.getByLabel(deeper.label).check();
     await send.getByLabel("Message to the customer (optional)").fill("Two depths of the garnet for you to choose from.");
+    await send.getByLabel("Target name").fill("Customer's sample chip");
+    await send.getByLabel("L*").fill("30");
+    await send.getByLabel("a*").fill("48");
+    await send.getByLabel("b*").fill("20");
     await send.getByRole("button", { name: "Send 2 panels to the customer" }).click();
     await office.page.getByRole("list", { name: "Panels sent to the customer" }).getByText("Waiting for the customer").first().waitFor();
     expect(office.errors).toEqual([]);
@@ -111,6 +115,8 @@ describe("intake inspection and the customer's colour sign-off", () => {
     await shot(customer.page, "portal-quote-inspection.png");
     await customer.page.goto(`${baseUrl}/portal/jobs/${job.id}/colour`);
     await customer.page.getByRole("heading", { name: "Choose your colour" }).waitFor();
+    // Each panel with its ΔE00 to the sample the shop entered (the formula is checked against Sharma et al. 2005 in the API tests).
+    await expect.poll(() => customer.page.getByText(/^ΔE00 \d+\.\d\d from Customer's sample chip$/).count()).toBe(2);
     await waitForQuiet(customer.page);
     expect(await seriousViolations(customer.page)).toEqual([]);
     await shot(customer.page, "portal-colour-choice.png");

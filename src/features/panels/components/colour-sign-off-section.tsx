@@ -3,7 +3,9 @@ import { useForm } from "react-hook-form";
 import { Send } from "lucide-react";
 import { PANEL_SIGN_OFF_LABELS } from "@shared/domain/colour-sign-off";
 import type { JobColourDto } from "@shared/schemas/panel.schema";
+import type { SendPanelsInput } from "@shared/schemas/colour-sign-off.schema";
 import { applyServerErrors } from "@/lib/form-errors";
+import { TextField } from "@/components/ui/form/text-field";
 import { Alert } from "@/components/ui/alert";
 import { Button } from "@/components/ui/button";
 import { TextareaField } from "@/components/ui/form/textarea-field";
@@ -12,7 +14,11 @@ import { formatDateTime } from "@/utils/format-date";
 import { cn } from "@/utils/cn";
 import { useSendPanels } from "../api/panels.queries";
 
-type Values = { panelIds: string[]; message: string };
+type Values = { panelIds: string[]; message: string; target: { label: string; labL: string; labA: string; labB: string } };
+const EMPTY_TARGET = { label: "", labL: "", labA: "", labB: "" };
+
+/** The target the ΔE00 is measured to: the customer's sample when anything of it is entered, else none (the server then uses the agreed panel). */
+const targetOf = (t: Values["target"]) => (Object.values(t).some((v) => v.trim()) ? (t as unknown as SendPanelsInput["target"]) : undefined);
 
 /**
  * The customer's colour sign-off: pick the job's test panels to send (each goes with its photo, let-down, coats and
@@ -21,7 +27,9 @@ type Values = { panelIds: string[]; message: string };
 export function ColourSignOffSection({ colour, canSend }: { colour: JobColourDto; canSend: boolean }) {
   const send = useSendPanels();
   const [problem, setProblem] = useState<string | null>(null);
-  const { register, handleSubmit, setError, reset, watch, formState } = useForm<Values>({ defaultValues: { panelIds: [], message: "" } });
+  const { register, handleSubmit, setError, reset, watch, formState } = useForm<Values>({
+    defaultValues: { panelIds: [], message: "", target: EMPTY_TARGET },
+  });
   const chosen = watch("panelIds");
   const submit = handleSubmit(async (values) => {
     setProblem(null);
@@ -30,11 +38,11 @@ export function ColourSignOffSection({ colour, canSend }: { colour: JobColourDto
       return;
     }
     try {
-      await send.mutateAsync({ panelIds: values.panelIds.map(Number), message: values.message });
+      await send.mutateAsync({ panelIds: values.panelIds.map(Number), message: values.message, target: targetOf(values.target) });
       toast.success(values.panelIds.length === 1 ? "Panel sent to the customer" : `${values.panelIds.length} panels sent to the customer`);
       reset();
     } catch (error) {
-      setProblem(applyServerErrors(error, setError, ["message"]));
+      setProblem(applyServerErrors(error, setError, ["message", "target.label", "target.labL", "target.labA", "target.labB"]));
     }
   });
   const latest = colour.signOffs.filter((s) => s.status !== "replaced");
@@ -78,6 +86,16 @@ export function ColourSignOffSection({ colour, canSend }: { colour: JobColourDto
             ))}
           </fieldset>
           <TextareaField label="Message to the customer (optional)" rows={2} error={formState.errors.message?.message} {...register("message")} />
+          <fieldset className="flex flex-col gap-2">
+            <legend className="mb-1 text-sm font-semibold text-ink-950">Target colour (optional)</legend>
+            <p className="text-xs text-primer-800">The customer's sample as the meter read it; each panel's ΔE00 is measured to it. Left empty, the job's agreed panel is the target when it has one.</p>
+            <div className="grid gap-2 sm:grid-cols-[minmax(0,1fr)_5rem_5rem_5rem]">
+              <TextField label="Target name" placeholder="e.g. customer's sample chip" error={formState.errors.target?.label?.message} {...register("target.label")} />
+              <TextField label="L*" inputMode="decimal" error={formState.errors.target?.labL?.message} {...register("target.labL")} />
+              <TextField label="a*" inputMode="decimal" error={formState.errors.target?.labA?.message} {...register("target.labA")} />
+              <TextField label="b*" inputMode="decimal" error={formState.errors.target?.labB?.message} {...register("target.labB")} />
+            </div>
+          </fieldset>
           <div>
             <Button type="submit" icon={<Send aria-hidden className="size-4" />} pending={formState.isSubmitting}>
               {chosen.length > 1 ? `Send ${chosen.length} panels to the customer` : "Send to the customer"}
