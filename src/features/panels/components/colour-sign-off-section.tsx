@@ -63,6 +63,7 @@ export function ColourSignOffSection({ colour, canSend }: { colour: JobColourDto
                 {PANEL_SIGN_OFF_LABELS[s.status]}
               </span>
               <span className="text-primer-800">
+                {s.deltaE != null && s.targetLabel ? `ΔE00 ${s.deltaE.toFixed(2)} to ${s.targetLabel}; ` : ""}
                 sent {formatDateTime(s.sentAt)}
                 {s.decidedAt && s.status === "approved" ? `; approved by ${s.decisionName} ${formatDateTime(s.decidedAt)}${s.decidedAddress ? ` from ${s.decidedAddress}` : ""}` : ""}
               </span>
