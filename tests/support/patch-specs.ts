@@ -98,6 +98,8 @@ export const PATCH_SPECS: Record<string, PatchSpec> = {
       vocMonthlyCapKg: one("vocMonthlyCapKg", fc.option(decimal(1, 1000), { nil: null })),
       vocYearlyCapKg: one("vocYearlyCapKg", fc.option(decimal(1, 10000), { nil: null })),
       lowDiskWarningGb: one("lowDiskWarningGb", decimal(0, 1000)),
+      ratioTolerancePct: one("ratioTolerancePct", decimal(0.1, 20)),
+      requireColourSignOff: one("requireColourSignOff", bool),
     },
   },
   "PATCH /api/customers/:id": {
