@@ -136,6 +136,9 @@ export type MixSheetDto = {
   total: number;
   totalMl: number;
   vocGPerL: number | null;
+  /** The shop's VOC limit for the layer's category (null: none entered), and whether this batch is over it. */
+  vocLimitGPerL: number | null;
+  vocOverLimit: boolean;
   potLifeMinutes: number | null;
   potLifeEndsAt: string | null;
   mixedAt: string | null;

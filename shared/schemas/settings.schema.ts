@@ -75,7 +75,7 @@ export const updateShopSettingsSchema = patchSchemaOf(shopSettingsSchema).extend
 export type UpdateShopSettings = z.input<typeof updateShopSettingsSchema>;
 
 /** What any signed-in user may read: no money. */
-export type PublicShopSettings = Pick<ShopSettings, "shopName" | "shopAddress" | "shopPhone" | "shopEmail" | "defaultVolumeUnit" | "defaultAreaUnit" | "deltaEMatch" | "deltaEClose" | "ratioTolerancePct">;
+export type PublicShopSettings = Pick<ShopSettings, "shopName" | "shopAddress" | "shopPhone" | "shopEmail" | "defaultVolumeUnit" | "defaultAreaUnit" | "deltaEMatch" | "deltaEClose" | "ratioTolerancePct" | "vocLimits">;
 
 export const DEFAULT_SETTINGS: ShopSettings = {
   shopName: "My custom paint shop",

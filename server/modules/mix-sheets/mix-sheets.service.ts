@@ -26,6 +26,8 @@ import {
 } from "../../../shared/mix/index";
 import { toMixComponents } from "../../../shared/domain/layer-mix";
 import { mixComponentWords } from "../../../shared/domain/mix-words";
+import { vocAgainstLimit } from "../../../shared/domain/voc-limits";
+import type { LayerKind } from "../../../shared/domain/layers";
 import { centsPerMl, mlToPurchaseUnit } from "../../../shared/domain/material-units";
 import { cautionsFor } from "../../../shared/domain/safety";
 import type {
@@ -242,6 +244,7 @@ function sheetDto(deps: AppDeps, actor: Actor, sheet: SheetRow): MixSheetDto {
     return line;
   });
   const mixedAt = sheet.mixedAt;
+  const vocGPerL = sheet.vocGPerL ?? draftVoc(rows.map((r) => ({ ml: r.l.plannedMl, voc: r.m.vocGPerL, we: r.m.waterExemptPct })));
   const dto: MixSheetDto = {
     id: sheet.id,
     jobId: sheet.jobId,
@@ -272,7 +275,8 @@ function sheetDto(deps: AppDeps, actor: Actor, sheet: SheetRow): MixSheetDto {
     roundedTotal: rounded?.roundedTotal ?? null,
     total: mixLines.reduce((a, l) => a + l.volume, 0),
     totalMl: sheet.totalMl,
-    vocGPerL: sheet.vocGPerL ?? draftVoc(rows.map((r) => ({ ml: r.l.plannedMl, voc: r.m.vocGPerL, we: r.m.waterExemptPct }))),
+    vocGPerL,
+    ...vocLimitOf(deps, head.layerKind, vocGPerL),
     potLifeMinutes: sheet.potLifeMinutes,
     potLifeEndsAt: mixedAt != null && sheet.potLifeMinutes ? potLifeEnds(new Date(mixedAt), sheet.potLifeMinutes).toISOString() : null,
     mixedAt: isoOrNull(mixedAt),
@@ -287,6 +291,12 @@ function sheetDto(deps: AppDeps, actor: Actor, sheet: SheetRow): MixSheetDto {
   };
   if (office) dto.totalCostCents = sheet.status === "draft" ? null : lines.reduce((a, l) => a + (l.costCents ?? 0), 0);
   return dto;
+}
+
+/** The batch's VOC against the shop's limit for the layer's category: warned on the sheet before mixing. */
+function vocLimitOf(deps: AppDeps, kind: LayerKind, vocGPerL: number | null) {
+  const check = vocAgainstLimit(kind, vocGPerL, getSettings(deps).vocLimits);
+  return { vocLimitGPerL: check.limitGPerL, vocOverLimit: check.over };
 }
 
 /** The expected VOC of a draft from the catalogue's figures (null when a material has none). */

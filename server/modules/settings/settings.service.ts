@@ -39,6 +39,7 @@ export function getPublicSettings(deps: Pick<AppDeps, "db">): PublicShopSettings
     deltaEMatch: s.deltaEMatch,
     deltaEClose: s.deltaEClose,
     ratioTolerancePct: s.ratioTolerancePct,
+    vocLimits: s.vocLimits,
   };
 }
 

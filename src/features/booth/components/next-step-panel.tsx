@@ -3,6 +3,7 @@ import { useState, type ChangeEvent, type FormEvent } from "react";
 import { Link } from "react-router";
 import { CheckCircle2, PaintBucket, TriangleAlert } from "lucide-react";
 import { LAYER_KIND_LABELS } from "@shared/domain/layers";
+import { vocWarning } from "@shared/domain/voc-limits";
 import type { BoothDto } from "@shared/schemas/booth.schema";
 import { isApiError } from "@/lib/api-client";
 import { Alert } from "@/components/ui/alert";
@@ -18,6 +19,7 @@ import { formatMinutes } from "../hooks/use-server-now";
 import { ConditionInput } from "./condition-input";
 import { setupPrefill, SpraySetupPanel } from "./spray-setup-fields";
 import { formatClock, PotLifeTimer, StepTimer } from "./booth-timers";
+import { breachesAt, TimingWindowTimers } from "./timing-windows";
 
 
 /** The top of the booth card: what to spray next in large type, its timers and cautions, and the one-tap log. */
@@ -95,7 +97,13 @@ export function NextStepPanel({ card, now, prepPath }: { card: BoothDto; now: nu
             <div className={cn("grid gap-3", batch ? "@[40rem]/next:grid-cols-2 @[52rem]/next:grid-cols-1" : "")}>
               <StepTimer timer={next.timer} now={now} nextLabel={nextLabel} />
               {batch ? <PotLifeTimer endsAt={batch.potLifeEndsAt} mixedAt={batch.mixedAt} now={now} /> : null}
+              <TimingWindowTimers card={card} now={now} />
             </div>
+            {current?.vocOverLimit && current.vocGPerL != null && current.vocLimitGPerL != null ? (
+              <Alert tone="error" title="VOC over the shop's limit">
+                {vocWarning(current.kind, current.vocGPerL, current.vocLimitGPerL)}
+              </Alert>
+            ) : null}
             {!batch && current && current.components.length > 0 ? (
               <Alert tone="warning" title="No batch recorded as mixed for this layer">
                 Mix it from the mix sheet first, so the pot life is timed and the batch is on the record.
@@ -104,7 +112,7 @@ export function NextStepPanel({ card, now, prepPath }: { card: BoothDto; now: nu
           </div>
         </div>
         {card.canLog ? (
-          <LogCoatForm key={`${next.layerId}-${next.coat}`} card={card} prepPath={prepPath} />
+          <LogCoatForm key={`${next.layerId}-${next.coat}`} card={card} now={now} prepPath={prepPath} />
         ) : (
           <Alert tone="info" title="Read only">
             Coats are logged by the job&apos;s painter or the owner.
@@ -115,13 +123,16 @@ export function NextStepPanel({ card, now, prepPath }: { card: BoothDto; now: nu
   );
 }
 
-function LogCoatForm({ card, prepPath }: { card: BoothDto; prepPath: string }) {
+function LogCoatForm({ card, now, prepPath }: { card: BoothDto; now: number; prepPath: string }) {
   const next = card.next;
   if (next.state !== "spray") throw new Error("LogCoatForm needs a coat to log");
   const log = useLogCoat(card.job.id);
   const [problem, setProblem] = useState<string | null>(null);
   const needsOverride = next.isFirstCoatOfJob && !card.prepReady;
   const [overriding, setOverriding] = useState(false);
+  // Too early (flash, dry, induction), too late (recoat window) or no 2K batch: the painter waits, or says why not.
+  const breaches = breachesAt(card, now);
+  const [overridingTiming, setOverridingTiming] = useState(false);
   const [noting, setNoting] = useState(false);
   const last = card.lastConditions;
   const [setup] = useState(() => setupPrefill(card, next.layerId, next.layerKind));
@@ -133,6 +144,7 @@ function LogCoatForm({ card, prepPath }: { card: BoothDto; prepPath: string }) {
       humidityPct: last?.humidityPct != null ? String(last.humidityPct) : "",
       note: "",
       prepOverrideReason: "",
+      timingOverrideReason: "",
       ...setup.fields,
     },
   );
@@ -163,17 +175,22 @@ function LogCoatForm({ card, prepPath }: { card: BoothDto; prepPath: string }) {
     try {
       const { jobId: _jobId, ...rest } = parsed;
       // No toast here: it would cover the log button. The "last logged" line below the button confirms it.
-      await log.mutateAsync({ ...rest, prepOverrideReason: needsOverride ? rest.prepOverrideReason : undefined });
+      await log.mutateAsync({
+        ...rest,
+        prepOverrideReason: needsOverride ? rest.prepOverrideReason : undefined,
+        timingOverrideReason: overridingTiming ? rest.timingOverrideReason : undefined,
+      });
       set("note", "");
       setNoting(false);
     } catch (error) {
       if (isApiError(error) && error.fields.prepOverrideReason) setOverriding(true);
+      if (isApiError(error) && error.fields.timingOverrideReason) setOverridingTiming(true);
       setProblem(form.showServerErrors(error));
     } finally {
       setSubmitting(false);
     }
   };
-  const field = <K extends "boothTemp" | "humidityPct" | "note" | "prepOverrideReason">(name: K) => ({
+  const field = <K extends "boothTemp" | "humidityPct" | "note" | "prepOverrideReason" | "timingOverrideReason">(name: K) => ({
     name,
     value: values[name],
     onChange: (e: ChangeEvent<HTMLInputElement | HTMLTextAreaElement>) => set(name, e.target.value),
@@ -212,6 +229,31 @@ function LogCoatForm({ card, prepPath }: { card: BoothDto; prepPath: string }) {
           className="text-lg"
           error={errors.prepOverrideReason}
           {...field("prepOverrideReason")}
+        />
+      ) : null}
+      {breaches.length > 0 ? (
+        <Alert tone="warning" title={breaches.length === 1 ? "Not yet: a timing rule" : "Not yet: timing rules"}>
+          <ul className="flex flex-col gap-1 text-base" aria-label="Timing rules the next coat would break">
+            {breaches.map((b) => (
+              <li key={b.rule}>{b.message}.</li>
+            ))}
+          </ul>
+          {!overridingTiming ? (
+            <Button variant="secondary" size="lg" className="mt-3" icon={<TriangleAlert aria-hidden className="size-5" />} onClick={() => setOverridingTiming(true)}>
+              Spray anyway…
+            </Button>
+          ) : null}
+        </Alert>
+      ) : null}
+      {overridingTiming ? (
+        <TextareaField
+          label="Reason for going ahead against the timing rule"
+          hint="Kept on the coat's record, flagged on the job page and the finish record."
+          required
+          rows={2}
+          className="text-lg"
+          error={errors.timingOverrideReason}
+          {...field("timingOverrideReason")}
         />
       ) : null}
       <div className="grid gap-4 @[44rem]:grid-cols-2">

@@ -15,7 +15,7 @@ const PRINT_CSS = `@media print {
 }`;
 
 const ml = (n: number | null) => (n == null ? "—" : `${Number(n.toFixed(1))} mL`);
-const RULES: Record<FinishCoatDto["overrides"][number]["rule"], string> = { prep: "Sprayed before prep sign-off", timing: "Timing rule passed", change: "Change not yet approved" };
+const RULES: Record<FinishCoatDto["overrides"][number]["rule"], string> = { prep: "Sprayed before prep sign-off", timing: "Sprayed against a timing rule", change: "Change not yet approved" };
 
 
 /**

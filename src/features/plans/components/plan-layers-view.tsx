@@ -1,7 +1,9 @@
 import type { ReactNode } from "react";
+import { cn } from "@/utils/cn";
 import { Link } from "react-router";
 import { LAYER_KIND_LABELS } from "@shared/domain/layers";
 import { formatCents } from "@shared/quote/money";
+import { VocOverLimit } from "./layer-voc-note";
 import type { LayerEstimateDto, PlanEstimateDto, PlanLayerDto } from "@shared/schemas/plan.schema";
 import type { VolumeUnit } from "@shared/mix/index";
 import { mixSentence } from "@shared/domain/mix-words";
@@ -65,6 +67,12 @@ export function PlanLayersView({
                   </>
                 )}
                 <Fact label="Dry before next">{formatMinutes(l.dryMinutes)}</Fact>
+                {l.inductionMinutes ? <Fact label="Induction">{formatMinutes(l.inductionMinutes)}</Fact> : null}
+                {l.recoatMinMinutes != null || l.recoatMaxMinutes != null ? (
+                  <Fact label="Recoat window">
+                    {formatMinutes(l.recoatMinMinutes ?? 0)} to {l.recoatMaxMinutes != null ? formatMinutes(l.recoatMaxMinutes) : "any time"}
+                  </Fact>
+                ) : null}
                 {l.kind !== "prep" && l.gunTip ? <Fact label="Gun tip">{l.gunTip}</Fact> : null}
                 {l.kind !== "prep" && l.pressurePsi != null ? <Fact label="Pressure">{formatNumber(l.pressurePsi, 1)} psi</Fact> : null}
                 {l.kind !== "prep" && l.overlapPct != null ? <Fact label="Overlap">{formatNumber(l.overlapPct, 0)} %</Fact> : null}
@@ -85,6 +93,7 @@ export function PlanLayersView({
                 {e?.costCents != null && e.volumeMl > 0 ? <Fact label="Material cost">{formatCents(e.costCents)}</Fact> : null}
               </dl>
               <div className="flex flex-col gap-2">
+                {e?.vocOverLimit && e.vocGPerL != null && e.vocLimitGPerL != null ? <VocOverLimit kind={l.kind} gPerL={e.vocGPerL} limitGPerL={e.vocLimitGPerL} /> : null}
                 {l.components.length ? (
                   <ul className="text-sm">
                     {l.components.map((c) => (
@@ -140,7 +149,10 @@ export function EstimateTable({ estimate, unit = "mL" }: { estimate: PlanEstimat
                 {l.problem ? <span className="block text-xs font-normal text-flake-800">{l.problem}</span> : null}
               </th>
               <td className="px-3 py-2 text-right tabular-nums">{l.volumeMl > 0 ? formatVolume(l.volumeMl, unit) : "—"}</td>
-              <td className="px-3 py-2 text-right tabular-nums">{l.vocGPerL == null ? "—" : formatNumber(l.vocGPerL, 0)}</td>
+              <td className={cn("px-3 py-2 text-right tabular-nums", l.vocOverLimit && "font-semibold text-red-800")}>
+                {l.vocGPerL == null ? "—" : formatNumber(l.vocGPerL, 0)}
+                {l.vocOverLimit ? <span className="block text-xs">over the {formatNumber(l.vocLimitGPerL ?? 0, 0)} g/L limit</span> : null}
+              </td>
               {showCost ? <td className="px-3 py-2 text-right tabular-nums">{l.volumeMl > 0 && l.costCents != null ? formatCents(l.costCents) : "—"}</td> : null}
             </tr>
           ))}
