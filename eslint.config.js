@@ -13,6 +13,7 @@ import tseslint from "typescript-eslint";
 const CROSS_FEATURE = {
   booth: ["uploads"], // the booth card's photo button
   "finish-record": ["customers", "jobs", "plans"], // the repeat dialog picks a customer; a repeat refreshes jobs and plans
+  intake: ["quotes"], // adding the inspection's prep line refreshes the job's quotes
   panels: ["guns", "materials", "plans"], // the panel form picks a gun, a ground and a plan layer
   plans: ["materials"], // mix sheets read the catalogue
   portal: ["jobs", "panels"], // the customer's job card shows the stage and the approved panel

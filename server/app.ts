@@ -44,6 +44,8 @@ import { paymentsRouter } from "./modules/payments/payments.router";
 import { boothsRouter, scheduleRouter } from "./modules/schedule/schedule.router";
 import { gunsRouter } from "./modules/guns/guns.router";
 import { finishRecordRouter } from "./modules/finish-record/finish-record.router";
+import { inspectionRouter } from "./modules/intake/inspection.router";
+import { panelSendRouter, portalColourRouter } from "./modules/intake/colour-sign-off.router";
 
 export type CreateAppOptions = {
   db: Db;
@@ -169,6 +171,9 @@ export function createApp(options: CreateAppOptions) {
     ["/booths", boothsRouter(deps)],
     ["/schedule", scheduleRouter(deps)],
     ["/jobs", finishRecordRouter(deps)],
+    ["/jobs", inspectionRouter(deps)],
+    ["/panels", panelSendRouter(deps)],
+    ["/portal", portalColourRouter(deps)],
   ];
   for (const [prefix, router] of mounts) api.use(prefix, router);
   api.use(notFoundHandler);

@@ -14,4 +14,5 @@ export * from "./tables/payments";
 export * from "./tables/equipment";
 export * from "./tables/booth";
 export * from "./tables/schedule";
+export * from "./tables/intake";
 export * from "./tables/idempotency";

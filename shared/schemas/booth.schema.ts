@@ -192,6 +192,8 @@ export type BoothDto = {
     assignedPainterName: string | null;
     /** The agreed colour, with the set-up it was sprayed with: the target the booth card shows and prefills. */
     approvedPanel: { id: number; label: string; thumbUrl: string | null; planLayerId: number | null; setup: SpraySetupDto } | null;
+    /** The shop requires the customer's approval of a test panel before the first colour coat, and it has not come yet. */
+    colourWaitsForCustomer: boolean;
   };
   /** Whether this user may log coats here (painters on their jobs and the owner; estimators read only). */
   canLog: boolean;

@@ -4,6 +4,7 @@ import { idSchema, isoDateSchema, optionalText, requiredText, versionSchema } fr
 import { pageQuerySchema } from "../api/pagination";
 import { optionalNumber } from "./prep.schema";
 import type { UploadDto } from "./upload.schema";
+import type { PanelSignOffDto } from "./colour-sign-off.schema";
 import { checkSetup, spraySetupFields, type SpraySetupDto } from "./spray-setup.schema";
 import { ILLUMINANTS, PANEL_LIGHTS, type Illuminant, type PanelLight } from "../domain/spray-setup";
 import { TEMP_UNITS, type TempUnit } from "../domain/booth";
@@ -218,4 +219,8 @@ export type JobColourDto = {
   approvedPanel: PanelDto | null;
   panels: PanelDto[];
   thresholds: { deltaEMatch: number; deltaEClose: number };
+  /** The agreed colour is a panel the customer approved in the portal (not only marked by the shop). */
+  approvedByCustomer: boolean;
+  /** Panels sent to the customer to approve, newest first. */
+  signOffs: PanelSignOffDto[];
 };

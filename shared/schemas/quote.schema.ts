@@ -2,6 +2,7 @@ import { z } from "zod";
 import { fromDigits, idSchema, isoDateSchema, optionalText, requiredText, versionSchema } from "./common.schema";
 import { pageQuerySchema, sortSchema } from "../api/pagination";
 import { hasAtMostDecimals } from "../quote/money";
+import type { PortalInspectionDto } from "./inspection.schema";
 import { QUOTE_LINE_KINDS, TAXABLE_KINDS, type QuoteLine, type QuoteLineKind, type QuoteTotals, type TaxableKind, type TaxRounding } from "../quote/totals";
 
 /** What a quote shows as its status. `expired` is never stored: a sent quote past its valid-until date reads as expired. */
@@ -246,6 +247,8 @@ export type PortalQuoteDto = {
   paymentUnderReview: boolean;
   canDecide: boolean;
   canPay: boolean;
+  /** The intake inspection the quote was made from (findings and shared photos), when the shop did one. */
+  inspection: PortalInspectionDto | null;
 };
 
 export type PortalPhotoDto = { id: number; caption: string | null; url: string; thumbUrl: string; takenAt: string };

@@ -56,6 +56,8 @@ export const shopSettingsSchema = z.object({
   /** Optional VOC mass caps from the shop's air permit, in kg. */
   vocMonthlyCapKg: z.coerce.number().positive().max(1e6).nullable().default(null),
   vocYearlyCapKg: z.coerce.number().positive().max(1e7).nullable().default(null),
+  /** Shop rule: the booth takes no colour coat until the customer has approved a test panel in the portal. */
+  requireColourSignOff: z.boolean({ error: "Must be true or false" }).default(false),
   /**
    * Rounding a mix to a cup or scale step may move a component's ratio; a move beyond this (in %) is named on
    * the mix sheet and the booth card (2 % by default, common practice for catalysed mixes).
@@ -109,5 +111,6 @@ export const DEFAULT_SETTINGS: ShopSettings = {
   vocMonthlyCapKg: null,
   vocYearlyCapKg: null,
   lowDiskWarningGb: 2,
+  requireColourSignOff: false,
   ratioTolerancePct: 2,
 };

@@ -2,10 +2,10 @@ import { z } from "zod";
 import { idSchema, optionalText, versionSchema } from "./common.schema";
 import { PANEL_LIGHTS, type PanelLight } from "../domain/spray-setup";
 
-/** What an upload belongs to. Photos go on jobs, items, prep records, coat logs and test panels; data sheets on materials. */
-export const UPLOAD_OWNER_TYPES = ["job", "job_item", "prep_record", "coat_log", "panel", "material"] as const;
+/** What an upload belongs to. Photos go on jobs, items, prep records, coat logs, test panels and inspected items; data sheets on materials. */
+export const UPLOAD_OWNER_TYPES = ["job", "job_item", "prep_record", "coat_log", "panel", "inspection_item", "material"] as const;
 export type UploadOwnerType = (typeof UPLOAD_OWNER_TYPES)[number];
-export const PHOTO_OWNER_TYPES = ["job", "job_item", "prep_record", "coat_log", "panel"] as const satisfies readonly UploadOwnerType[];
+export const PHOTO_OWNER_TYPES = ["job", "job_item", "prep_record", "coat_log", "panel", "inspection_item"] as const satisfies readonly UploadOwnerType[];
 
 export const UPLOAD_KINDS = ["photo", "tds", "sds"] as const;
 export type UploadKind = (typeof UPLOAD_KINDS)[number];

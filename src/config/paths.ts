@@ -29,6 +29,7 @@ export const paths = {
   boothIndex: "/booth",
   booth: (jobId: number) => `/booth/${jobId}`,
   jobPrep: (jobId: number) => `/jobs/${jobId}/prep`,
+  jobInspection: (jobId: number) => `/jobs/${jobId}/inspection`,
   jobTicket: (jobId: number) => `/jobs/${jobId}/ticket`,
   jobFinishRecord: (jobId: number) => `/jobs/${jobId}/finish-record`,
   panels: "/panels",
@@ -49,6 +50,7 @@ export const paths = {
   portalQuotes: "/portal/quotes",
   portalQuote: (id: number) => `/portal/quotes/${id}`,
   portalJob: (id: number) => `/portal/jobs/${id}`,
+  portalJobColour: (id: number) => `/portal/jobs/${id}/colour`,
   portalFinishRecord: (id: number) => `/portal/jobs/${id}/finish-record`,
   portalLink: (token: string) => `/portal/link/${token}`,
 } as const;

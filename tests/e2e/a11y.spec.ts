@@ -70,15 +70,18 @@ async function demoIds() {
   const myJobs = (await getJson<{ items: { id: number; title: string; stage: string; photos: unknown[] }[] }>(cust, "/api/portal/jobs")).items;
   const myJob = myJobs.find((j) => j.photos.length > 0) ?? myJobs[0]!;
   const mySprayedJob = myJobs.find((j) => ["in_booth", "curing", "finishing", "ready", "delivered"].includes(j.stage))!;
+  // The demo customer's hood scoop: inspected at intake, its colour approved in the portal.
+  const inspected = myJobs.find((j) => j.title.startsWith("Hot-rod hood scoop"))!;
+  const inspectedQuote = myQuotes.find((q) => q.jobTitle === inspected?.title)!;
   const delivered = (await getJson<{ items: { id: number; title: string }[] }>(owner, "/api/jobs?stage=delivered&pageSize=5")).items[0]!;
   // The signed link the quote e-mail carries (quotes.spec.ts follows one from a real e-mail), minted with the server's secret.
   const secret = loadAppSecret(process.env.APP_SECRET, path.join(dataDir, "secret"));
   const linkToken = signQuoteLink(secret, openQuote.id, Date.now() + 7 * 86_400_000);
 
-  for (const [what, v] of Object.entries({ customer, material, plan, boothJob, sheet, draft, openQuote, myJob, mySprayedJob, delivered, version: versions[0] }))
+  for (const [what, v] of Object.entries({ customer, material, plan, boothJob, sheet, draft, openQuote, myJob, mySprayedJob, delivered, inspected, inspectedQuote, version: versions[0] }))
     expect(v, `demo data has a ${what}`).toBeTruthy();
   expect(measured.length, "demo panels with meter readings").toBeGreaterThanOrEqual(2);
-  return { customer, material, plan, version: versions[0]!, panel: measured[0]!, compare: measured.slice(0, 3).map((p) => p.id), draft, boothJob, jobPlan, sheet, openQuote, myJob, mySprayedJob, delivered, linkToken };
+  return { customer, material, plan, version: versions[0]!, panel: measured[0]!, compare: measured.slice(0, 3).map((p) => p.id), draft, boothJob, jobPlan, sheet, openQuote, myJob, mySprayedJob, delivered, inspected, inspectedQuote, linkToken };
 }
 
 type Screen = {
@@ -105,6 +108,7 @@ const SCREENS: Screen[] = [
   { role: "owner", name: "jobs", url: () => "/jobs", heading: exact("Jobs") },
   { role: "owner", name: "new job", url: () => "/jobs/new", heading: exact("New job") },
   { role: "owner", name: "job", url: (i) => `/jobs/${i.boothJob.id}`, heading: (i) => i.boothJob.title },
+  { role: "owner", name: "intake inspection", url: (i) => `/jobs/${i.inspected.id}/inspection`, heading: (i) => `Intake inspection: ${i.inspected.title}` },
   { role: "owner", name: "job's finish plan", url: (i) => `/jobs/${i.boothJob.id}/plan`, heading: (i) => i.jobPlan.name },
   { role: "owner", name: "finish record", url: (i) => `/jobs/${i.delivered.id}/finish-record`, heading: (i) => i.delivered.title },
   { role: "owner", name: "booth schedule", url: () => "/schedule", heading: exact("Booth schedule") },
@@ -151,6 +155,8 @@ const SCREENS: Screen[] = [
   { role: "customer", name: "job", url: (i) => `/portal/jobs/${i.myJob.id}`, heading: (i) => i.myJob.title },
   { role: "customer", name: "finish record of my job", url: (i) => `/portal/jobs/${i.mySprayedJob.id}/finish-record`, heading: (i) => i.mySprayedJob.title },
   { role: "customer", name: "my quotes", url: () => "/portal/quotes", heading: exact("My quotes") },
+  { role: "customer", name: "quote with the intake inspection", url: (i) => `/portal/quotes/${i.inspectedQuote.id}`, heading: (i) => i.inspectedQuote.jobTitle },
+  { role: "customer", name: "job colour, approved in the portal", url: (i) => `/portal/jobs/${i.inspected.id}/colour`, heading: (i) => i.inspected.title, viewport: PHONE },
   { role: "customer", name: "quote awaiting an answer", url: (i) => `/portal/quotes/${i.openQuote.id}`, heading: (i) => i.openQuote.jobTitle },
   { role: "customer", name: "account", url: () => "/portal/account", heading: exact("Account") },
 ];

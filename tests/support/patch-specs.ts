@@ -106,6 +106,7 @@ export const PATCH_SPECS: Record<string, PatchSpec> = {
       pressureUnit: one("pressureUnit", fc.constantFrom(...PRESSURE_UNITS)),
       tempUnit: one("tempUnit", fc.constantFrom(...TEMP_UNITS)),
       massUnit: one("massUnit", fc.constantFrom(...SCALE_UNITS)),
+      requireColourSignOff: one("requireColourSignOff", bool),
     },
   },
   "PATCH /api/customers/:id": {

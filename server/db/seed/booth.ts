@@ -49,7 +49,7 @@ function panelColour(ground: Rgb, absorb: Rgb, coats: number, clear: number, ton
 }
 
 /** sRGB 0–255 for a Lab reading (for the swatch photo). */
-function swatchRgb(lab: { L: number; a: number; b: number }) {
+export function swatchRgb(lab: { L: number; a: number; b: number }) {
   const c = toRgb({ mode: "lab65", l: lab.L, a: lab.a, b: lab.b });
   const ch = (v: number) => Math.max(0, Math.min(255, Math.round(v * 255)));
   return { r: ch(c.r), g: ch(c.g), b: ch(c.b) };
@@ -71,9 +71,9 @@ async function photo(ctx: SeedContext, rgb: { r: number; g: number; b: number },
   return storeFile(ctx.uploadsDir, { buffer, size: buffer.length, originalname: name } as Express.Multer.File, "photo");
 }
 
-async function addPhoto(
+export async function addPhoto(
   ctx: SeedContext,
-  owner: { ownerType: "job" | "prep_record" | "panel"; ownerId: number; jobId: number | null },
+  owner: { ownerType: "job" | "prep_record" | "panel" | "inspection_item"; ownerId: number; jobId: number | null },
   rgb: { r: number; g: number; b: number },
   name: string,
   extra: { caption?: string; shareable?: boolean; by?: string | null; at: number; light?: PanelLight },

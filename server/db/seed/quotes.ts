@@ -2,6 +2,7 @@ import { and, asc, eq } from "drizzle-orm";
 import { customers, jobItems, jobMessages, jobStageEvents, payments, quoteVersions, quotes, refunds } from "../schema";
 import { getSettings } from "../../modules/settings/settings.service";
 import { planForQuote } from "../../modules/quotes/quote-plan";
+import { suggestedPrepLine } from "../../modules/intake/inspection.service";
 import { computeQuoteTotals, formatCents, type QuoteLine } from "../../../shared/quote/index";
 import type { Stage } from "../../../shared/domain/stages";
 import type { SeedContext } from "./core";
@@ -56,9 +57,12 @@ export function seedQuotes(ctx: SeedContext) {
           { kind: "materials", description: "Sealer, ground coat and colour materials", costCents: Math.round(6000 + area * 9000), markupPercent: s.materialsMarkupPercent },
           { kind: "materials", description: "2K urethane clear with hardener and reducer", costCents: Math.round(3000 + area * 5000), markupPercent: s.materialsMarkupPercent },
         ];
+    // A job inspected at intake carries the prep line its inspection suggests.
+    const prep = suggestedPrepLine({ db }, jobId);
     return {
       lines: [
         ...labourLines(items.length, area, s.labourRateCents),
+        ...(prep ? [prep.line] : []),
         ...materials,
         { kind: "supplies", description: "Shop supplies (abrasives, masking, solvents)", basis: "percent", percent: s.shopSuppliesPercent },
       ],

@@ -11,7 +11,7 @@ export const uploads = sqliteTable(
   "uploads",
   {
     id: integer("id").primaryKey({ autoIncrement: true }),
-    ownerType: text("owner_type", { enum: ["material", "job", "job_item", "prep_record", "coat_log", "panel"] }).notNull(),
+    ownerType: text("owner_type", { enum: ["material", "job", "job_item", "prep_record", "coat_log", "panel", "inspection_item"] }).notNull(),
     ownerId: integer("owner_id").notNull(),
     jobId: integer("job_id").references(() => jobs.id, { onDelete: "cascade" }),
     /** tds = technical data sheet, sds = safety data sheet, photo. */

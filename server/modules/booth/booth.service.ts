@@ -21,6 +21,8 @@ import { layerVoc } from "../plans/plan-estimate.service";
 import { getSettings } from "../settings/settings.service";
 import { vocAgainstLimit } from "../../../shared/domain/voc-limits";
 import { coatCount, effectiveCoats, nextBoothStep, type TempUnit } from "../../../shared/domain/booth";
+import { customerApprovedColour } from "../intake/sign-off-rows";
+import { COLOUR_LAYER_KINDS, COLOUR_SIGN_OFF_RULE } from "../../../shared/domain/colour-sign-off";
 import { needsAdhesionPromoter } from "../../../shared/domain/substrates";
 import { STAGE_LABELS, type Stage } from "../../../shared/domain/stages";
 import type {
@@ -101,6 +103,17 @@ const panelPhotoQuery = preparedQuery((db) =>
     .limit(1)
     .prepare(),
 );
+
+/**
+ * Whether the shop's colour rule holds the booth: the setting is on, no colour coat is on yet, and the job's agreed
+ * colour is not a panel the customer approved in the portal.
+ */
+function colourWaits(deps: AppDeps, job: JobRow, layers: BoothLayerDto[]): boolean {
+  if (!getSettings(deps).requireColourSignOff) return false;
+  const colour = layers.filter((l) => COLOUR_LAYER_KINDS.includes(l.kind));
+  if (!colour.length || colour.some((l) => l.coatsDone > 0)) return false;
+  return !customerApprovedColour(deps, job);
+}
 
 /** Everything the booth card shows, in one response; computed from stored times only. No money anywhere. */
 export function getBooth(deps: AppDeps, actor: Actor, jobId: number): BoothDto {
@@ -220,6 +233,7 @@ export function getBooth(deps: AppDeps, actor: Actor, jobId: number): BoothDto {
       dueDate: job.dueDate,
       assignedPainterName: head.painterName,
       approvedPanel,
+      colourWaitsForCustomer: colourWaits(deps, job, layers),
     },
     canLog: canLogCoats(actor, job),
     guns: activeGunsQuery(deps.db).all({}),
@@ -296,6 +310,12 @@ export function logCoat(deps: AppDeps, ctx: RequestContext, input: z.output<type
     throw conflict(`The next coat is coat ${next.coat} of ${next.of} of ${next.layerName}; the card was out of date, so nothing was logged`, {
       coatNumber: `Next is coat ${next.coat} of ${next.layerName}`,
     });
+  }
+  if (booth.job.colourWaitsForCustomer && COLOUR_LAYER_KINDS.includes(next.layerKind)) {
+    throw conflict(
+      `Shop rule "${COLOUR_SIGN_OFF_RULE}": the customer has not approved a test panel for this job yet, so ${next.layerName} waits. The office sends the panels to the customer from the job's colour section.`,
+      { layerId: "Waiting for the customer's colour approval" },
+    );
   }
   let override: string | null = null;
   if (next.isFirstCoatOfJob && !booth.prepReady) {

@@ -98,3 +98,32 @@ export function composeReadyMail(input: { shop: ShopSettings; customerName: stri
     html: wrapHtml(paragraphs, input.shop, { href: input.portalUrl, label: "See your job" }),
   };
 }
+
+/** Test panels sent for the customer to choose the colour: each with its let-down, coats and ΔE00 to the target. */
+export function composeColourMail(input: {
+  shop: ShopSettings;
+  customerName: string;
+  jobTitle: string;
+  jobId: number;
+  panels: { label: string; letDown: string; coats: number; deltaE: number | null }[];
+  targetLabel: string | null;
+  link: string;
+  message: string | null;
+}): Composed {
+  const subject = `Choose your colour: ${input.jobTitle}`;
+  const one = input.panels.length === 1;
+  const list = input.panels
+    .map((p, i) => `${i + 1}. ${p.label}\n   Let-down (clear : toner) ${p.letDown}, ${p.coats} ${p.coats === 1 ? "coat" : "coats"}${p.deltaE != null && input.targetLabel ? `, ΔE00 ${p.deltaE.toFixed(2)} from ${input.targetLabel}` : ""}`)
+    .join("\n");
+  const paragraphs = [
+    `Hello ${firstName(input.customerName)},`,
+    input.message ?? `We have sprayed ${one ? "a test panel" : `${input.panels.length} test panels`} for job #${input.jobId}, ${input.jobTitle}. Please look at ${one ? "it" : "them"} and approve the colour you want; we spray your parts to match the panel you approve.`,
+    list,
+    "ΔE00 is the colour difference a meter reads: under 1 is hard to see side by side, 2 and more is easy to see. Photos on a screen never show a candy quite as it is; come and see the panels in daylight if you can.",
+  ];
+  return {
+    subject,
+    text: [...paragraphs, input.link, signature(input.shop).join("\n")].join("\n\n"),
+    html: wrapHtml(paragraphs, input.shop, { href: input.link, label: one ? "See the panel and approve it" : "See the panels and choose one" }),
+  };
+}

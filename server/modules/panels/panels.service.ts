@@ -12,6 +12,7 @@ import { findJobFor } from "../jobs/jobs.access";
 import { getSettings } from "../settings/settings.service";
 import { deleteUploadsOf, photosOf } from "../uploads/uploads.service";
 import { checkGun, gunNames } from "../guns/guns.service";
+import { customerApprovedColour, signOffsOf, staffPhotoUrl, toSignOffDto } from "../intake/sign-off-rows";
 import { setupOf } from "../guns/spray-setup";
 import { deltaE2000, equivalentCoats, tonerFraction } from "../../../shared/mix/index";
 import { colourVerdict, colourVerdictText } from "../../../shared/domain/colour-verdict";
@@ -382,7 +383,14 @@ export function jobColour(deps: AppDeps, actor: Actor, jobId: number): JobColour
     isApprovedForJob: approved?.id === p.id,
     vsApproved: approved && approved.id !== p.id ? compareColour({ id: approved.id, lab: approved.lab }, p.lab, t) : null,
   }));
-  return { jobId, approvedPanel: approved ? { ...approved, isApprovedForJob: true, vsApproved: null } : null, panels, thresholds: t };
+  return {
+    jobId,
+    approvedPanel: approved ? { ...approved, isApprovedForJob: true, vsApproved: null } : null,
+    panels,
+    thresholds: t,
+    approvedByCustomer: customerApprovedColour(deps, job),
+    signOffs: signOffsOf(deps, jobId).map((r) => toSignOffDto(r, staffPhotoUrl, actor.role !== "customer")),
+  };
 }
 
 /** The office points a job's agreed colour at a panel (or clears it). Recorded in the audit log with the plan changes. */

@@ -9,6 +9,7 @@ import { getSettings } from "../settings/settings.service";
 import { displayStatus, localDate, offeredVersion, paidCentsFor, totalsOf } from "../quotes/quotes.service";
 import { readStored } from "../uploads/storage";
 import { verifyQuoteLink } from "./portal-link";
+import { portalInspection } from "../intake/inspection.service";
 import { awaitsReview } from "../payments/payment-review";
 import { jobPlanRow, loadPlanVersion } from "../plans/plans.service";
 import { planVersions } from "../../db/schema";
@@ -90,7 +91,7 @@ function items(deps: AppDeps, jobId: number) {
     .all();
 }
 
-function toPortalQuote(deps: AppDeps, q: ReturnType<typeof reachableQuote>["q"], v: typeof quoteVersions.$inferSelect): PortalQuoteDto {
+function toPortalQuote(deps: AppDeps, viewer: PortalViewer, q: ReturnType<typeof reachableQuote>["q"], v: typeof quoteVersions.$inferSelect): PortalQuoteDto {
   const today = localDate(deps.now());
   const status = displayStatus(v, today);
   const t = totalsOf(v);
@@ -128,6 +129,7 @@ function toPortalQuote(deps: AppDeps, q: ReturnType<typeof reachableQuote>["q"],
     paymentUnderReview: review,
     canDecide: latestSent && (status === "sent" || status === "viewed"),
     canPay: latestSent && status === "approved" && t.depositCents >= 50 && paid < t.depositCents && !review && deps.payments !== null,
+    inspection: portalInspection(deps, q.jobId, (id, thumb) => photoUrl(viewer, id, thumb)),
   };
 }
 
@@ -166,9 +168,9 @@ export function getPortalQuote(deps: AppDeps, viewer: PortalViewer, quoteId: num
   if (v.status === "sent" && !v.supersededAt) {
     const now = deps.now();
     deps.db.update(quoteVersions).set({ status: "viewed", viewedAt: now }).where(and(eq(quoteVersions.id, v.id), eq(quoteVersions.status, "sent"))).run();
-    return toPortalQuote(deps, q, { ...v, status: "viewed", viewedAt: now });
+    return toPortalQuote(deps, viewer, q, { ...v, status: "viewed", viewedAt: now });
   }
-  return toPortalQuote(deps, q, v);
+  return toPortalQuote(deps, viewer, q, v);
 }
 
 /** Approve or decline the quote on offer; recorded with the time, how (account or link) and the address. */
@@ -211,7 +213,7 @@ export function decideQuote(
       now,
     );
   });
-  return toPortalQuote(deps, q, offeredVersion(deps.db, quoteId)!);
+  return toPortalQuote(deps, viewer, q, offeredVersion(deps.db, quoteId)!);
 }
 
 /** The finish in plain words for a job: its current plan, or else what its latest quote said. */
@@ -235,7 +237,7 @@ function finishWordsFor(deps: AppDeps, jobId: number): string | null {
   return v?.finishText ?? null;
 }
 
-function photoUrl(viewer: PortalViewer, id: number, thumb: boolean) {
+export function photoUrl(viewer: PortalViewer, id: number, thumb: boolean) {
   const params = new URLSearchParams();
   if (thumb) params.set("size", "thumb");
   if (viewer.token) params.set("token", viewer.token);

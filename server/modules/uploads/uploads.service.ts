@@ -2,7 +2,7 @@ import { atVersion, nextVersion, staleEdit } from "../../db/edit-version";
 import { and, asc, eq, inArray, type SQL } from "drizzle-orm";
 import type { AppDeps } from "../../deps";
 import type { Actor } from "../../auth/session";
-import { coatLogs, jobItems, materials, prepRecords, testPanels, uploads, users } from "../../db/schema";
+import { coatLogs, inspectionItems, jobItems, materials, prepRecords, testPanels, uploads, users } from "../../db/schema";
 import { badRequest, forbidden, HttpError, notFound } from "../../http/http-error";
 import { iso } from "../../http/dates";
 import { findJobFor } from "../jobs/jobs.access";
@@ -40,6 +40,9 @@ export function ownerJob(deps: AppDeps, actor: Actor, ownerType: UploadOwnerType
       break;
     case "coat_log":
       jobId = deps.db.select({ jobId: coatLogs.jobId }).from(coatLogs).where(eq(coatLogs.id, ownerId)).get()?.jobId ?? -1;
+      break;
+    case "inspection_item":
+      jobId = deps.db.select({ jobId: inspectionItems.jobId }).from(inspectionItems).where(eq(inspectionItems.id, ownerId)).get()?.jobId ?? -1;
       break;
     case "panel": {
       const p = deps.db.select({ jobId: testPanels.jobId }).from(testPanels).where(eq(testPanels.id, ownerId)).get();
@@ -87,6 +90,7 @@ const OWNER_NAMES: Record<UploadOwnerType, string> = {
   prep_record: "Prep record",
   coat_log: "Coat log",
   panel: "Test panel",
+  inspection_item: "Inspected item",
   material: "Material",
 };
 

@@ -36,6 +36,7 @@ beforeAll(async () => {
 
 /** Sign-in/out and password routes take no record id; signing out mid-sweep would also end the session. */
 const sweepable = (r: RouteInfo) => !r.path.startsWith("/api/auth/");
+const ownJobs = () => own.single.jobs!.map(Number);
 
 /** Every id-like field a body or query string might carry, all pointing at another customer's records. */
 function foreignIds(): Record<string, string | number> {
@@ -70,7 +71,7 @@ const viewers = (): Viewer[] => [
 
 describe("a customer cannot reach another customer's records", () => {
   it("has records of every kind on other customers' jobs to aim at", () => {
-    for (const k of ["jobs", "customers", "quotes", "payments", "plans", "mix-sheets", "uploads", "prep-records", "panels", "coat-logs"])
+    for (const k of ["jobs", "customers", "quotes", "payments", "plans", "mix-sheets", "uploads", "prep-records", "panels", "coat-logs", "inspections", "panel-sign-offs"])
       expect({ k, found: foreign.single[k]!.length > 0 }).toEqual({ k, found: true });
     for (const k of ["items", "versions", "quoteVersions"]) expect(foreign.nested[k]!.length).toBeGreaterThan(0);
     expect(markers.length).toBeGreaterThan(10);
@@ -127,6 +128,58 @@ describe("a customer cannot reach another customer's records", () => {
     statuses.push(`link /api/portal/quotes/${own.single.quotes![0]} → ${link.status}`);
     expect(statuses.length).toBeGreaterThan(gets.length);
     expect(statuses.filter((x) => !x.endsWith("→ 200"))).toEqual([]);
+  });
+
+  it("inspections and panel sign-offs: another customer's are out of reach, by account and by link", async () => {
+    const foreignJobs = s.rows<{ job_id: number }>(`select job_id from inspections where job_id in (${foreign.single.jobs!.join(",")})`).map((r) => r.job_id);
+    const waiting = s.rows<{ panel_id: number; job_id: number }>(`select panel_id, job_id from panel_sign_offs where status = 'waiting' and job_id in (${foreign.single.jobs!.join(",")})`);
+    const photos = s.rows<{ id: number }>(`select id from uploads where owner_type = 'inspection_item' and job_id in (${foreign.single.jobs!.join(",")})`).map((r) => r.id);
+    // Records the rightful customer could act on, so a refusal is the access check.
+    expect(foreignJobs.length).toBeGreaterThan(0);
+    expect(waiting.length).toBeGreaterThan(0);
+    expect(photos.length).toBeGreaterThan(0);
+    const failures: string[] = [];
+    for (const v of viewers()) {
+      const calls: [string, string, object?][] = [
+        ...foreignJobs.flatMap((id): [string, string, object?][] => [
+          ["GET", `/api/jobs/${id}/inspection`],
+          ["PUT", `/api/jobs/${id}/inspection`, { version: 1, items: [] }],
+          ["GET", `/api/portal/jobs/${id}/colour`],
+        ]),
+        ...waiting.flatMap((w): [string, string, object?][] => [
+          ["POST", `/api/portal/panels/${w.panel_id}/approve`, { name: "Tobias Wren" }],
+          ["GET", `/api/portal/jobs/${w.job_id}/colour`],
+        ]),
+        ...photos.flatMap((id): [string, string, object?][] => [
+          ["GET", `/api/uploads/${id}`],
+          ["GET", `/api/portal/photos/${id}`],
+        ]),
+      ];
+      for (const [method, url, body] of calls) {
+        let req = s.call(v.who, method, url, v.headers);
+        if (body) req = req.send(body);
+        const res = await req;
+        if (![401, 403, 404].includes(res.status)) failures.push(`${v.label}: ${method} ${url} → ${res.status}`);
+        const l = leaked(res.text ?? "");
+        if (l.length) failures.push(`${v.label}: ${method} ${url} leaked ${l.join(", ")}`);
+      }
+    }
+    expect(failures).toEqual([]);
+    expect(s.rows<{ n: number }>(`select count(*) as n from panel_sign_offs where status = 'waiting' and job_id in (${foreign.single.jobs!.join(",")})`)[0]!.n).toBe(waiting.length);
+  });
+
+  it("the customer's own inspection and colour sign-off do come through", async () => {
+    const own = s.rows<{ job_id: number }>(`select job_id from inspections where job_id in (${ownJobs().join(",")})`).map((r) => r.job_id);
+    expect(own.length).toBeGreaterThan(0);
+    const quote = s.rows<{ id: number }>(`select id from quotes where job_id = ?`, own[0]!)[0]!;
+    const res = await s.call("customer", "GET", `/api/portal/quotes/${quote.id}`);
+    expect(res.status).toBe(200);
+    expect(res.body.inspection.items[0].findings.length).toBeGreaterThan(0);
+    expect(res.body.inspection.items[0].photos).toHaveLength(1);
+    expect(res.text).not.toContain("shop only");
+    const colour = await s.call("customer", "GET", `/api/portal/jobs/${own[0]}/colour`);
+    expect(colour.status).toBe(200);
+    expect(colour.body.answered).toEqual([expect.objectContaining({ status: "approved", decisionName: "Tobias Wren", decidedAddress: null })]);
   });
 
   it("lists the customer reads contain only their own jobs", async () => {

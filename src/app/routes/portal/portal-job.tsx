@@ -9,6 +9,7 @@ import { StageBadge } from "@/features/jobs/components/stage-badge";
 import { portalQueries } from "@/features/portal/api/portal.queries";
 import { PortalJobDetails } from "@/features/portal/components/portal-job-details";
 import { ApprovedColour } from "@/features/portal/components/approved-colour";
+import { PortalColourChoice } from "@/features/portal/components/portal-colour-choice";
 import { InPageNotFound } from "../in-page-not-found";
 
 /** Stages from which the job has a finish record to read. */
@@ -24,10 +25,11 @@ export default function PortalJobRoute() {
   return (
     <>
       <PageHeader eyebrow={`Job #${data.id}`} title={data.title} actions={<StageBadge stage={data.stage as Stage} size="lg" />} />
-      <PortalJobDetails job={data} />
-      <div className="mt-6">
+      <div className="mb-6 flex flex-col gap-3">
+        <PortalColourChoice jobId={data.id} />
         <ApprovedColour jobId={data.id} />
       </div>
+      <PortalJobDetails job={data} />
       {SPRAYED.includes(data.stage as Stage) ? (
         <p className="mt-6">
           <Link to={paths.portalFinishRecord(data.id)} className="inline-flex min-h-12 items-center text-lg font-semibold text-candy-700 underline underline-offset-2">

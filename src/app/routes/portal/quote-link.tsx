@@ -13,6 +13,7 @@ import { StageBadge } from "@/features/jobs/components/stage-badge";
 import { portalQueries } from "@/features/portal/api/portal.queries";
 import { PortalJobDetails } from "@/features/portal/components/portal-job-details";
 import { PortalQuoteView } from "@/features/portal/components/portal-quote-view";
+import { PortalColourChoice } from "@/features/portal/components/portal-colour-choice";
 
 /**
  * A quote opened from the link in the shop's e-mail: no sign-in, no navigation, just that quote and its job.
@@ -54,7 +55,9 @@ export default function QuoteLinkRoute() {
           <div className="flex flex-col gap-8">
             <title>{`Quote #${quote.data.id} · ${quote.data.jobTitle} · Coatwright`}</title>
             <p className="text-sm text-primer-700">Hello {session.data?.customerName.split(" ")[0]}. This page is just for you; please do not share the link.</p>
+            {search.get("colour") ? <PortalColourChoice jobId={quote.data.jobId} token={token} /> : null}
             <PortalQuoteView quote={quote.data} token={token} returnState={returnState} />
+            {search.get("colour") ? null : <PortalColourChoice jobId={quote.data.jobId} token={token} />}
             {job.data ? (
               <section aria-labelledby="job-heading" className="flex flex-col gap-4 border-t border-primer-200 pt-6">
                 <div className="flex flex-wrap items-center justify-between gap-3">

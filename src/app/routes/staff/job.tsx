@@ -1,11 +1,11 @@
 import { useState } from "react";
 import { useNavigate, useParams } from "react-router";
 import { useQuery } from "@tanstack/react-query";
-import { Pencil, Trash2 } from "lucide-react";
+import { ClipboardList, Pencil, Trash2 } from "lucide-react";
 import { roleCan } from "@shared/domain/roles";
 import type { JobDetailDto } from "@shared/schemas/job.schema";
 import { isApiError } from "@/lib/api-client";
-import { Button } from "@/components/ui/button";
+import { Button, ButtonLink } from "@/components/ui/button";
 import { Dialog } from "@/components/ui/dialog";
 import { PageHeader } from "@/components/ui/page-header";
 import { Panel } from "@/components/ui/panel";
@@ -59,6 +59,9 @@ function JobPage({ job }: { job: JobDetailDto }) {
         actions={
           office ? (
             <>
+              <ButtonLink to={paths.jobInspection(job.id)} variant="secondary" icon={<ClipboardList aria-hidden className="size-4" />}>
+                Intake inspection
+              </ButtonLink>
               <Button variant="secondary" onClick={() => setDialog("edit")} icon={<Pencil aria-hidden className="size-4" />}>
                 Edit job
               </Button>

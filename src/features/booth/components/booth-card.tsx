@@ -5,6 +5,7 @@ import { PREP_STATUS_LABELS } from "@shared/domain/prep";
 import { STAGE_LABELS } from "@shared/domain/stages";
 import { SUBSTRATE_LABELS } from "@shared/domain/substrates";
 import type { BoothDto } from "@shared/schemas/booth.schema";
+import { COLOUR_SIGN_OFF_RULE } from "@shared/domain/colour-sign-off";
 import { Alert } from "@/components/ui/alert";
 import { ButtonLink } from "@/components/ui/button";
 import { Panel } from "@/components/ui/panel";
@@ -56,6 +57,11 @@ export function BoothCard({ card, receivedAt, paths }: { card: BoothDto; receive
         </nav>
       </header>
 
+      {card.job.colourWaitsForCustomer ? (
+        <Alert tone="warning" title="Colour not approved by the customer yet">
+          Shop rule: {COLOUR_SIGN_OFF_RULE.toLowerCase()}. Ground, candy and effect coats wait until the customer approves a test panel in the portal; ask the office.
+        </Alert>
+      ) : null}
       {card.prepOverrides.length ? (
         <Alert tone="warning" title="Sprayed before prep sign-off">
           <ul className="list-disc pl-5">

@@ -8,6 +8,7 @@ import { applyServerErrors } from "@/lib/form-errors";
 import { Alert } from "@/components/ui/alert";
 import { Button } from "@/components/ui/button";
 import { FormActions } from "@/components/ui/form/form-actions";
+import { EnumOptions } from "@/components/ui/form/enum-options";
 import { SelectField } from "@/components/ui/form/select-field";
 import { TextField } from "@/components/ui/form/text-field";
 import { TextareaField } from "@/components/ui/form/textarea-field";
@@ -72,11 +73,7 @@ export function JobItemForm({
           {...register("surfaceArea")}
         />
         <SelectField label="Unit" required error={errors.areaUnit?.message} {...register("areaUnit")}>
-          {AREA_UNITS.map((u) => (
-            <option key={u} value={u}>
-              {AREA_UNIT_LABELS[u]}
-            </option>
-          ))}
+          <EnumOptions values={AREA_UNITS} labels={AREA_UNIT_LABELS} />
         </SelectField>
       </div>
       <TextareaField label="Item notes" rows={3} error={errors.notes?.message} {...register("notes")} />

@@ -9,6 +9,7 @@ import type {
   PanelListDto,
   UpdatePanelInput,
 } from "@shared/schemas/panel.schema";
+import type { SendPanelsInput } from "@shared/schemas/colour-sign-off.schema";
 
 export type PanelListParams = { ground?: string; candy?: string; coats?: number; q?: string; page?: number; pageSize?: number };
 export type LadderParams = { ground: string; candy: string; toClear?: number; toToner?: number };
@@ -59,4 +60,14 @@ export function useDeletePanel() {
 export function useSetApprovedPanel(jobId: number) {
   const after = useAfterPanel();
   return useMutation({ mutationFn: (panelId: number | null) => api.put<JobColourDto>(`/jobs/${jobId}/approved-panel`, { panelId }), onSuccess: after });
+}
+
+/** Sends test panels of a job to its customer to approve (the first in the path, the rest in the body). */
+export function useSendPanels() {
+  const after = useAfterPanel();
+  return useMutation({
+    mutationFn: ({ panelIds, ...input }: Omit<SendPanelsInput, "alsoPanelIds"> & { panelIds: number[] }) =>
+      api.post<JobColourDto>(`/panels/${panelIds[0]}/send-to-customer`, { ...input, alsoPanelIds: panelIds.slice(1) }),
+    onSuccess: after,
+  });
 }

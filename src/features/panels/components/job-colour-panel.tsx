@@ -8,6 +8,7 @@ import { toast } from "@/components/ui/toast/toast-store";
 import { panelQueries, useSetApprovedPanel } from "../api/panels.queries";
 import { formatLab, PanelSwatch } from "./panel-swatch";
 import { VerdictBadge } from "./verdict-badge";
+import { ColourSignOffSection } from "./colour-sign-off-section";
 
 /** A job's agreed colour: the approved panel, and each panel made for the job with its ΔE00 against it. */
 export function JobColourPanel({ jobId, canApprove, panelHref, newPanelHref }: { jobId: number; canApprove: boolean; panelHref: (id: number) => string; newPanelHref?: string }) {
@@ -69,6 +70,7 @@ export function JobColourPanel({ jobId, canApprove, panelHref, newPanelHref }: {
                 ))}
             </ul>
           ) : null}
+          <ColourSignOffSection colour={colour.data} canSend={canApprove} />
         </div>
       )}
     </Panel>

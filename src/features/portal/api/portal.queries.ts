@@ -2,6 +2,7 @@ import { queryOptions, useMutation, useQueryClient } from "@tanstack/react-query
 import type { FinishRecordDto } from "@shared/schemas/finish-record.schema";
 import { api, apiUrl } from "@/lib/api-client";
 import type { JobColourDto } from "@shared/schemas/panel.schema";
+import type { PortalColourDto } from "@shared/schemas/colour-sign-off.schema";
 import type { CheckoutDto } from "@shared/schemas/payment.schema";
 import type { ApproveQuoteInput, DeclineQuoteInput, PortalJobDto, PortalQuoteDto, PortalQuoteSummaryDto, PortalSessionDto } from "@shared/schemas/quote.schema";
 
@@ -19,6 +20,7 @@ export const portalKeys = {
   jobs: (token?: string | null) => [...portalKeys.all, "jobs", token ?? null] as const,
   job: (id: number, token?: string | null) => [...portalKeys.all, "job", id, token ?? null] as const,
   jobColour: (id: number) => [...portalKeys.all, "job", id, "colour"] as const,
+  colourChoice: (id: number, token?: string | null) => [...portalKeys.all, "job", id, "colour-choice", token ?? null] as const,
   finishRecord: (id: number) => [...portalKeys.all, "job", id, "finish-record"] as const,
 };
 
@@ -61,6 +63,12 @@ export const portalQueries = {
       queryKey: portalKeys.jobColour(id),
       queryFn: ({ signal }) => api.get<JobColourDto>(`/jobs/${id}/colour`, { signal }),
     }),
+  /** Test panels the shop sent for the customer to approve, and those already answered. */
+  colourChoice: (id: number, token?: string | null) =>
+    queryOptions({
+      queryKey: portalKeys.colourChoice(id, token),
+      queryFn: ({ signal }) => api.get<PortalColourDto>(`/portal/jobs/${id}/colour`, { query: withToken(token), signal }),
+    }),
   /** What was sprayed on the job, in the customer's version (no notes, no costs). */
   finishRecord: (id: number) =>
     queryOptions({
@@ -97,6 +105,18 @@ export function useDeclineQuote(id: number, token?: string | null) {
   return useMutation({
     mutationFn: (input: DeclineQuoteInput) => api.post<PortalQuoteDto>(`/portal/quotes/${id}/decline`, input, { query: withToken(token) }),
     onSuccess: after,
+  });
+}
+
+/** The customer approves one of the panels sent: it becomes the job's agreed colour. */
+export function useApprovePanel(jobId: number, token?: string | null) {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: ({ panelId, ...input }: ApproveQuoteInput & { panelId: number }) => api.post<PortalColourDto>(`/portal/panels/${panelId}/approve`, input, { query: withToken(token) }),
+    onSuccess: (colour) => {
+      queryClient.setQueryData(portalKeys.colourChoice(jobId, token), colour);
+      return queryClient.invalidateQueries({ queryKey: portalKeys.jobColour(jobId) });
+    },
   });
 }
 

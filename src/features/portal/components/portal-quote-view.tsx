@@ -16,6 +16,7 @@ import { TextField } from "@/components/ui/form/text-field";
 import { TextareaField } from "@/components/ui/form/textarea-field";
 import { cn } from "@/utils/cn";
 import { formatDate, formatDateTime } from "@/utils/format-date";
+import { PortalInspection } from "./portal-inspection";
 import { portalPdfUrl, useApproveQuote, useDeclineQuote, useStartCheckout } from "../api/portal.queries";
 
 /** Status words for the customer. */
@@ -101,6 +102,8 @@ export function PortalQuoteView({
           </ul>
         </section>
       ) : null}
+
+      {quote.inspection ? <PortalInspection inspection={quote.inspection} /> : null}
 
       <section aria-labelledby="price-heading">
         <h2 id="price-heading" className="mb-2 text-lg font-semibold text-ink-950">

@@ -1,3 +1,4 @@
+import { COLOUR_SIGN_OFF_RULE } from "@shared/domain/colour-sign-off";
 import { useState, type ChangeEvent, type ComponentProps, type ReactNode } from "react";
 import { Controller, useFieldArray, useForm, type Path } from "react-hook-form";
 import { zodResolver } from "@hookform/resolvers/zod";
@@ -49,6 +50,7 @@ const TOP_FIELDS = [
   "vocMonthlyCapKg",
   "vocYearlyCapKg",
   "lowDiskWarningGb",
+  "requireColourSignOff",
   "ratioTolerancePct",
   "unitSystem",
   "filmUnit",
@@ -242,6 +244,13 @@ export function SettingsForm({
               {...register("ratioTolerancePct")}
             />
           </div>
+          <label className="flex min-h-12 items-start gap-3 text-sm text-ink-950">
+            <input type="checkbox" className="mt-0.5 size-5 accent-ink-900" {...register("requireColourSignOff")} />
+            <span>
+              <span className="font-semibold">{COLOUR_SIGN_OFF_RULE}</span>
+              <span className="block text-primer-700">The booth takes no ground, candy or effect coat until the customer has approved a test panel in the portal.</span>
+            </span>
+          </label>
         </Group>
 
         <Group title="VOC limits and caps" description={limitsNote}>
