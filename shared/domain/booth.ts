@@ -6,13 +6,7 @@ import { layerTimeline } from "../mix/index";
  * keeps state, so a reload computes the same timers from the stored times.
  */
 
-export const TEMP_UNITS = ["C", "F"] as const;
-export type TempUnit = (typeof TEMP_UNITS)[number];
-
-/** °F → °C and back (exact linear definitions: °C = (°F − 32) × 5/9). */
-export const fToC = (f: number) => ((f - 32) * 5) / 9;
-export const cToF = (c: number) => (c * 9) / 5 + 32;
-export const toCelsius = (value: number, unit: TempUnit) => (unit === "C" ? value : fToC(value));
+export { TEMP_UNITS, fToC, cToF, toCelsius, type TempUnit } from "./temperature";
 
 /** One stored coat-log row: an original entry, or a correction of one (correctsId set). */
 export type CoatEntry = {

@@ -16,7 +16,8 @@ import { freezePlanVersion, jobPlanRow, loadPlanVersion, type LoadedPlanVersion 
 import { panelLabel } from "../panels/panels.service";
 import { prepStatusOf } from "../prep/prep.service";
 import { convertVolume, isVolumeUnit, potLifeEnds } from "../../../shared/mix/index";
-import { coatCount, effectiveCoats, nextBoothStep, type CoatEntry, type TempUnit } from "../../../shared/domain/booth";
+import { coatCount, effectiveCoats, type CoatEntry, type TempUnit } from "../../../shared/domain/booth";
+import { boothNext, openBatchFor } from "../../../shared/domain/booth-next";
 import { needsAdhesionPromoter } from "../../../shared/domain/substrates";
 import { STAGE_LABELS, type Stage } from "../../../shared/domain/stages";
 import type {
@@ -234,14 +235,9 @@ export function getBooth(deps: AppDeps, actor: Actor, jobId: number): BoothDto {
   let openBatch: BoothDto["openBatch"] = null;
   if (planned) {
     const versionLayers = planned.version.layers;
-    // A "prep" layer is done through the prep records, not sprayed: it is not part of the coat sequence.
-    const sprayLayers = versionLayers.filter((l) => l.kind !== "prep");
-    const layerIds = new Set(sprayLayers.map((l) => l.id));
-    const effective = effectiveCoats(rows.filter((r) => layerIds.has(r.c.layerId)).map((r) => asEntry(r.c)));
-    const step = nextBoothStep(sprayLayers, effective, now);
-    const progress = new Map(step.layers.map((p) => [p.layerId, p]));
+    const step = boothNext(versionLayers, rows.map((r) => asEntry(r.c)), now);
     layers = versionLayers.map((l) => {
-      const p = progress.get(l.id);
+      const p = step.progress.get(l.id);
       return {
         id: l.id,
         position: l.position,
@@ -262,26 +258,8 @@ export function getBooth(deps: AppDeps, actor: Actor, jobId: number): BoothDto {
         status: p ? p.status : prepReady ? "done" : "current",
       };
     });
-    const timer = (t: { kind: "flash" | "dry"; startedAt: number; endsAt: number } | null) => (t ? { kind: t.kind, startedAt: iso(t.startedAt), endsAt: iso(t.endsAt) } : null);
-    if (step.state === "no_layers") next = { state: "no_layers" };
-    else if (step.state === "done") next = { state: "done", lastCoatAt: iso(step.lastCoatAt), timer: timer(step.timer)! };
-    else {
-      const layer = sprayLayers[step.layerIndex]!;
-      next = {
-        state: "spray",
-        layerId: layer.id,
-        layerName: layer.name,
-        layerKind: layer.kind,
-        coat: step.coat,
-        of: step.of,
-        isLastLayer: step.isLastLayer,
-        isFirstCoatOfJob: effective.length === 0,
-        timer: timer(step.timer),
-        layerDoneAt: iso(step.layerDoneAt),
-      };
-      const batch = sheets.find((s) => s.layerId === layer.id && s.status === "mixed" && s.mixedAt);
-      if (batch) openBatch = { mixSheetId: batch.id, layerId: batch.layerId, mixedAt: batch.mixedAt!, potLifeEndsAt: batch.potLifeEndsAt };
-    }
+    next = step.next;
+    openBatch = openBatchFor(next, sheets);
   }
 
   return {

@@ -1,4 +1,4 @@
-import { useState, type ChangeEvent, type FormEvent } from "react";
+import { useEffect, useState, type ChangeEvent, type FormEvent } from "react";
 import { Link } from "react-router";
 import { CheckCircle2, PaintBucket, TriangleAlert } from "lucide-react";
 import { LAYER_KIND_LABELS } from "@shared/domain/layers";
@@ -10,8 +10,9 @@ import { TextareaField } from "@/components/ui/form/textarea-field";
 import { TextField } from "@/components/ui/form/text-field";
 import { SafetyCautions } from "@/components/ui/safety-cautions";
 import { cn } from "@/utils/cn";
-import { PhotoUploadButton } from "@/features/uploads/components/photo-panel";
+import { PhotoUploadButton } from "@/features/uploads/components/photo-upload-button";
 import { useLogCoat } from "../api/booth.queries";
+import { isWaiting } from "../api/waiting";
 import { useLogCoatForm, type LogFields } from "../hooks/use-log-coat-form";
 import { formatMinutes } from "../hooks/use-server-now";
 import { ConditionInput } from "./condition-input";
@@ -20,7 +21,7 @@ import { formatClock, PotLifeTimer, StepTimer } from "./booth-timers";
 
 
 /** The top of the booth card: what to spray next in large type, its timers and cautions, and the one-tap log. */
-export function NextStepPanel({ card, now, prepPath }: { card: BoothDto; now: number; prepPath: string }) {
+export function NextStepPanel({ card, now, clockOffset, prepPath }: { card: BoothDto; now: number; clockOffset: number; prepPath: string }) {
   const next = card.next;
   const current = next.state === "spray" ? card.layers.find((l) => l.id === next.layerId) : undefined;
 
@@ -103,7 +104,7 @@ export function NextStepPanel({ card, now, prepPath }: { card: BoothDto; now: nu
           </div>
         </div>
         {card.canLog ? (
-          <LogCoatForm key={`${next.layerId}-${next.coat}`} card={card} prepPath={prepPath} />
+          <LogCoatForm key={`${next.layerId}-${next.coat}`} card={card} clockOffset={clockOffset} prepPath={prepPath} />
         ) : (
           <Alert tone="info" title="Read only">
             Coats are logged by the job&apos;s painter or the owner.
@@ -114,10 +115,20 @@ export function NextStepPanel({ card, now, prepPath }: { card: BoothDto; now: nu
   );
 }
 
-function LogCoatForm({ card, prepPath }: { card: BoothDto; prepPath: string }) {
+/** After a tap, the next coat's button waits this long: a double tap (gloves, a sticky screen) is one coat, not two. */
+const TAP_GUARD_MS = 1500;
+let lastTapAt = 0;
+
+function LogCoatForm({ card, clockOffset, prepPath }: { card: BoothDto; clockOffset: number; prepPath: string }) {
   const next = card.next;
   if (next.state !== "spray") throw new Error("LogCoatForm needs a coat to log");
-  const log = useLogCoat(card.job.id);
+  const log = useLogCoat(card, clockOffset);
+  const [guarded, setGuarded] = useState(() => Date.now() - lastTapAt < TAP_GUARD_MS);
+  useEffect(() => {
+    if (!guarded) return;
+    const id = window.setTimeout(() => setGuarded(false), Math.max(0, TAP_GUARD_MS - (Date.now() - lastTapAt)));
+    return () => window.clearTimeout(id);
+  }, [guarded]);
   const [problem, setProblem] = useState<string | null>(null);
   const needsOverride = next.isFirstCoatOfJob && !card.prepReady;
   const [overriding, setOverriding] = useState(false);
@@ -154,7 +165,7 @@ function LogCoatForm({ card, prepPath }: { card: BoothDto; prepPath: string }) {
 
   const submit = async (event: FormEvent<HTMLFormElement>) => {
     event.preventDefault();
-    if (submitting) return;
+    if (submitting || guarded) return;
     setProblem(null);
     const parsed = form.validate();
     if (!parsed) return;
@@ -163,6 +174,7 @@ function LogCoatForm({ card, prepPath }: { card: BoothDto; prepPath: string }) {
       const { jobId: _jobId, ...rest } = parsed;
       // No toast here: it would cover the log button. The "last logged" line below the button confirms it.
       await log.mutateAsync({ ...rest, prepOverrideReason: needsOverride ? rest.prepOverrideReason : undefined });
+      lastTapAt = Date.now();
       set("note", "");
       setNoting(false);
     } catch (error) {
@@ -254,7 +266,7 @@ function LogCoatForm({ card, prepPath }: { card: BoothDto; prepPath: string }) {
         size="lg"
         block
         pending={submitting}
-        disabled={blocked}
+        disabled={blocked || guarded}
         icon={<PaintBucket aria-hidden className="size-7" />}
         className="min-h-20 rounded-2xl text-2xl"
       >
@@ -275,13 +287,13 @@ function LastLogged({ card }: { card: BoothDto }) {
         <>
           <CheckCircle2 aria-hidden className="mr-1.5 inline size-5 align-text-bottom text-emerald-700" />
           Last logged: coat {last.coatNumber} of {last.layerName} at {formatClock(last.at)}
-          {last.painterName ? ` by ${last.painterName}` : ""}.
+          {isWaiting(last) ? " (on this tablet, waiting to send)" : last.painterName ? ` by ${last.painterName}` : ""}.
         </>
       ) : (
         "The time and your name are recorded by the server when you tap."
       )}
     </p>
-    {last ? <PhotoUploadButton owner={{ ownerType: "coat_log", ownerId: last.id }} label="Photo of this coat" /> : null}
+    {last && !isWaiting(last) ? <PhotoUploadButton owner={{ ownerType: "coat_log", ownerId: last.id }} label="Photo of this coat" /> : null}
     </div>
   );
 }
