@@ -6,7 +6,7 @@ import { layerTimeline } from "../mix/index";
  * keeps state, so a reload computes the same timers from the stored times.
  */
 
-export { TEMP_UNITS, fToC, cToF, toCelsius, type TempUnit } from "./temperature";
+export { TEMP_UNITS, fToC, cToF, toCelsius, switchTemperatureText, type TempUnit } from "./temperature";
 
 /** One stored coat-log row: an original entry, or a correction of one (correctsId set). */
 export type CoatEntry = {
@@ -75,7 +75,7 @@ export type NextStep =
   | { state: "done"; layers: LayerProgress[]; lastCoatAt: number; timer: BoothTimer };
 
 /** Timing of one logged coat through the mix engine: its flash end and when the next layer may go on. */
-function coatTiming(layer: BoothLayerTiming, coatEndAt: number) {
+export function coatTiming(layer: BoothLayerTiming, coatEndAt: number) {
   const minutesPerCoat = layer.minutesPerCoat > 0 ? layer.minutesPerCoat : 1;
   const plan = { coats: 1, flashMinutes: Math.max(0, layer.flashMinutes), minutesPerCoat, dryMinutes: Math.max(0, layer.dryMinutes) };
   const t = layerTimeline(plan, new Date(coatEndAt - Math.round(minutesPerCoat * 60_000)));

@@ -1,6 +1,7 @@
 import { z } from "zod";
 import { TEMP_UNITS, type TempUnit } from "../domain/temperature";
 import type { LayerKind } from "../domain/layers";
+import type { TimingBreach } from "../domain/booth-timing";
 import type { PlanLayerDto } from "./plan.schema";
 import type { PrepStatus } from "../domain/prep";
 import type { Stage } from "../domain/stages";
@@ -30,6 +31,8 @@ export const createCoatLogInputSchema = z
     ...conditions,
     /** Needed only when an item's prep is not signed off before the first coat. */
     prepOverrideReason: optionalText(500, "Reason"),
+    /** Needed only when the coat goes on against a timing rule (flash, dry, recoat window, induction, no batch). */
+    timingOverrideReason: optionalText(500, "Reason"),
     /** The gun set-up really used (the booth card fills in the approved panel's as a start). */
     ...spraySetupFields,
     at: madeAtSchema,
@@ -75,6 +78,9 @@ export type CoatLogDto = {
   setup: SpraySetupDto;
   mixSheetId: number | null;
   prepOverrideReason: string | null;
+  /** The coat went on against a timing rule: the painter's reason and the rules as they stood. */
+  timingOverrideReason: string | null;
+  timingBreaches: TimingBreach[] | null;
   correctsId: number | null;
   correctionReason: string | null;
   voids: boolean;
@@ -94,9 +100,25 @@ export type BoothComponentDto = {
 /** A plan layer as the booth shows it: no film-build figures, no material costs, plus the coat progress. */
 export type BoothLayerDto = Pick<
   PlanLayerDto,
-  "id" | "position" | "kind" | "name" | "coats" | "flashMinutes" | "minutesPerCoat" | "dryMinutes" | "gunTip" | "pressurePsi" | "overlapPct" | "notes" | "cautions"
+  | "id"
+  | "position"
+  | "kind"
+  | "name"
+  | "coats"
+  | "flashMinutes"
+  | "minutesPerCoat"
+  | "dryMinutes"
+  | "inductionMinutes"
+  | "recoatMinMinutes"
+  | "recoatMaxMinutes"
+  | "catalysed"
+  | "gunTip" | "pressurePsi" | "overlapPct" | "notes" | "cautions"
 > & {
   components: BoothComponentDto[];
+  /** The mixed layer's VOC (g/L less water and exempt), the shop's limit for its category, and whether it is over. */
+  vocGPerL: number | null;
+  vocLimitGPerL: number | null;
+  vocOverLimit: boolean;
   /** A prep layer is done through the item prep records, not logged coat by coat. */
   isPrep: boolean;
   coatsDone: number;
@@ -114,11 +136,29 @@ export type BoothMixSheetDto = {
   mixedByName: string | null;
   potLifeMinutes: number | null;
   potLifeEndsAt: string | null;
-  /** Planned volume in mL and in the sheet's unit; what was really poured (mL). */
-  lines: { label: string; plannedMl: number; plannedInUnit: number; actualMl: number | null; lotNumber: string | null }[];
+  /** Planned volume in mL and in the sheet's unit, and its share of the ready-to-spray batch in %; what was really poured (mL). */
+  lines: {
+    label: string;
+    materialCode: string;
+    materialName: string;
+    plannedMl: number;
+    plannedInUnit: number;
+    readyPct: number | null;
+    actualMl: number | null;
+    lotNumber: string | null;
+  }[];
 };
 
 export type BoothTimerDto = { kind: "flash" | "dry"; startedAt: string; endsAt: string };
+
+/** The timing windows of the next coat (shared/domain/booth-timing.ts), as times. */
+export type CoatWindowsDto = {
+  flashEndsAt: string | null;
+  dryEndsAt: string | null;
+  recoatClosesAt: string | null;
+  inductionEndsAt: string | null;
+  needsBatch: boolean;
+};
 
 export type BoothNextDto =
   | { state: "no_plan" }
@@ -134,6 +174,9 @@ export type BoothNextDto =
       isFirstCoatOfJob: boolean;
       timer: BoothTimerDto | null;
       layerDoneAt: string;
+      windows: CoatWindowsDto;
+      /** The timing rules a coat now would break (the server refuses it without a reason). */
+      breaches: TimingBreach[];
     }
   | { state: "done"; lastCoatAt: string; timer: BoothTimerDto };
 
@@ -166,6 +209,8 @@ export type BoothDto = {
   /** Booth conditions of the last entry (this job's, else the shop's), to prefill the next one. */
   lastConditions: { boothTemp: number | null; tempUnit: TempUnit | null; humidityPct: number | null } | null;
   prepOverrides: { coatLogId: number; reason: string; byName: string | null; at: string }[];
+  /** Coats that went on against a timing rule, with the painter's reason. */
+  timingOverrides: { coatLogId: number; layerName: string; coatNumber: number; reason: string; breaches: TimingBreach[]; byName: string | null; at: string }[];
 };
 
 /** The printable job ticket: what the booth needs on paper, and a QR code that opens the booth card. */

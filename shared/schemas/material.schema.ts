@@ -59,6 +59,10 @@ export const materialFieldsSchema = z.object({
   waterExemptPct: optionalNumber("Water and exempt", { min: 0, max: 100 }),
   densityGPerMl: optionalNumber("Density", { min: 0, max: 5, gt: true }),
   potLifeMinutes: optionalNumber("Pot life", { min: 0, max: 10_080, int: true, gt: true }),
+  /** Data-sheet timing, minutes: induction before spraying, and the window for the next layer over this one. */
+  inductionMinutes: optionalNumber("Induction time", { min: 0, max: 1440, int: true }),
+  recoatMinMinutes: optionalNumber("Earliest recoat", { min: 0, max: 20_160, int: true }),
+  recoatMaxMinutes: optionalNumber("Latest recoat", { min: 0, max: 100_800, int: true, gt: true }),
   containsIsocyanates: z.boolean({ error: "Must be true or false" }).optional(),
   flammable: z.boolean({ error: "Must be true or false" }).optional(),
   lowStockThreshold: optionalNumber("Low-stock level", { min: 0, max: 100_000 }),
@@ -143,6 +147,9 @@ export type MaterialStaffDto = {
   waterExemptPct: number;
   densityGPerMl: number | null;
   potLifeMinutes: number | null;
+  inductionMinutes: number | null;
+  recoatMinMinutes: number | null;
+  recoatMaxMinutes: number | null;
   containsIsocyanates: boolean;
   flammable: boolean;
   lowStockThreshold: number | null;

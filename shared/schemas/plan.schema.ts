@@ -37,6 +37,10 @@ export const planLayerInputSchema = z.object({
   flashMinutes: requiredNumber("Flash time", { min: 0, max: 1440 }),
   minutesPerCoat: requiredNumber("Minutes per coat", { min: 0, max: 240, gt: true }).optional(),
   dryMinutes: requiredNumber("Dry time", { min: 0, max: 20_160 }),
+  /** Empty: taken from the materials' data sheets when the plan is saved. */
+  inductionMinutes: optionalNumber("Induction time", { min: 0, max: 1440 }),
+  recoatMinMinutes: optionalNumber("Earliest recoat", { min: 0, max: 20_160 }),
+  recoatMaxMinutes: optionalNumber("Latest recoat", { min: 0, max: 100_800, gt: true }),
   gunTip: optionalText(20, "Gun tip"),
   pressurePsi: optionalNumber("Air pressure", { min: 0, max: 150 }),
   overlapPct: optionalNumber("Overlap", { min: 0, max: 100 }),
@@ -113,6 +117,13 @@ export type PlanLayerDto = {
   flashMinutes: number;
   minutesPerCoat: number;
   dryMinutes: number;
+  /** How long a mixed batch stands before spraying, minutes. */
+  inductionMinutes: number | null;
+  /** The window for the next layer over this one, minutes after its last coat (null: no limit). */
+  recoatMinMinutes: number | null;
+  recoatMaxMinutes: number | null;
+  /** The mix has a hardener (2K): coats need a batch recorded as mixed. */
+  catalysed: boolean;
   gunTip: string | null;
   pressurePsi: number | null;
   overlapPct: number | null;
@@ -193,6 +204,9 @@ export type LayerEstimateDto = {
   costCents?: number;
   /** VOC of the mixed layer, g/L less water and exempt (null when a material has no VOC figure). */
   vocGPerL: number | null;
+  /** The shop's VOC limit for the layer's category (null: none entered), and whether the mixed layer is over it. */
+  vocLimitGPerL: number | null;
+  vocOverLimit: boolean;
   /** Volume solids of the mixed layer, %. */
   volumeSolidsPct: number | null;
   /** One coat's dry and wet film (in the layer's film unit), and the coverage of the mixed layer at its transfer efficiency. */

@@ -15,7 +15,8 @@ export const prepStepsInputSchema = z.object({
   scuffMedium: z
     .preprocess((v) => (v === "" ? null : v), z.enum(SCUFF_MEDIA, { error: `Scuff medium must be one of: ${SCUFF_MEDIA.join(", ")}` }).nullable())
     .optional(),
-  scuffGrit: optionalNumber("Grit", 36, 5000, true),
+  /** FEPA P-grade as painters write it ("P320") or the bare number; stored as the number and shown as P320. */
+  scuffGrit: z.preprocess((v) => (typeof v === "string" ? v.trim().replace(/^p\s*/i, "") : v), optionalNumber("Grit", 36, 5000, true)),
   cleaner: optionalText(120, "Cleaner"),
   tackCloth: z.boolean({ error: "Tack cloth must be true or false" }).optional(),
   adhesionPromoter: z.boolean({ error: "Adhesion promoter must be true or false" }).optional(),

@@ -1,22 +1,13 @@
 import { describe, expect, it } from "vitest";
 import sharp from "sharp";
 import { eq } from "drizzle-orm";
-import { cookieFor, makeShop, type Shop } from "../support/test-app";
-import { addBoothPlan, addCoat, addMixedSheet, readyForBooth, signOffPrep } from "../support/booth-fixtures";
+import { cookieFor, type Shop } from "../support/test-app";
+import { addBoothPlan, addCoat, addMixedSheet, clockShop, readyForBooth, signOffPrep, T0 } from "../support/booth-fixtures";
 import { auditLog, coatLogs, jobStageEvents, jobs, planVersions } from "../../server/db/schema";
 import type { BoothDto } from "../../shared/schemas/booth.schema";
 import request from "supertest";
 
 const MIN = 60_000;
-/** After the test shop's records are made (they carry the real clock), so every test time is later. */
-const T0 = Date.parse("2035-06-01T09:00:00Z");
-
-/** A shop whose clock the test moves (every server time comes from deps.now). */
-async function clockShop() {
-  const clock = { now: T0 };
-  const s = await makeShop({ now: () => clock.now });
-  return { s, clock };
-}
 
 const booth = async (s: Shop, who: "owner" | "estimator" | "painter" = "painter") => (await s.as(who).get(`/api/jobs/${s.jobA.id}/booth`)).body as BoothDto;
 const tap = (s: Shop, b: BoothDto, extra: object = {}) => {
@@ -138,9 +129,11 @@ describe("POST /api/coat-logs", () => {
     expect(b.next).toMatchObject({ layerName: "Candy garnet", coat: 1, of: 3 });
     expect(b.next.state === "spray" && b.next.timer).toEqual({ kind: "dry", startedAt: new Date(T0 + 12 * MIN).toISOString(), endsAt: new Date(T0 + 42 * MIN).toISOString() });
 
-    // Candy ×3 then clear ×2; the last coat of the last layer moves the job to curing with a stage event.
-    for (let i = 0; i < 5; i++) {
-      clock.now += 15 * MIN;
+    // Candy ×3 then clear ×2 (its 2K batch recorded as mixed first); the last coat of the last layer moves the job to curing with a stage event.
+    addMixedSheet(s, s.jobA.id, plan.version.id, plan.layers[2]!.id, T0 + 12 * MIN);
+    // Candy at 09:42 (sealer dry), 09:57, 10:12 (flash 8 min); clear at 10:32 (candy dry 20 min) and 10:50 (flash 12 min).
+    for (const at of [42, 57, 72, 92, 110]) {
+      clock.now = T0 + at * MIN;
       res = await tap(s, b);
       expect(res.status).toBe(201);
       b = res.body;
@@ -169,7 +162,7 @@ describe("POST /api/coat-logs", () => {
   });
 
   it("refuses the first coat when prep is not signed off, unless the painter gives a reason, which is kept and shown", async () => {
-    const { s } = await clockShop();
+    const { s, clock } = await clockShop();
     addBoothPlan(s, s.jobA.id);
     const b = await booth(s);
     expect(b.prepReady).toBe(false);
@@ -183,7 +176,8 @@ describe("POST /api/coat-logs", () => {
     expect(ok.body.prepOverrides).toEqual([
       expect.objectContaining({ reason: expect.stringMatching(/^Customer collecting Friday.*\(prep not signed off: Helmet shell\)$/), byName: "Test painter" }),
     ]);
-    // Only the first coat needs it.
+    // Only the first coat needs it (the second goes on once the first has flashed, 10 min).
+    clock.now += 10 * MIN;
     expect((await tap(s, ok.body)).status).toBe(201);
   });
 

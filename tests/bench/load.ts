@@ -133,6 +133,9 @@ export async function compareWrite(appServer: Child, baselineServer: Child, next
   return { app: merge(app), baseline: merge(bare) };
 }
 
+/** The load sprays coats back to back, inside their flash times: each says so, as a painter would have to. */
+export const LOAD_REASON = "Load test: coats back to back";
+
 /** Every coat of the pool's jobs, in the order each job's booth card asks for them; `next()` hands out the next one. */
 export function coatQueue(pool: SprayJob[]) {
   // Round-robin over the jobs: a job's next coat comes many requests later, so two connections never race for one job.
@@ -143,7 +146,7 @@ export function coatQueue(pool: SprayJob[]) {
     for (let tries = 0; tries < byJob.length; tries++) {
       const job = byJob[i++ % byJob.length]!;
       const coat = job.coats.shift();
-      if (coat) return { path: "/api/coat-logs", body: JSON.stringify({ jobId: job.jobId, ...coat, boothTemp: 21, tempUnit: "C", humidityPct: 48 }) };
+      if (coat) return { path: "/api/coat-logs", body: JSON.stringify({ jobId: job.jobId, ...coat, boothTemp: 21, tempUnit: "C", humidityPct: 48, timingOverrideReason: LOAD_REASON }) };
     }
     throw new Error("the spray pool ran dry");
   };

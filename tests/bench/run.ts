@@ -16,7 +16,7 @@ import { captureSql, signIn, type CaptureRoute } from "./capture";
 import { areaChunks, firstVisit, launchChromium } from "./client-weight";
 import { fixedRate } from "./fixed-rate";
 import { LIGHTHOUSE_PRESET, LIGHTHOUSE_RUNS, scorePage } from "./lighthouse";
-import { coatQueue, compareGet, compareWrite, LOAD, merge, run, writeLoad, type WriteRequest } from "./load";
+import { coatQueue, compareGet, LOAD_REASON, compareWrite, LOAD, merge, run, writeLoad, type WriteRequest } from "./load";
 import { mixRecomputeInBrowser } from "./mix-recompute";
 import { queryPlans } from "./query-plans";
 import { checksFor, printReport, type BenchReport, type RouteFigures } from "./report";
@@ -148,8 +148,8 @@ function writePool(shop: Shop, jobs: number) {
     email: EMAIL.painter,
     url: "/api/coat-logs",
     // Coat 1 moves the job to the booth (a stage move): the measured coat is an ordinary one, coat 2.
-    warm: { url: "/api/coat-logs", body: { jobId: captureJob.jobId, ...captureJob.coats[0], boothTemp: 21, tempUnit: "C", humidityPct: 48 } },
-    body: { jobId: captureJob.jobId, ...captureJob.coats[1], boothTemp: 21, tempUnit: "C", humidityPct: 48 },
+    warm: { url: "/api/coat-logs", body: { jobId: captureJob.jobId, ...captureJob.coats[0], boothTemp: 21, tempUnit: "C", humidityPct: 48, timingOverrideReason: LOAD_REASON } },
+    body: { jobId: captureJob.jobId, ...captureJob.coats[1], boothTemp: 21, tempUnit: "C", humidityPct: 48, timingOverrideReason: LOAD_REASON },
   };
   const recordCapture: CaptureRoute = { name: RECORD, method: "POST", email: EMAIL.painter, url: `/api/mix-sheets/${captureSheets[0]}/record`, warm: { url: `/api/mix-sheets/${captureSheets[1]}/record`, body: { lines: [] } }, body: { lines: [] } };
   const db = new Database(shop.dbFile, { readonly: true });

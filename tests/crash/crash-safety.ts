@@ -78,7 +78,7 @@ async function worker(base: string, cookie: string, templateId: number, round: n
       const sheet = await post("/api/mix-sheets", { jobId, layerId: next.layerId, mode: "total", amount: 250, unit: "mL" });
       if (sheet.ok) acks.push({ kind: "mixSheet", id: (await json<{ id: number }>(sheet)).id, detail: `job ${jobId}` });
       for (const coatNumber of [1, 2]) {
-        const coat = await post("/api/coat-logs", { jobId, layerId: next.layerId, coatNumber, boothTemp: 21, tempUnit: "C", humidityPct: 45, prepOverrideReason: "Crash-safety load" });
+        const coat = await post("/api/coat-logs", { jobId, layerId: next.layerId, coatNumber, boothTemp: 21, tempUnit: "C", humidityPct: 45, prepOverrideReason: "Crash-safety load", timingOverrideReason: "Crash-safety load: coats back to back" });
         // The answer is the updated booth card; the coat is identified by job, layer and number.
         if (coat.ok) acks.push({ kind: "coat", id: jobId, detail: `${next.layerId}:${coatNumber}` });
       }

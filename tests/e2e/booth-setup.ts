@@ -35,6 +35,11 @@ export async function jobReadyForTheBooth(browser: Browser, baseUrl: string): Pr
   await call(page, "POST", `/api/jobs/${job.id}/stage`, { stage: "in_prep" });
   const prep = await call<{ id: number }>(page, "POST", "/api/prep-records", { itemId: item.id, scuffMedium: "scuff_pad", scuffGrit: 600, cleaner: "Wax and grease remover", tackCloth: true });
   await call(page, "POST", `/api/prep-records/${prep.id}/sign-off`);
+  // The sealer is catalysed (2K): its batch is recorded as mixed before the first coat, as at the bench.
+  const card = await call<{ layers: { id: number; kind: string }[] }>(page, "GET", `/api/jobs/${job.id}/booth`);
+  const sealer = card.layers.find((l) => l.kind === "sealer")!;
+  const sheet = await call<{ id: number }>(page, "POST", "/api/mix-sheets", { jobId: job.id, layerId: sealer.id, mode: "total", amount: 250, unit: "mL" });
+  await call(page, "POST", `/api/mix-sheets/${sheet.id}/record`, { lines: [] });
   await close();
   return job.id;
 }

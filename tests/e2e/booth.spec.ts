@@ -66,9 +66,24 @@ describe("booth card on a tablet", () => {
     await page.getByRole("button", { name: "Raise booth temperature" }).click();
     expect(await page.getByLabel("Booth temperature", { exact: true }).inputValue()).toBe("23");
 
-    // Coats 2 and 3: the ground, with the 8-minute flash between coats.
+    // The ground's first coat, seconds into the sealer's 45-minute dry time: the card warns, and a tap is refused
+    // by the server with the rule named; nothing is logged.
+    const form = page.getByRole("form", { name: "Log a coat" });
+    await expect.poll(() => page.getByRole("list", { name: "Timing rules the next coat would break" }).innerText()).toMatch(/Dry time: Sealer needs 45 min more before Metallic ground goes on/);
+    await logButton.click();
+    await expect.poll(() => form.getByRole("alert").innerText()).toMatch(/Not logged: Dry time: Sealer needs 45 min more/);
+    expect(await nextCoat.innerText()).toBe("Coat 1 of 3");
+    // The refusal opens the reason field; with a reason the coat is taken, and flagged on the log.
+    const reason = page.getByLabel("Reason for going ahead against the timing rule");
+    await reason.fill("Sealer checked dry to the touch; customer collecting at noon");
     await logButton.click();
     await expect.poll(() => nextCoat.innerText()).toBe("Coat 2 of 3");
+    const flagged = page.getByTestId("timing-override");
+    await expect.poll(() => flagged.first().innerText()).toBe("Sprayed against the dry time rule: Sealer checked dry to the touch; customer collecting at noon");
+
+    // Coat 2 of the ground, inside the 8-minute flash: the painter says why before tapping.
+    await page.getByRole("button", { name: "Spray anyway…" }).click();
+    await reason.fill("Light tack coat, flashed by eye");
     await logButton.click();
     await expect.poll(() => nextCoat.innerText()).toBe("Coat 3 of 3");
     expect(await page.getByRole("timer", { name: "Flash time left" }).isVisible()).toBe(true);
@@ -116,7 +131,17 @@ describe("booth card on a tablet", () => {
     await expect.poll(() => dialog.count()).toBe(0);
     await expect.poll(() => log.innerText()).toMatch(/Correction of coat 2 · Metallic ground/);
     expect(await log.innerText()).toMatch(/48% RH/);
-    expect(errors).toEqual([]);
+
+    // The job page and the finish record show the coats that went on against a timing rule, with the reasons.
+    await page.goto(`${baseUrl}/jobs/${jobId}`);
+    await expect
+      .poll(() => page.getByRole("list", { name: "Coats sprayed against a timing rule" }).innerText())
+      .toMatch(/Coat 1 of Metallic ground \(dry time\): Sealer checked dry to the touch; customer collecting at noon[\s\S]*Coat 2 of Metallic ground \(flash time\): Light tack coat, flashed by eye/);
+    await page.goto(`${baseUrl}/jobs/${jobId}/finish-record`);
+    await expect.poll(() => page.getByText(/Sprayed against a timing rule: Light tack coat, flashed by eye \(Flash time/).count()).toBe(1);
+    expect(await page.getByText(/Sprayed against a timing rule: Sealer checked dry to the touch/).count()).toBe(1);
+    // The one console error is the browser's note of the refused tap (409) above, which the test asked for.
+    expect(errors).toEqual(["Failed to load resource: the server responded with a status of 409 (Conflict)"]);
     await close();
   });
 

@@ -2,7 +2,17 @@ import sharp from "sharp";
 import { coatLogs, layerComponents, materials, mixSheetLines, mixSheets, planLayers, planVersions, plans, prepRecords, testPanels, uploads } from "../../server/db/schema";
 import { storeFile } from "../../server/modules/uploads/storage";
 import type { LayerKind } from "../../shared/domain/layers";
-import type { Shop, TestApp } from "./test-app";
+import { makeShop, type Shop, type TestApp } from "./test-app";
+
+/** After the test shop's records are made (they carry the real clock), so every test time is later. */
+export const T0 = Date.parse("2035-06-01T09:00:00Z");
+
+/** A shop whose clock the test moves (every server time comes from deps.now). */
+export async function clockShop() {
+  const clock = { now: T0 };
+  const s = await makeShop({ now: () => clock.now });
+  return { s, clock };
+}
 
 /** A small real PNG (a colour swatch) made with sharp. */
 export async function swatchPng(rgb: { r: number; g: number; b: number } = { r: 150, g: 20, b: 40 }, size = 64) {

@@ -77,6 +77,9 @@ export const coatLogs = sqliteTable(
     mixSheetId: integer("mix_sheet_id").references(() => mixSheets.id, { onDelete: "set null" }),
     /** Given when the first coat went on before every item's prep was signed off. */
     prepOverrideReason: text("prep_override_reason"),
+    /** Given when the coat went on against a timing rule (flash, dry, recoat window, induction, no batch); the rules broken beside it. */
+    timingOverrideReason: text("timing_override_reason"),
+    timingBreaches: text("timing_breaches", { mode: "json" }).$type<{ rule: string; message: string }[]>(),
     gunId: integer("gun_id").references(() => guns.id, { onDelete: "set null" }),
     ...spraySetupColumns(),
     correctsId: integer("corrects_id").references((): AnySQLiteColumn => coatLogs.id, { onDelete: "restrict" }),

@@ -20,6 +20,11 @@ export const materials = sqliteTable(
     waterExemptPct: real("water_exempt_pct").notNull().default(0),
     densityGPerMl: real("density_g_per_ml"),
     potLifeMinutes: integer("pot_life_minutes"),
+    /** Data-sheet timing: how long a mixed batch stands before spraying (induction), minutes. */
+    inductionMinutes: integer("induction_minutes"),
+    /** Data-sheet recoat window: the next layer goes on no sooner than min and no later than max minutes after the last coat. */
+    recoatMinMinutes: integer("recoat_min_minutes"),
+    recoatMaxMinutes: integer("recoat_max_minutes"),
     containsIsocyanates: integer("contains_isocyanates", { mode: "boolean" }).notNull().default(false),
     flammable: integer("flammable", { mode: "boolean" }).notNull().default(false),
     /** Low-stock threshold in the purchase unit. */

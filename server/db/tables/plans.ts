@@ -58,6 +58,11 @@ export const planLayers = sqliteTable(
     /** Spraying time of one coat, for the timeline. */
     minutesPerCoat: real("minutes_per_coat").notNull().default(5),
     dryMinutes: real("dry_minutes").notNull().default(0),
+    /** How long a mixed batch of this layer stands before spraying, minutes (from the data sheets when the plan is saved). */
+    inductionMinutes: real("induction_minutes"),
+    /** The window for the next layer over this one, minutes after its last coat (from the data sheets when not given). */
+    recoatMinMinutes: real("recoat_min_minutes"),
+    recoatMaxMinutes: real("recoat_max_minutes"),
     gunTip: text("gun_tip"),
     pressurePsi: real("pressure_psi"),
     overlapPct: real("overlap_pct"),

@@ -1,12 +1,12 @@
-import { aliasedTable, and, asc, desc, eq, isNotNull, sql } from "drizzle-orm";
+import { and, asc, desc, eq, isNotNull, sql } from "drizzle-orm";
 import QRCode from "qrcode";
 import type { z } from "zod";
 import type { AppDeps } from "../../deps";
 import type { Actor } from "../../auth/session";
 import type { RequestContext } from "../../http/context";
-import { coatLogs, customers, guns, jobItems, jobs, jobStageEvents, mixSheetLines, mixSheets, planVersions, plans, prepRecords, testPanels, uploads, users } from "../../db/schema";
+import { coatLogs, customers, guns, jobItems, jobs, jobStageEvents, planVersions, plans, prepRecords, testPanels, uploads, users } from "../../db/schema";
 import { conflict, forbidden, notFound } from "../../http/http-error";
-import { iso, isoOrNull } from "../../http/dates";
+import { iso } from "../../http/dates";
 import { madeAt } from "../../http/made-at";
 import { checkGun, gunNames } from "../guns/guns.service";
 import { setupColumns, setupOf } from "../guns/spray-setup";
@@ -15,15 +15,17 @@ import { preparedQuery } from "../../db/prepared";
 import { freezePlanVersion, jobPlanRow, loadPlanVersion, type LoadedPlanVersion } from "../plans/plans.service";
 import { panelLabel } from "../panels/panels.service";
 import { prepStatusOf } from "../prep/prep.service";
-import { convertVolume, isVolumeUnit, potLifeEnds } from "../../../shared/mix/index";
-import { coatCount, effectiveCoats, type CoatEntry, type TempUnit } from "../../../shared/domain/booth";
-import { boothNext, openBatchFor } from "../../../shared/domain/booth-next";
+import { asEntry, coatDtos, coatRows, mixSheetDtos } from "./booth-records";
+import { nextCoatTiming, timingOverride } from "./coat-timing";
+import { layerVoc } from "../plans/plan-estimate.service";
+import { getSettings } from "../settings/settings.service";
+import { vocAgainstLimit } from "../../../shared/domain/voc-limits";
+import { coatCount, effectiveCoats, nextBoothStep, type TempUnit } from "../../../shared/domain/booth";
 import { needsAdhesionPromoter } from "../../../shared/domain/substrates";
 import { STAGE_LABELS, type Stage } from "../../../shared/domain/stages";
 import type {
   BoothDto,
   BoothLayerDto,
-  BoothMixSheetDto,
   BoothNextDto,
   CoatLogDto,
   correctCoatLogInputSchema,
@@ -31,7 +33,6 @@ import type {
   JobTicketDto,
 } from "../../../shared/schemas/booth.schema";
 
-type CoatRow = typeof coatLogs.$inferSelect;
 type JobRow = typeof jobs.$inferSelect;
 
 /** Stages in which coats may be logged: prep (the first coat moves the job to the booth), booth, and curing (re-logging a voided last coat). */
@@ -69,97 +70,6 @@ function boothVersion(deps: AppDeps, job: JobRow): { planId: number; planName: s
   const version = loadPlanVersion(deps, versionId);
   const plan = planNameQuery(deps.db).get({ planId: version.planId });
   return plan ? { planId: plan.id, planName: plan.name, version } : null;
-}
-
-const painterOf = aliasedTable(users, "coat_painter");
-
-const coatRowsQuery = preparedQuery((db) =>
-  db
-    .select({ c: coatLogs, painterName: painterOf.name })
-    .from(coatLogs)
-    .leftJoin(painterOf, eq(coatLogs.painterId, painterOf.id))
-    .where(eq(coatLogs.jobId, p("jobId")))
-    .orderBy(asc(coatLogs.id))
-    .prepare(),
-);
-const coatRows = (deps: AppDeps, jobId: number) => coatRowsQuery(deps.db).all({ jobId });
-
-const asEntry = (c: CoatRow): CoatEntry => ({ id: c.id, layerId: c.layerId, coatNumber: c.coatNumber, at: c.at, correctsId: c.correctsId, voids: c.voids });
-
-function coatDtos(deps: AppDeps, rows: { c: CoatRow; painterName: string | null }[], layerNames: Map<number, string>): CoatLogDto[] {
-  const guns = rows.some((r) => r.c.gunId != null) ? gunNames(deps) : new Map<number, string>();
-  const effective = new Map(effectiveCoats(rows.map((r) => asEntry(r.c))).map((e) => [e.id, e]));
-  const voided = new Set(rows.filter((r) => r.c.voids && r.c.correctsId != null).map((r) => r.c.correctsId!));
-  return rows.map(({ c, painterName }) => ({
-    id: c.id,
-    jobId: c.jobId,
-    layerId: c.layerId,
-    layerName: layerNames.get(c.layerId) ?? "Layer of an earlier plan version",
-    coatNumber: c.coatNumber,
-    at: iso(c.at),
-    loggedAt: iso(c.createdAt),
-    painterName,
-    boothTemp: c.boothTemp,
-    tempUnit: c.tempUnit,
-    humidityPct: c.humidityPct,
-    note: c.note,
-    setup: setupOf(c, guns),
-    mixSheetId: c.mixSheetId,
-    prepOverrideReason: c.prepOverrideReason,
-    correctsId: c.correctsId,
-    correctionReason: c.correctionReason,
-    voids: c.voids,
-    status: c.correctsId != null ? "correction" : voided.has(c.id) ? "voided" : effective.get(c.id)?.correctedBy ? "corrected" : "counts",
-  }));
-}
-
-const mixer = aliasedTable(users, "mixer");
-const sheetsQuery = preparedQuery((db) =>
-  db
-    .select({ s: mixSheets, mixedByName: mixer.name })
-    .from(mixSheets)
-    .leftJoin(mixer, eq(mixSheets.mixedBy, mixer.id))
-    .where(eq(mixSheets.jobId, p("jobId")))
-    .orderBy(desc(mixSheets.createdAt), desc(mixSheets.id))
-    .prepare(),
-);
-const sheetLinesQuery = preparedQuery((db) =>
-  db
-    .select({ sheetId: mixSheetLines.mixSheetId, position: mixSheetLines.position, label: mixSheetLines.label, plannedMl: mixSheetLines.plannedMl, actualMl: mixSheetLines.actualMl, lotNumber: mixSheetLines.lotNumber })
-    .from(mixSheetLines)
-    .innerJoin(mixSheets, eq(mixSheetLines.mixSheetId, mixSheets.id))
-    .where(eq(mixSheets.jobId, p("jobId")))
-    .orderBy(asc(mixSheetLines.position))
-    .prepare(),
-);
-
-function mixSheetDtos(deps: AppDeps, jobId: number): BoothMixSheetDto[] {
-  const sheets = sheetsQuery(deps.db).all({ jobId });
-  const lines = sheets.length ? sheetLinesQuery(deps.db).all({ jobId }) : [];
-  return sheets.map(({ s, mixedByName }) => {
-    const unit = s.unit;
-    const potEnd = s.mixedAt != null && s.potLifeMinutes != null && s.potLifeMinutes > 0 ? potLifeEnds(new Date(s.mixedAt), s.potLifeMinutes).toISOString() : null;
-    return {
-      id: s.id,
-      layerId: s.layerId,
-      status: s.status,
-      volumeMl: s.totalMl,
-      unit,
-      mixedAt: isoOrNull(s.mixedAt),
-      mixedByName: s.mixedAt ? mixedByName : null,
-      potLifeMinutes: s.potLifeMinutes,
-      potLifeEndsAt: potEnd,
-      lines: lines
-        .filter((l) => l.sheetId === s.id)
-        .map((l) => ({
-          label: l.label,
-          plannedMl: l.plannedMl,
-          plannedInUnit: isVolumeUnit(unit) ? convertVolume(l.plannedMl, "mL", unit) : l.plannedMl,
-          actualMl: l.actualMl,
-          lotNumber: l.lotNumber,
-        })),
-    };
-  });
 }
 
 const headQuery = preparedQuery((db) =>
@@ -235,10 +145,21 @@ export function getBooth(deps: AppDeps, actor: Actor, jobId: number): BoothDto {
   let openBatch: BoothDto["openBatch"] = null;
   if (planned) {
     const versionLayers = planned.version.layers;
-    const step = boothNext(versionLayers, rows.map((r) => asEntry(r.c)), now);
+    // A "prep" layer is done through the prep records, not sprayed: it is not part of the coat sequence.
+    const sprayLayers = versionLayers.filter((l) => l.kind !== "prep");
+    const layerIds = new Set(sprayLayers.map((l) => l.id));
+    const effective = effectiveCoats(rows.filter((r) => layerIds.has(r.c.layerId)).map((r) => asEntry(r.c)));
+    const step = nextBoothStep(sprayLayers, effective, now);
+    const progress = new Map(step.layers.map((p) => [p.layerId, p]));
+    const { vocLimits } = getSettings(deps);
     layers = versionLayers.map((l) => {
-      const p = step.progress.get(l.id);
+      const p = progress.get(l.id);
+      const vocGPerL = layerVoc(l);
+      const voc = vocAgainstLimit(l.kind, vocGPerL, vocLimits);
       return {
+        vocGPerL,
+        vocLimitGPerL: voc.limitGPerL,
+        vocOverLimit: voc.over,
         id: l.id,
         position: l.position,
         kind: l.kind,
@@ -247,6 +168,10 @@ export function getBooth(deps: AppDeps, actor: Actor, jobId: number): BoothDto {
         flashMinutes: l.flashMinutes,
         minutesPerCoat: l.minutesPerCoat,
         dryMinutes: l.dryMinutes,
+        inductionMinutes: l.inductionMinutes,
+        recoatMinMinutes: l.recoatMinMinutes,
+        recoatMaxMinutes: l.recoatMaxMinutes,
+        catalysed: l.catalysed,
         gunTip: l.gunTip,
         pressurePsi: l.pressurePsi,
         overlapPct: l.overlapPct,
@@ -258,8 +183,31 @@ export function getBooth(deps: AppDeps, actor: Actor, jobId: number): BoothDto {
         status: p ? p.status : prepReady ? "done" : "current",
       };
     });
-    next = step.next;
-    openBatch = openBatchFor(next, sheets);
+    const timer = (t: { kind: "flash" | "dry"; startedAt: number; endsAt: number } | null) => (t ? { kind: t.kind, startedAt: iso(t.startedAt), endsAt: iso(t.endsAt) } : null);
+    if (step.state === "no_layers") next = { state: "no_layers" };
+    else if (step.state === "done") next = { state: "done", lastCoatAt: iso(step.lastCoatAt), timer: timer(step.timer)! };
+    else {
+      const layer = sprayLayers[step.layerIndex]!;
+      const batch = sheets.find((s) => s.layerId === layer.id && s.status === "mixed" && s.mixedAt);
+      if (batch) openBatch = { mixSheetId: batch.id, layerId: batch.layerId, mixedAt: batch.mixedAt!, potLifeEndsAt: batch.potLifeEndsAt };
+      const timing = nextCoatTiming(sprayLayers, effective, step.layerIndex, step.coat, batch?.mixedAt ?? null, now);
+      // A minimum recoat time longer than the dry time holds the next layer back: the dry timer runs to the later.
+      let stepTimer = step.timer;
+      if (stepTimer?.kind === "dry" && timing.windows.dryEndsAt) stepTimer = { ...stepTimer, endsAt: Math.max(stepTimer.endsAt, Date.parse(timing.windows.dryEndsAt)) };
+      next = {
+        state: "spray",
+        layerId: layer.id,
+        layerName: layer.name,
+        layerKind: layer.kind,
+        coat: step.coat,
+        of: step.of,
+        isLastLayer: step.isLastLayer,
+        isFirstCoatOfJob: effective.length === 0,
+        timer: timer(stepTimer),
+        layerDoneAt: iso(step.layerDoneAt),
+        ...timing,
+      };
+    }
   }
 
   return {
@@ -289,6 +237,9 @@ export function getBooth(deps: AppDeps, actor: Actor, jobId: number): BoothDto {
     prepOverrides: rows
       .filter((r) => r.c.prepOverrideReason)
       .map((r) => ({ coatLogId: r.c.id, reason: r.c.prepOverrideReason!, byName: r.painterName, at: iso(r.c.createdAt) })),
+    timingOverrides: coatLogsDto
+      .filter((c) => c.timingOverrideReason && c.status !== "voided")
+      .map((c) => ({ coatLogId: c.id, layerName: c.layerName, coatNumber: c.coatNumber, reason: c.timingOverrideReason!, breaches: c.timingBreaches ?? [], byName: c.painterName, at: c.at })),
   };
 }
 
@@ -356,6 +307,7 @@ export function logCoat(deps: AppDeps, ctx: RequestContext, input: z.output<type
     }
     override = `${input.prepOverrideReason} (prep not signed off: ${pending.join(", ")})`.slice(0, 800);
   }
+  const timingOverridden = timingOverride(next, input.timingOverrideReason);
   checkGun(deps, input.gunId);
   const now = deps.now();
   const at = madeAt(input.at, now, [
@@ -378,6 +330,8 @@ export function logCoat(deps: AppDeps, ctx: RequestContext, input: z.output<type
         ...setupColumns(input),
         mixSheetId: booth.openBatch?.mixSheetId ?? null,
         prepOverrideReason: override,
+        timingOverrideReason: timingOverridden?.reason ?? null,
+        timingBreaches: timingOverridden?.breaches ?? null,
         createdAt: now,
       })
       .run();

@@ -115,6 +115,10 @@ export function finishRecord(deps: AppDeps, actor: Actor, jobId: number): Finish
     const coats: FinishCoatDto[] = (byLayer.get(layer.id) ?? []).map(({ original, current, painterName }) => {
       const overrides: FinishCoatDto["overrides"] = [];
       if (original.prepOverrideReason) overrides.push({ rule: "prep", reason: original.prepOverrideReason });
+      if (original.timingOverrideReason) {
+        const rules = (original.timingBreaches ?? []).map((b) => b.message).join("; ");
+        overrides.push({ rule: "timing", reason: rules ? `${original.timingOverrideReason} (${rules})` : original.timingOverrideReason });
+      }
       return {
         coatNumber: original.coatNumber,
         at: iso(current.at),

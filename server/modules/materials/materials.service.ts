@@ -140,7 +140,13 @@ function codeTaken(deps: AppDeps, code: string, exceptId?: number) {
 }
 
 /** The cost of a material is money: its changes are audited. */
+/** The data sheet's recoat window must open before it closes. */
+function checkRecoatWindow(min: number | null | undefined, max: number | null | undefined) {
+  if (min != null && max != null && min > max) throw badRequest("The latest recoat must be after the earliest", { recoatMaxMinutes: "Must be after the earliest recoat" });
+}
+
 export function createMaterial(deps: AppDeps, ctx: RequestContext, input: CreateMaterialValues): MaterialDetailDto {
+  checkRecoatWindow(input.recoatMinMinutes, input.recoatMaxMinutes);
   if (codeTaken(deps, input.code)) throw conflict(`Code ${input.code} is already used by another material`, { code: "Already used" });
   const now = deps.now();
   const id = deps.db.transaction((tx) => {
@@ -157,6 +163,9 @@ export function createMaterial(deps: AppDeps, ctx: RequestContext, input: Create
         waterExemptPct: input.waterExemptPct ?? 0,
         densityGPerMl: input.densityGPerMl ?? null,
         potLifeMinutes: input.potLifeMinutes ?? null,
+        inductionMinutes: input.inductionMinutes ?? null,
+        recoatMinMinutes: input.recoatMinMinutes ?? null,
+        recoatMaxMinutes: input.recoatMaxMinutes ?? null,
         containsIsocyanates: input.containsIsocyanates ?? false,
         flammable: input.flammable ?? false,
         lowStockThreshold: input.lowStockThreshold ?? null,
@@ -175,6 +184,7 @@ export function createMaterial(deps: AppDeps, ctx: RequestContext, input: Create
 
 export function updateMaterial(deps: AppDeps, ctx: RequestContext, id: number, input: z.output<typeof updateMaterialInputSchema>): MaterialDetailDto {
   const before = findMaterial(deps, id);
+  checkRecoatWindow(input.recoatMinMinutes !== undefined ? input.recoatMinMinutes : before.recoatMinMinutes, input.recoatMaxMinutes !== undefined ? input.recoatMaxMinutes : before.recoatMaxMinutes);
   if (input.code && codeTaken(deps, input.code, id)) throw conflict(`Code ${input.code} is already used by another material`, { code: "Already used" });
   const { version, ...fields } = input;
   const set: Partial<MaterialRow> = {};

@@ -10,6 +10,8 @@ import type { LayerKind } from "../../../shared/domain/layers";
 import type { PlanEstimateDto } from "../../../shared/schemas/plan.schema";
 import { jobPlanRow, loadPlanVersion, type DbOrTx, type LoadedLayer } from "./plans.service";
 import { seesCost } from "../materials/materials.service";
+import { getSettings } from "../settings/settings.service";
+import { vocAgainstLimit, type VocLimit } from "../../../shared/domain/voc-limits";
 import { desc } from "drizzle-orm";
 import { planVersions } from "../../db/schema";
 
@@ -42,6 +44,8 @@ export type JobPlanEstimate = {
     volumeMl: number;
     costCents: number;
     vocGPerL: number | null;
+    vocLimitGPerL: number | null;
+    vocOverLimit: boolean;
     volumeSolidsPct: number | null;
     film: LayerFilm | null;
     cautions: Caution[];
@@ -75,10 +79,34 @@ function filmOf(layer: LoadedLayer, volumeSolidsPct: number): LayerFilm | null {
 const SOLIDS_FREE = new Set(["reducer", "cleaner"]);
 
 type LayerResult = JobPlanEstimate["layers"][number] & { exactCostCents: number };
+type BaseResult = Omit<LayerResult, "vocLimitGPerL" | "vocOverLimit">;
 
-export function estimateLayer(layer: LoadedLayer, areaM2: number): LayerResult {
+function vocOfShares(layer: LoadedLayer, shares: number[]): number | null {
+  if (!layer.components.every((c) => c.vocGPerL != null)) return null;
+  return mixVoc(layer.components.map((c, i) => ({ volume: shares[i]!, vocGPerL: c.vocGPerL!, waterExemptPct: c.waterExemptPct })));
+}
+
+/** The mixed layer's VOC, g/L less water and exempt (null when a material has no figure or the mix does not resolve). */
+export function layerVoc(layer: LoadedLayer): number | null {
+  if (layer.components.length === 0) return null;
+  try {
+    return vocOfShares(layer, resolveShares(toMixComponents(layer.components)).map((s) => s.share));
+  } catch (e) {
+    if (e instanceof MixError) return null;
+    throw e;
+  }
+}
+
+/** One layer's estimate, with its mixed VOC checked against the shop's limit for its category (`limits`, shop settings). */
+export function estimateLayer(layer: LoadedLayer, areaM2: number, limits: readonly VocLimit[] = []): LayerResult {
+  const e = estimateBase(layer, areaM2);
+  const voc = vocAgainstLimit(layer.kind, e.vocGPerL, limits);
+  return { ...e, vocLimitGPerL: voc.limitGPerL, vocOverLimit: voc.over };
+}
+
+function estimateBase(layer: LoadedLayer, areaM2: number): BaseResult {
   const base = { layerId: layer.id, name: layer.name, kind: layer.kind, cautions: layer.cautions };
-  const none = (problem: string | null, extra: Partial<LayerResult> = {}): LayerResult => ({
+  const none = (problem: string | null, extra: Partial<BaseResult> = {}): BaseResult => ({
     ...base,
     volumeMl: 0,
     costCents: 0,
@@ -97,10 +125,7 @@ export function estimateLayer(layer: LoadedLayer, areaM2: number): LayerResult {
     if (e instanceof MixError) return none(`The mix does not resolve: ${e.message}`);
     throw e;
   }
-  let vocGPerL: number | null = null;
-  if (layer.components.every((c) => c.vocGPerL != null)) {
-    vocGPerL = mixVoc(layer.components.map((c, i) => ({ volume: shares[i]!, vocGPerL: c.vocGPerL!, waterExemptPct: c.waterExemptPct })));
-  }
+  const vocGPerL = vocOfShares(layer, shares);
   const noSolids = layer.components.find((c) => c.volumeSolidsPct == null && !SOLIDS_FREE.has(c.category));
   if (noSolids) return none(`${noSolids.materialCode} has no volume solids in the catalogue`, { vocGPerL });
   const vs = mixVolumeSolids(layer.components.map((c, i) => ({ volume: shares[i]!, volumeSolidsPct: c.volumeSolidsPct ?? 0 })));
@@ -147,7 +172,8 @@ export function estimateJobPlan(deps: { db: DbOrTx }, jobId: number): JobPlanEst
   if (!latest) return null;
   const version = loadPlanVersion(deps, latest.id);
   const areaM2 = jobAreaM2(deps.db, jobId);
-  const layers = version.layers.map((l) => estimateLayer(l, areaM2));
+  const { vocLimits } = getSettings(deps);
+  const layers = version.layers.map((l) => estimateLayer(l, areaM2, vocLimits));
   const exactTotal = layers.reduce((a, l) => a + l.exactCostCents, 0);
   const problems = layers.filter((l) => l.problem).map((l) => `${l.name}: ${l.problem}`);
   return {

@@ -13,6 +13,7 @@ import { findJobFor, jobScope } from "../jobs/jobs.access";
 import { seesCost } from "../materials/materials.service";
 import { cautionsFor } from "../../../shared/domain/safety";
 import { layerMixProblem } from "../../../shared/domain/layer-mix";
+import { layerTimingDefaults, type MaterialTiming } from "../../../shared/domain/booth-timing";
 import type {
   LayerComponentDto,
   ListPlansQuery,
@@ -135,6 +136,10 @@ export function loadPlanVersion(deps: { db: DbOrTx }, versionId: number): Loaded
         flashMinutes: l.flashMinutes,
         minutesPerCoat: l.minutesPerCoat,
         dryMinutes: l.dryMinutes,
+        inductionMinutes: l.inductionMinutes,
+        recoatMinMinutes: l.recoatMinMinutes,
+        recoatMaxMinutes: l.recoatMaxMinutes,
+        catalysed: components.some((c) => c.category === "hardener" || c.containsIsocyanates),
         gunTip: l.gunTip,
         pressurePsi: l.pressurePsi,
         overlapPct: l.overlapPct,
@@ -349,6 +354,8 @@ export function validateDocument(deps: { db: DbOrTx }, doc: PlanDocument) {
     layer.components.forEach((c, j) => {
       if (!known.has(c.materialId)) fields[`layers.${i}.components.${j}.materialId`] = "No such material in the catalogue";
     });
+    if (layer.recoatMinMinutes != null && layer.recoatMaxMinutes != null && layer.recoatMinMinutes > layer.recoatMaxMinutes)
+      fields[`layers.${i}.recoatMaxMinutes`] = "The latest recoat must be after the earliest";
     const problem = layerMixProblem(layer.components);
     if (problem) fields[`layers.${i}.${problem.path}`] = problem.message;
   });
@@ -359,8 +366,23 @@ export function validateDocument(deps: { db: DbOrTx }, doc: PlanDocument) {
   }
 }
 
+/** The materials' data-sheet timing figures, by material id (one query for the whole document). */
+function materialTimings(tx: DbOrTx, layers: PlanDocument["layers"]): Map<number, MaterialTiming> {
+  const ids = [...new Set(layers.flatMap((l) => l.components.map((c) => c.materialId)))];
+  if (!ids.length) return new Map();
+  const rows = tx
+    .select({ id: materials.id, inductionMinutes: materials.inductionMinutes, recoatMinMinutes: materials.recoatMinMinutes, recoatMaxMinutes: materials.recoatMaxMinutes })
+    .from(materials)
+    .where(inArray(materials.id, ids))
+    .all();
+  return new Map(rows.map((r) => [r.id, r]));
+}
+
 function insertLayers(tx: DbOrTx, versionId: number, layers: PlanDocument["layers"]) {
+  const timings = materialTimings(tx, layers);
   layers.forEach((l, i) => {
+    // A timing figure left empty comes from the data sheets now, so the saved version keeps it whatever the catalogue says later.
+    const sheet = layerTimingDefaults(l.components.map((c) => timings.get(c.materialId)).filter((t): t is MaterialTiming => t != null));
     const layer = tx
       .insert(planLayers)
       .values({
@@ -372,6 +394,9 @@ function insertLayers(tx: DbOrTx, versionId: number, layers: PlanDocument["layer
         flashMinutes: l.flashMinutes,
         minutesPerCoat: l.minutesPerCoat ?? 5,
         dryMinutes: l.dryMinutes,
+        inductionMinutes: l.inductionMinutes ?? sheet.inductionMinutes,
+        recoatMinMinutes: l.recoatMinMinutes ?? sheet.recoatMinMinutes,
+        recoatMaxMinutes: l.recoatMaxMinutes ?? sheet.recoatMaxMinutes,
         gunTip: l.gunTip ?? null,
         pressurePsi: l.pressurePsi ?? null,
         overlapPct: l.overlapPct ?? null,
@@ -424,6 +449,9 @@ export function documentOf(name: string, description: string | null, v: LoadedPl
       flashMinutes: l.flashMinutes,
       minutesPerCoat: l.minutesPerCoat,
       dryMinutes: l.dryMinutes,
+      inductionMinutes: l.inductionMinutes,
+      recoatMinMinutes: l.recoatMinMinutes,
+      recoatMaxMinutes: l.recoatMaxMinutes,
       gunTip: l.gunTip,
       pressurePsi: l.pressurePsi,
       overlapPct: l.overlapPct,

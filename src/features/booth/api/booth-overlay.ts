@@ -33,6 +33,8 @@ export function withWaitingCoats(card: BoothDto, queue: readonly QueuedEntry[], 
       setup: { ...EMPTY_SETUP, gunName: null, summary: "" },
       mixSheetId: null,
       prepOverrideReason: typeof b.prepOverrideReason === "string" ? b.prepOverrideReason : null,
+      timingOverrideReason: typeof b.timingOverrideReason === "string" ? b.timingOverrideReason : null,
+      timingBreaches: null,
       correctsId: null,
       correctionReason: null,
       voids: false,
@@ -41,7 +43,7 @@ export function withWaitingCoats(card: BoothDto, queue: readonly QueuedEntry[], 
   });
   const coatLogs = [...card.coatLogs, ...extra];
   const entries: CoatEntry[] = coatLogs.map((c) => ({ id: c.id, layerId: c.layerId, coatNumber: c.coatNumber, at: Date.parse(c.at), correctsId: c.correctsId, voids: c.voids }));
-  const { next, progress } = boothNext(card.layers, entries, now);
+  const { next, progress } = boothNext(card.layers, entries, card.mixSheets, now);
   return {
     ...card,
     layers: card.layers.map((l) => {

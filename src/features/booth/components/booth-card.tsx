@@ -16,6 +16,7 @@ import { BatchPanel } from "./batch-panel";
 import { CoatLogList } from "./coat-log-list";
 import { LayerList } from "./layer-list";
 import { NextStepPanel } from "./next-step-panel";
+import { TimingOverrides } from "./timing-windows";
 
 export type BoothPaths = { job: string; prep: string; ticket: string; jobPlan: string; mixSheet: (id: number) => string };
 
@@ -66,6 +67,8 @@ export function BoothCard({ card, receivedAt, paths, queued }: { card: BoothDto;
           </ul>
         </Alert>
       ) : null}
+
+      <TimingOverrides card={card} />
 
       <div className="grid gap-5 xl:grid-cols-[minmax(0,1.25fr)_minmax(0,1fr)]">
         <div className="flex min-w-0 flex-col gap-5">

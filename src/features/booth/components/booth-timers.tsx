@@ -80,7 +80,7 @@ const TONES = {
   danger: "border-red-700 bg-red-50 text-red-950",
 } as const;
 
-function TimerBox({
+export function TimerBox({
   tone,
   icon,
   label,

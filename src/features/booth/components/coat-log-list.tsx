@@ -1,5 +1,6 @@
 import { lazy, Suspense, useState } from "react";
 import type { BoothDto, CoatLogDto } from "@shared/schemas/booth.schema";
+import { TIMING_RULE_LABELS } from "@shared/domain/booth-timing";
 import { Button } from "@/components/ui/button";
 import { Panel } from "@/components/ui/panel";
 import { formatDateTime } from "@/utils/format-date";
@@ -42,6 +43,11 @@ export function CoatLogList({ card }: { card: BoothDto }) {
                 {e.correctionReason ? <p className="text-sm text-ink-950">{e.voids ? "Not sprayed: " : "Why: "}{e.correctionReason}</p> : null}
                 {e.note ? <p className="text-sm text-ink-950">Note: {e.note}</p> : null}
                 {e.prepOverrideReason ? <p className="text-sm font-semibold text-flake-800">Sprayed before prep sign-off: {e.prepOverrideReason}</p> : null}
+                {e.timingOverrideReason ? (
+                  <p className="text-sm font-semibold text-flake-800" data-testid="timing-override">
+                    Sprayed against the {(e.timingBreaches ?? []).map((b) => TIMING_RULE_LABELS[b.rule].toLowerCase()).join(", ") || "timing"} rule: {e.timingOverrideReason}
+                  </p>
+                ) : null}
               </div>
               {card.canLog && !isWaiting(e) && (e.status === "counts" || e.status === "corrected") ? (
                 <Button variant="secondary" size="lg" onClick={() => setCorrecting(e)}>

@@ -6,6 +6,7 @@ import { ButtonLink } from "@/components/ui/button";
 import { Panel } from "@/components/ui/panel";
 import { formatDateTime } from "@/utils/format-date";
 import { boothQueries } from "../api/booth.queries";
+import { TimingOverrides } from "./timing-windows";
 
 /** On the job page: how far the job is at the booth, prep sign-offs, any spraying before sign-off, and the links. */
 export function JobBoothSummary({ jobId, paths }: { jobId: number; paths: { booth: string; prep: string; ticket: string } }) {
@@ -62,6 +63,7 @@ export function JobBoothSummary({ jobId, paths }: { jobId: number; paths: { boot
               </p>
             </Alert>
           ))}
+          <TimingOverrides card={data} />
         </div>
       )}
     </Panel>

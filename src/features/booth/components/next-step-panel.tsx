@@ -1,7 +1,9 @@
+import { switchTemperatureText } from "@shared/domain/temperature";
 import { useEffect, useState, type ChangeEvent, type FormEvent } from "react";
 import { Link } from "react-router";
 import { CheckCircle2, PaintBucket, TriangleAlert } from "lucide-react";
 import { LAYER_KIND_LABELS } from "@shared/domain/layers";
+import { vocWarning } from "@shared/domain/voc-limits";
 import type { BoothDto } from "@shared/schemas/booth.schema";
 import { isApiError } from "@/lib/api-client";
 import { Alert } from "@/components/ui/alert";
@@ -18,6 +20,7 @@ import { formatMinutes } from "../hooks/use-server-now";
 import { ConditionInput } from "./condition-input";
 import { setupPrefill, SpraySetupPanel } from "./spray-setup-fields";
 import { formatClock, PotLifeTimer, StepTimer } from "./booth-timers";
+import { breachesAt, TimingWindowTimers } from "./timing-windows";
 
 
 /** The top of the booth card: what to spray next in large type, its timers and cautions, and the one-tap log. */
@@ -95,7 +98,13 @@ export function NextStepPanel({ card, now, clockOffset, prepPath }: { card: Boot
             <div className={cn("grid gap-3", batch ? "@[40rem]/next:grid-cols-2 @[52rem]/next:grid-cols-1" : "")}>
               <StepTimer timer={next.timer} now={now} nextLabel={nextLabel} />
               {batch ? <PotLifeTimer endsAt={batch.potLifeEndsAt} mixedAt={batch.mixedAt} now={now} /> : null}
+              <TimingWindowTimers card={card} now={now} />
             </div>
+            {current?.vocOverLimit && current.vocGPerL != null && current.vocLimitGPerL != null ? (
+              <Alert tone="error" title="VOC over the shop's limit">
+                {vocWarning(current.kind, current.vocGPerL, current.vocLimitGPerL)}
+              </Alert>
+            ) : null}
             {!batch && current && current.components.length > 0 ? (
               <Alert tone="warning" title="No batch recorded as mixed for this layer">
                 Mix it from the mix sheet first, so the pot life is timed and the batch is on the record.
@@ -104,7 +113,7 @@ export function NextStepPanel({ card, now, clockOffset, prepPath }: { card: Boot
           </div>
         </div>
         {card.canLog ? (
-          <LogCoatForm key={`${next.layerId}-${next.coat}`} card={card} clockOffset={clockOffset} prepPath={prepPath} />
+          <LogCoatForm key={`${next.layerId}-${next.coat}`} card={card} now={now} clockOffset={clockOffset} prepPath={prepPath} />
         ) : (
           <Alert tone="info" title="Read only">
             Coats are logged by the job&apos;s painter or the owner.
@@ -119,7 +128,7 @@ export function NextStepPanel({ card, now, clockOffset, prepPath }: { card: Boot
 const TAP_GUARD_MS = 1500;
 let lastTapAt = 0;
 
-function LogCoatForm({ card, clockOffset, prepPath }: { card: BoothDto; clockOffset: number; prepPath: string }) {
+function LogCoatForm({ card, now, clockOffset, prepPath }: { card: BoothDto; now: number; clockOffset: number; prepPath: string }) {
   const next = card.next;
   if (next.state !== "spray") throw new Error("LogCoatForm needs a coat to log");
   const log = useLogCoat(card, clockOffset);
@@ -132,6 +141,9 @@ function LogCoatForm({ card, clockOffset, prepPath }: { card: BoothDto; clockOff
   const [problem, setProblem] = useState<string | null>(null);
   const needsOverride = next.isFirstCoatOfJob && !card.prepReady;
   const [overriding, setOverriding] = useState(false);
+  // Too early (flash, dry, induction), too late (recoat window) or no 2K batch: the painter waits, or says why not.
+  const breaches = breachesAt(card, now);
+  const [overridingTiming, setOverridingTiming] = useState(false);
   const [noting, setNoting] = useState(false);
   const last = card.lastConditions;
   const [setup] = useState(() => setupPrefill(card, next.layerId, next.layerKind));
@@ -143,6 +155,7 @@ function LogCoatForm({ card, clockOffset, prepPath }: { card: BoothDto; clockOff
       humidityPct: last?.humidityPct != null ? String(last.humidityPct) : "",
       note: "",
       prepOverrideReason: "",
+      timingOverrideReason: "",
       ...setup.fields,
     },
   );
@@ -169,22 +182,33 @@ function LogCoatForm({ card, clockOffset, prepPath }: { card: BoothDto; clockOff
     setProblem(null);
     const parsed = form.validate();
     if (!parsed) return;
+    // Offline there is no server to refuse the tap: the tablet asks for the reason against a timing rule itself.
+    if (!navigator.onLine && breaches.length && !(overridingTiming && parsed.timingOverrideReason)) {
+      setOverridingTiming(true);
+      setProblem(`Not logged: ${breaches.map((b) => b.message).join(" ")} Give a reason to go ahead.`);
+      return;
+    }
     setSubmitting(true);
     try {
       const { jobId: _jobId, ...rest } = parsed;
       // No toast here: it would cover the log button. The "last logged" line below the button confirms it.
-      await log.mutateAsync({ ...rest, prepOverrideReason: needsOverride ? rest.prepOverrideReason : undefined });
+      await log.mutateAsync({
+        ...rest,
+        prepOverrideReason: needsOverride ? rest.prepOverrideReason : undefined,
+        timingOverrideReason: overridingTiming ? rest.timingOverrideReason : undefined,
+      });
       lastTapAt = Date.now();
       set("note", "");
       setNoting(false);
     } catch (error) {
       if (isApiError(error) && error.fields.prepOverrideReason) setOverriding(true);
+      if (isApiError(error) && error.fields.timingOverrideReason) setOverridingTiming(true);
       setProblem(form.showServerErrors(error));
     } finally {
       setSubmitting(false);
     }
   };
-  const field = <K extends "boothTemp" | "humidityPct" | "note" | "prepOverrideReason">(name: K) => ({
+  const field = <K extends "boothTemp" | "humidityPct" | "note" | "prepOverrideReason" | "timingOverrideReason">(name: K) => ({
     name,
     value: values[name],
     onChange: (e: ChangeEvent<HTMLInputElement | HTMLTextAreaElement>) => set(name, e.target.value),
@@ -225,6 +249,31 @@ function LogCoatForm({ card, clockOffset, prepPath }: { card: BoothDto; clockOff
           {...field("prepOverrideReason")}
         />
       ) : null}
+      {breaches.length > 0 ? (
+        <Alert tone="warning" title={breaches.length === 1 ? "Not yet: a timing rule" : "Not yet: timing rules"}>
+          <ul className="flex flex-col gap-1 text-base" aria-label="Timing rules the next coat would break">
+            {breaches.map((b) => (
+              <li key={b.rule}>{b.message}.</li>
+            ))}
+          </ul>
+          {!overridingTiming ? (
+            <Button variant="secondary" size="lg" className="mt-3" icon={<TriangleAlert aria-hidden className="size-5" />} onClick={() => setOverridingTiming(true)}>
+              Spray anyway…
+            </Button>
+          ) : null}
+        </Alert>
+      ) : null}
+      {overridingTiming ? (
+        <TextareaField
+          label="Reason for going ahead against the timing rule"
+          hint="Kept on the coat's record, flagged on the job page and the finish record."
+          required
+          rows={2}
+          className="text-lg"
+          error={errors.timingOverrideReason}
+          {...field("timingOverrideReason")}
+        />
+      ) : null}
       <div className="grid gap-4 @[44rem]:grid-cols-2">
         <div className="flex flex-col gap-2">
           <ConditionInput
@@ -243,7 +292,12 @@ function LogCoatForm({ card, clockOffset, prepPath }: { card: BoothDto; clockOff
                       values.tempUnit === u ? "border-ink-900 bg-ink-900 text-white" : "border-primer-400 bg-white text-ink-950",
                     )}
                   >
-                    <input type="radio" name="tempUnit" value={u} className="sr-only" checked={values.tempUnit === u} onChange={() => set("tempUnit", u)} />°{u}
+                    <input type="radio" name="tempUnit" value={u} className="sr-only" checked={values.tempUnit === u} onChange={() => {
+                        set("boothTemp", switchTemperatureText(values.boothTemp, values.tempUnit, u));
+                        set("tempUnit", u);
+                      }}
+                    />
+                    °{u}
                   </label>
                 ))}
               </fieldset>

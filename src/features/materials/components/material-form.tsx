@@ -25,6 +25,9 @@ const FIELDS = [
   "waterExemptPct",
   "densityGPerMl",
   "potLifeMinutes",
+  "inductionMinutes",
+  "recoatMinMinutes",
+  "recoatMaxMinutes",
   "containsIsocyanates",
   "flammable",
   "lowStockThreshold",
@@ -99,6 +102,9 @@ export function MaterialForm({
         <TextField label="Water and exempt (% by volume)" {...num("waterExemptPct")} error={errors.waterExemptPct?.message} />
         <TextField label="Density (g/mL)" hint="Needed to weigh on a scale" {...num("densityGPerMl")} error={errors.densityGPerMl?.message} />
         <TextField label="Pot life (minutes)" hint="Catalysed products only" {...num("potLifeMinutes")} inputMode="numeric" error={errors.potLifeMinutes?.message} />
+        <TextField label="Induction after mixing (minutes)" hint="How long a mixed batch stands before spraying" {...num("inductionMinutes")} inputMode="numeric" error={errors.inductionMinutes?.message} />
+        <TextField label="Recoat no sooner than (minutes)" hint="After the last coat, before the next layer" {...num("recoatMinMinutes")} inputMode="numeric" error={errors.recoatMinMinutes?.message} />
+        <TextField label="Recoat no later than (minutes)" hint="Past this, see the data sheet (often scuff first)" {...num("recoatMaxMinutes")} inputMode="numeric" error={errors.recoatMaxMinutes?.message} />
         <TextField label="Low-stock level (purchase units)" {...num("lowStockThreshold")} error={errors.lowStockThreshold?.message} />
       </fieldset>
       <fieldset className="flex flex-col gap-3">

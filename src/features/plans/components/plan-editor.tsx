@@ -21,6 +21,7 @@ import { cn } from "@/utils/cn";
 import { formatNumber } from "@/utils/format-quantity";
 import { useVersionGuard } from "@/hooks/use-version-guard";
 import { VersionConflictNotice } from "@/components/ui/version-conflict-notice";
+import { LayerVocNote } from "./layer-voc-note";
 
 /*
  * The plan editor: the whole layer stack in one form. Layers move with the up/down buttons (touch, keyboard)
@@ -36,6 +37,9 @@ type EditorLayer = {
   flashMinutes: string;
   minutesPerCoat: string;
   dryMinutes: string;
+  inductionMinutes: string;
+  recoatMinMinutes: string;
+  recoatMaxMinutes: string;
   gunTip: string;
   pressurePsi: string;
   overlapPct: string;
@@ -46,6 +50,9 @@ type EditorLayer = {
   components: EditorComponent[];
 };
 export type EditorValues = { name: string; description: string; versionNote: string; layers: EditorLayer[] };
+
+/** Timing fields left empty take the materials' data-sheet figures when the plan is saved. */
+const SHEET_HINT = "Empty: from the data sheets";
 
 const str = (v: number | null | undefined) => (v == null ? "" : String(v));
 
@@ -62,6 +69,9 @@ export function editorValuesOf(plan: PlanDto | null): EditorValues {
       flashMinutes: str(l.flashMinutes),
       minutesPerCoat: str(l.minutesPerCoat),
       dryMinutes: str(l.dryMinutes),
+      inductionMinutes: str(l.inductionMinutes),
+      recoatMinMinutes: str(l.recoatMinMinutes),
+      recoatMaxMinutes: str(l.recoatMaxMinutes),
       gunTip: l.gunTip ?? "",
       pressurePsi: str(l.pressurePsi),
       overlapPct: str(l.overlapPct),
@@ -96,6 +106,9 @@ export function toDocument(v: EditorValues): PlanDocumentInput {
       flashMinutes: l.flashMinutes,
       minutesPerCoat: l.minutesPerCoat === "" ? undefined : l.minutesPerCoat,
       dryMinutes: l.dryMinutes,
+      inductionMinutes: l.inductionMinutes,
+      recoatMinMinutes: l.recoatMinMinutes,
+      recoatMaxMinutes: l.recoatMaxMinutes,
       gunTip: l.gunTip,
       pressurePsi: l.pressurePsi,
       overlapPct: l.overlapPct,
@@ -169,6 +182,9 @@ function newLayer(kind: LayerKind = "clear"): EditorLayer {
     flashMinutes: "10",
     minutesPerCoat: "5",
     dryMinutes: "30",
+    inductionMinutes: "",
+    recoatMinMinutes: "",
+    recoatMaxMinutes: "",
     gunTip: "",
     pressurePsi: "",
     overlapPct: "75",
@@ -407,6 +423,9 @@ function LayerCard({ index, count, control, register, setValue, errors, material
           <TextField label="Flash between coats (min)" inputMode="decimal" error={e?.flashMinutes?.message} {...register(`${p}.flashMinutes`)} />
           <TextField label="Spray time per coat (min)" inputMode="decimal" error={e?.minutesPerCoat?.message} {...register(`${p}.minutesPerCoat`)} />
           <TextField label="Dry before next layer (min)" inputMode="decimal" error={e?.dryMinutes?.message} {...register(`${p}.dryMinutes`)} />
+          <TextField label="Induction after mixing (min)" inputMode="decimal" hint={SHEET_HINT} error={e?.inductionMinutes?.message} {...register(`${p}.inductionMinutes`)} />
+          <TextField label="Recoat no sooner than (min)" inputMode="decimal" hint={SHEET_HINT} error={e?.recoatMinMinutes?.message} {...register(`${p}.recoatMinMinutes`)} />
+          <TextField label="Recoat no later than (min)" inputMode="decimal" hint={SHEET_HINT} error={e?.recoatMaxMinutes?.message} {...register(`${p}.recoatMaxMinutes`)} />
           <TextField label="Gun tip" placeholder="1.3 mm" autoComplete="off" error={e?.gunTip?.message} {...register(`${p}.gunTip`)} />
           <TextField label="Air pressure (psi)" inputMode="decimal" error={e?.pressurePsi?.message} {...register(`${p}.pressurePsi`)} />
           <TextField label="Overlap (%)" inputMode="decimal" error={e?.overlapPct?.message} {...register(`${p}.overlapPct`)} />
@@ -445,19 +464,20 @@ function ComponentsEditor({
     if (live && live.path === `components.${j}.${field}`) return live.message;
     return undefined;
   };
-  const summary = useMemo(() => {
+  const shares = useMemo(() => {
     if (live || values.length === 0) return null;
     try {
-      const shares = resolveShares(
+      return resolveShares(
         toMixComponents(
           values.map((c) => ({ label: c.label.trim(), parts: c.mode === "parts" ? num(c.parts) : null, percent: c.mode === "percent" ? num(c.percent) : null, percentOf: c.mode === "percent" ? c.percentOf : null })),
         ),
       );
-      return shares.map((s) => `${s.name} ${formatNumber(s.share * 100, 1)} %`).join(" · ");
     } catch {
       return null;
     }
   }, [live, values]);
+  const summary = shares?.map((s) => `${s.name} ${formatNumber(s.share * 100, 1)} %`).join(" · ");
+  const kind = useWatch({ control, name: `layers.${layerIndex}.kind` });
   const chosen = values.map((c) => byId.get(c.materialId)).filter((m): m is MaterialDto => !!m);
   const cautions = cautionsFor(chosen);
 
@@ -552,6 +572,7 @@ function ComponentsEditor({
           <span className="font-semibold">Shares by volume:</span> {summary}
         </p>
       ) : null}
+      {shares ? <LayerVocNote kind={kind} parts={values.map((c) => ({ share: shares.find((x) => x.name === c.label.trim())?.share ?? 0, material: byId.get(c.materialId) }))} /> : null}
       <div className="mt-3 flex flex-wrap items-start gap-3">
         <Button
           variant="secondary"
