@@ -1,5 +1,5 @@
 import type { z } from "zod";
-import type { TempUnit } from "../domain/booth";
+import type { TempUnit } from "../domain/temperature";
 
 /** Booth air temperature limits by unit (a booth outside these is not one anyone sprays in). */
 export const TEMP_LIMITS: Record<TempUnit, { min: number; max: number }> = { C: { min: -10, max: 60 }, F: { min: 14, max: 140 } };

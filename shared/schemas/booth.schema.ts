@@ -1,5 +1,5 @@
 import { z } from "zod";
-import { TEMP_UNITS, type TempUnit } from "../domain/booth";
+import { TEMP_UNITS, type TempUnit } from "../domain/temperature";
 import type { LayerKind } from "../domain/layers";
 import type { TimingBreach } from "../domain/booth-timing";
 import type { PlanLayerDto } from "./plan.schema";

@@ -1,7 +1,7 @@
 import { z } from "zod";
 import { idSchema, isoDateSchema, optionalText } from "./common.schema";
 import type { LayerKind } from "../domain/layers";
-import type { TempUnit } from "../domain/booth";
+import type { TempUnit } from "../domain/temperature";
 import type { Stage } from "../domain/stages";
 import type { Substrate } from "../domain/substrates";
 import type { Caution } from "../domain/safety";

@@ -7,7 +7,7 @@ import type { UploadDto } from "./upload.schema";
 import type { PanelSignOffDto } from "./colour-sign-off.schema";
 import { checkSetup, spraySetupFields, type SpraySetupDto } from "./spray-setup.schema";
 import { ILLUMINANTS, PANEL_LIGHTS, type Illuminant, type PanelLight } from "../domain/spray-setup";
-import { TEMP_UNITS, type TempUnit } from "../domain/booth";
+import { TEMP_UNITS, type TempUnit } from "../domain/temperature";
 import { checkTemp } from "./booth-conditions.schema";
 
 export const MAX_PANEL_COATS = 30;

@@ -1,6 +1,6 @@
 import type { ComponentType } from "react";
 import { createBrowserRouter, Outlet, type LoaderFunctionArgs } from "react-router";
-import type { QueryClient } from "@tanstack/react-query";
+import { onlineManager, type QueryClient } from "@tanstack/react-query";
 import { NavigationProgress } from "@/components/ui/navigation-progress";
 import { FullPageSpinner } from "@/components/ui/spinner";
 import { authQueries } from "@/features/auth/api/auth.queries";
@@ -42,8 +42,13 @@ export function createAppRouter(queryClient: QueryClient) {
       id: "root",
       // Who is signed in is known before anything renders; the gates read it from the cache.
       loader: async () => {
+        // Offline, a query waits for the network: the painter's user comes from the tablet's cache (src/app/offline.ts),
+        // and with nothing cached the sign-in page shows (it says the server cannot be reached).
+        const online = onlineManager.isOnline();
+        if (!online && queryClient.getQueryData(authQueries.me().queryKey) === undefined) queryClient.setQueryData(authQueries.me().queryKey, null);
         // The health check (is this a demo with an outbox?) rides along, so the owner's menu is right at first paint.
-        await Promise.all([queryClient.ensureQueryData(authQueries.me()), queryClient.prefetchQuery(serverStatusQueries.health())]);
+        const health = queryClient.prefetchQuery(serverStatusQueries.health());
+        await Promise.all([queryClient.ensureQueryData(authQueries.me()), online ? health : null]);
         return null;
       },
       shouldRevalidate: () => false,

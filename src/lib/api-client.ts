@@ -40,7 +40,7 @@ export const isApiError = (error: unknown): error is ApiError => error instanceo
 type QueryValue = string | number | boolean | null | undefined | readonly (string | number)[];
 export type QueryParams = Record<string, QueryValue>;
 
-type RequestOptions = { query?: QueryParams; body?: unknown; signal?: AbortSignal };
+type RequestOptions = { query?: QueryParams; body?: unknown; signal?: AbortSignal; headers?: Record<string, string> };
 
 const BASE = "/api";
 
@@ -90,13 +90,13 @@ async function toApiError(response: Response): Promise<ApiError> {
   return new ApiError(response.status, code, message, {}, requestId);
 }
 
-async function request<T>(method: string, path: string, { query, body, signal }: RequestOptions = {}): Promise<T> {
+async function request<T>(method: string, path: string, { query, body, signal, headers }: RequestOptions = {}): Promise<T> {
   let response: Response;
   try {
     response = await fetch(buildUrl(path, query), {
       method,
       credentials: "same-origin",
-      headers: { Accept: "application/json", ...(body !== undefined ? { "Content-Type": "application/json" } : {}) },
+      headers: { Accept: "application/json", ...(body !== undefined ? { "Content-Type": "application/json" } : {}), ...headers },
       body: body !== undefined ? JSON.stringify(body) : undefined,
       signal,
     });

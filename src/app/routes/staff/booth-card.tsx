@@ -6,6 +6,7 @@ import { Spinner } from "@/components/ui/spinner";
 import { paths } from "@/config/paths";
 import { boothQueries } from "@/features/booth/api/booth.queries";
 import { BoothCard } from "@/features/booth/components/booth-card";
+import { useCardWithQueue } from "@/features/booth/hooks/use-card-with-queue";
 import type { RouteModule } from "@/app/router";
 import { InPageNotFound } from "../in-page-not-found";
 
@@ -20,13 +21,15 @@ export default function BoothCardRoute() {
   const id = Number(jobId);
   const valid = Number.isInteger(id) && id > 0;
   const card = useQuery({ ...boothQueries.card(id), enabled: valid });
+  const { shown, queued } = useCardWithQueue(card.data, card.dataUpdatedAt);
   if (!valid || (isApiError(card.error) && (card.error.status === 404 || card.error.status === 400)))
     return <InPageNotFound what="Job" backTo={paths.boothIndex} backLabel="Back to the booth" />;
   if (card.error && !card.data) return <Alert tone="error">{card.error.message}</Alert>;
-  if (!card.data) return <Spinner label="Loading the booth card…" />;
+  if (!card.data || !shown) return <Spinner label="Loading the booth card…" />;
   return (
     <BoothCard
-      card={card.data}
+      card={shown}
+      queued={queued}
       receivedAt={card.dataUpdatedAt}
       paths={{ job: paths.job(id), prep: paths.jobPrep(id), ticket: paths.jobTicket(id), jobPlan: paths.jobPlan(id), mixSheet: paths.mixSheet }}
     />

@@ -1,4 +1,5 @@
-import { useQuery } from "@tanstack/react-query";
+import { useEffect } from "react";
+import { useQuery, useQueryClient } from "@tanstack/react-query";
 import { Link } from "react-router";
 import { ChevronRight, SprayCan } from "lucide-react";
 import { STAGE_LABELS } from "@shared/domain/stages";
@@ -9,13 +10,22 @@ import { Spinner } from "@/components/ui/spinner";
 import { paths } from "@/config/paths";
 import { useCurrentUser } from "@/features/auth/hooks/use-current-user";
 import { jobQueries } from "@/features/jobs/api/jobs.queries";
+import { boothQueries } from "@/features/booth/api/booth.queries";
 import { BoothDay } from "@/features/schedule/components/booth-day";
 import { formatDate } from "@/utils/format-date";
+import { BOOTH_JOB_LIST } from "../../offline-keys";
 
 /** The jobs at the booth (in prep, in the booth, curing): painters see theirs, the owner all. Big tap targets. */
 export default function BoothIndexRoute() {
   const user = useCurrentUser();
-  const jobs = useQuery(jobQueries.list({ stage: ["in_booth", "in_prep", "curing"], sort: "stage", pageSize: 100 }));
+  const jobs = useQuery(jobQueries.list(BOOTH_JOB_LIST));
+  // A painter's tablet fetches every card of the list now, so each one opens in the booth with no Wi-Fi (the cards
+  // are kept on the tablet: src/app/offline.ts), even one not opened yet.
+  const queryClient = useQueryClient();
+  const painter = user.role === "painter";
+  useEffect(() => {
+    if (painter && jobs.data) for (const job of jobs.data.items) void queryClient.prefetchQuery(boothQueries.card(job.id));
+  }, [painter, jobs.data, queryClient]);
   return (
     <>
       <PageHeader title="Booth" description={user.role === "painter" ? "Your jobs in prep, in the booth and curing. Tap one to open its booth card." : "Jobs in prep, in the booth and curing."} />

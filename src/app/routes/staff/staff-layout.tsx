@@ -6,6 +6,8 @@ import { STAFF_NAV } from "@/config/nav";
 import { SessionGate } from "@/features/auth/components/session-gate";
 import { useCurrentUser } from "@/features/auth/hooks/use-current-user";
 import { serverStatusQueries } from "@/lib/server-status.queries";
+import { paths } from "@/config/paths";
+import { OfflineBanner } from "@/features/booth/components/offline-banner";
 import { ScreenBoundary } from "../screen-boundary";
 import { useSignOutAction } from "../use-sign-out-action";
 
@@ -27,6 +29,7 @@ function StaffFrame() {
   return (
     <AppShell nav={nav} userName={user.name} roleLabel={ROLE_LABELS[user.role]} onSignOut={signOut} signingOut={signingOut}>
       <ScreenBoundary>
+        {user.role === "painter" ? <OfflineBanner boothPath={paths.booth} /> : null}
         <Outlet />
       </ScreenBoundary>
     </AppShell>

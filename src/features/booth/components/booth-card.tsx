@@ -1,4 +1,4 @@
-import { useEffect, useState } from "react";
+import { useEffect, useState, type ReactNode } from "react";
 import { Link } from "react-router";
 import { ClipboardCheck, Printer, SquareArrowOutUpRight } from "lucide-react";
 import { PREP_STATUS_LABELS } from "@shared/domain/prep";
@@ -25,7 +25,7 @@ export type BoothPaths = { job: string; prep: string; ticket: string; jobPlan: s
  * The painter's screen for one job: the next step in large type with its timers and the one-tap log, the layers in
  * order, the batch, prep status and the log. Built for a tablet in the booth: big targets, high contrast, no hover.
  */
-export function BoothCard({ card, receivedAt, paths }: { card: BoothDto; receivedAt: number; paths: BoothPaths }) {
+export function BoothCard({ card, receivedAt, paths, queued }: { card: BoothDto; receivedAt: number; paths: BoothPaths; queued?: ReactNode }) {
   const now = useServerNow(card.serverNow, receivedAt);
   const current = card.next.state === "spray" ? card.layers.find((l) => l.id === (card.next as { layerId: number }).layerId) : undefined;
   const mainCautionsVisible = useInView("[data-booth-cautions]", current?.id);
@@ -78,7 +78,8 @@ export function BoothCard({ card, receivedAt, paths }: { card: BoothDto; receive
 
       <div className="grid gap-5 xl:grid-cols-[minmax(0,1.25fr)_minmax(0,1fr)]">
         <div className="flex min-w-0 flex-col gap-5">
-          <NextStepPanel card={card} now={now} prepPath={paths.prep} />
+          <NextStepPanel card={card} now={now} clockOffset={Date.parse(card.serverNow) - receivedAt} prepPath={paths.prep} />
+          {queued}
           <CoatLogList card={card} />
         </div>
         <div className="flex min-w-0 flex-col gap-5">

@@ -6,6 +6,7 @@ import { Panel } from "@/components/ui/panel";
 import { formatDateTime } from "@/utils/format-date";
 import { cn } from "@/utils/cn";
 import { formatClock } from "./booth-timers";
+import { isWaiting } from "../api/waiting";
 
 // Corrections are rare; the dialog and its form library load when the painter first opens one.
 const CorrectCoatDialog = lazy(() => import("./correct-coat-dialog").then((m) => ({ default: m.CorrectCoatDialog })));
@@ -32,6 +33,7 @@ export function CoatLogList({ card }: { card: BoothDto }) {
               <div className="min-w-0 flex-1">
                 <p className={cn("text-base font-semibold text-ink-950", e.status === "voided" && "line-through")}>
                   {e.status === "correction" ? `Correction of coat ${e.coatNumber} · ${e.layerName}` : `Coat ${e.coatNumber} · ${e.layerName}`}
+                  {isWaiting(e) ? <span className="ml-2 rounded bg-flake-100 px-2 py-0.5 text-xs font-semibold text-flake-900">Waiting to send</span> : null}
                   {STATUS[e.status] && e.status !== "correction" ? <span className="ml-2 rounded bg-primer-200 px-2 py-0.5 text-xs font-semibold text-ink-950 no-underline">{STATUS[e.status]}</span> : null}
                 </p>
                 <p className="text-sm text-primer-800">
@@ -47,7 +49,7 @@ export function CoatLogList({ card }: { card: BoothDto }) {
                   </p>
                 ) : null}
               </div>
-              {card.canLog && (e.status === "counts" || e.status === "corrected") ? (
+              {card.canLog && !isWaiting(e) && (e.status === "counts" || e.status === "corrected") ? (
                 <Button variant="secondary" size="lg" onClick={() => setCorrecting(e)}>
                   Correct<span className="sr-only"> coat {e.coatNumber} of {e.layerName}</span>
                 </Button>

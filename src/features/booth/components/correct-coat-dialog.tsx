@@ -69,8 +69,10 @@ export function CorrectCoatDialog({ jobId, entry, canVoid, onClose }: { jobId: n
       if (dirtyFields.note) changed.note = values.note;
     }
     try {
-      await correct.mutateAsync({ id: entry.id, ...changed } as Values & { id: number });
-      toast.success(values.void ? `Coat ${entry.coatNumber} of ${entry.layerName} marked as not sprayed` : "Correction saved");
+      const label = `Correction of coat ${entry.coatNumber} of ${entry.layerName}`;
+      const sent = await correct.mutateAsync({ id: entry.id, label, ...changed } as Values & { id: number; label: string });
+      if (sent.queued) toast.info("Offline: the correction is kept on this tablet and sent when the connection is back");
+      else toast.success(values.void ? `Coat ${entry.coatNumber} of ${entry.layerName} marked as not sprayed` : "Correction saved");
       onClose();
     } catch (error) {
       setProblem(applyServerErrors(error, setError, FIELDS));

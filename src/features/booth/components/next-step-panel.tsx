@@ -1,5 +1,5 @@
-import { switchTemperatureText } from "@shared/domain/booth";
-import { useState, type ChangeEvent, type FormEvent } from "react";
+import { switchTemperatureText } from "@shared/domain/temperature";
+import { useEffect, useState, type ChangeEvent, type FormEvent } from "react";
 import { Link } from "react-router";
 import { CheckCircle2, PaintBucket, TriangleAlert } from "lucide-react";
 import { LAYER_KIND_LABELS } from "@shared/domain/layers";
@@ -12,8 +12,9 @@ import { TextareaField } from "@/components/ui/form/textarea-field";
 import { TextField } from "@/components/ui/form/text-field";
 import { SafetyCautions } from "@/components/ui/safety-cautions";
 import { cn } from "@/utils/cn";
-import { PhotoUploadButton } from "@/features/uploads/components/photo-panel";
+import { PhotoUploadButton } from "@/features/uploads/components/photo-upload-button";
 import { useLogCoat } from "../api/booth.queries";
+import { isWaiting } from "../api/waiting";
 import { useLogCoatForm, type LogFields } from "../hooks/use-log-coat-form";
 import { formatMinutes } from "@shared/domain/duration";
 import { useShopUnits } from "@/lib/shop-settings.queries";
@@ -25,7 +26,7 @@ import { breachesAt, TimingWindowTimers } from "./timing-windows";
 
 
 /** The top of the booth card: what to spray next in large type, its timers and cautions, and the one-tap log. */
-export function NextStepPanel({ card, now, prepPath }: { card: BoothDto; now: number; prepPath: string }) {
+export function NextStepPanel({ card, now, clockOffset, prepPath }: { card: BoothDto; now: number; clockOffset: number; prepPath: string }) {
   const next = card.next;
   const current = next.state === "spray" ? card.layers.find((l) => l.id === next.layerId) : undefined;
   const units = useShopUnits();
@@ -115,7 +116,7 @@ export function NextStepPanel({ card, now, prepPath }: { card: BoothDto; now: nu
           </div>
         </div>
         {card.canLog ? (
-          <LogCoatForm key={`${next.layerId}-${next.coat}`} card={card} now={now} prepPath={prepPath} />
+          <LogCoatForm key={`${next.layerId}-${next.coat}`} card={card} now={now} clockOffset={clockOffset} prepPath={prepPath} />
         ) : (
           <Alert tone="info" title="Read only">
             Coats are logged by the job&apos;s painter or the owner.
@@ -126,10 +127,20 @@ export function NextStepPanel({ card, now, prepPath }: { card: BoothDto; now: nu
   );
 }
 
-function LogCoatForm({ card, now, prepPath }: { card: BoothDto; now: number; prepPath: string }) {
+/** After a tap, the next coat's button waits this long: a double tap (gloves, a sticky screen) is one coat, not two. */
+const TAP_GUARD_MS = 1500;
+let lastTapAt = 0;
+
+function LogCoatForm({ card, now, clockOffset, prepPath }: { card: BoothDto; now: number; clockOffset: number; prepPath: string }) {
   const next = card.next;
   if (next.state !== "spray") throw new Error("LogCoatForm needs a coat to log");
-  const log = useLogCoat(card.job.id);
+  const log = useLogCoat(card, clockOffset);
+  const [guarded, setGuarded] = useState(() => Date.now() - lastTapAt < TAP_GUARD_MS);
+  useEffect(() => {
+    if (!guarded) return;
+    const id = window.setTimeout(() => setGuarded(false), Math.max(0, TAP_GUARD_MS - (Date.now() - lastTapAt)));
+    return () => window.clearTimeout(id);
+  }, [guarded]);
   const [problem, setProblem] = useState<string | null>(null);
   const needsOverride = next.isFirstCoatOfJob && !card.prepReady;
   const [overriding, setOverriding] = useState(false);
@@ -171,10 +182,16 @@ function LogCoatForm({ card, now, prepPath }: { card: BoothDto; now: number; pre
 
   const submit = async (event: FormEvent<HTMLFormElement>) => {
     event.preventDefault();
-    if (submitting) return;
+    if (submitting || guarded) return;
     setProblem(null);
     const parsed = form.validate();
     if (!parsed) return;
+    // Offline there is no server to refuse the tap: the tablet asks for the reason against a timing rule itself.
+    if (!navigator.onLine && breaches.length && !(overridingTiming && parsed.timingOverrideReason)) {
+      setOverridingTiming(true);
+      setProblem(`Not logged: ${breaches.map((b) => b.message).join(" ")} Give a reason to go ahead.`);
+      return;
+    }
     setSubmitting(true);
     try {
       const { jobId: _jobId, ...rest } = parsed;
@@ -184,6 +201,7 @@ function LogCoatForm({ card, now, prepPath }: { card: BoothDto; now: number; pre
         prepOverrideReason: needsOverride ? rest.prepOverrideReason : undefined,
         timingOverrideReason: overridingTiming ? rest.timingOverrideReason : undefined,
       });
+      lastTapAt = Date.now();
       set("note", "");
       setNoting(false);
     } catch (error) {
@@ -306,7 +324,7 @@ function LogCoatForm({ card, now, prepPath }: { card: BoothDto; now: number; pre
         size="lg"
         block
         pending={submitting}
-        disabled={blocked}
+        disabled={blocked || guarded}
         icon={<PaintBucket aria-hidden className="size-7" />}
         className="min-h-20 rounded-2xl text-2xl"
       >
@@ -327,13 +345,13 @@ function LastLogged({ card }: { card: BoothDto }) {
         <>
           <CheckCircle2 aria-hidden className="mr-1.5 inline size-5 align-text-bottom text-emerald-700" />
           Last logged: coat {last.coatNumber} of {last.layerName} at {formatClock(last.at)}
-          {last.painterName ? ` by ${last.painterName}` : ""}.
+          {isWaiting(last) ? " (on this tablet, waiting to send)" : last.painterName ? ` by ${last.painterName}` : ""}.
         </>
       ) : (
         "The time and your name are recorded by the server when you tap."
       )}
     </p>
-    {last ? <PhotoUploadButton owner={{ ownerType: "coat_log", ownerId: last.id }} label="Photo of this coat" /> : null}
+    {last && !isWaiting(last) ? <PhotoUploadButton owner={{ ownerType: "coat_log", ownerId: last.id }} label="Photo of this coat" /> : null}
     </div>
   );
 }

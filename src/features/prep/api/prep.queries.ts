@@ -1,5 +1,6 @@
 import { queryOptions, useMutation, useQueryClient } from "@tanstack/react-query";
 import { api } from "@/lib/api-client";
+import { newEntryKey, offlineQueue } from "@/lib/offline/queue";
 import type { CreatePrepRecordInput, JobPrepDto, PrepRecordDto, UpdatePrepRecordInput } from "@shared/schemas/prep.schema";
 
 export const prepKeys = {
@@ -31,9 +32,24 @@ export function useSavePrep(jobId: number) {
   });
 }
 
+/** A sign-off goes through the tablet's queue (src/lib/offline/queue.ts) with the time it was made: it works offline. */
 export function useSignOffPrep(jobId: number) {
   const after = useAfterPrep(jobId);
-  return useMutation({ mutationFn: (id: number) => api.post<PrepRecordDto>(`/prep-records/${id}/sign-off`), onSuccess: after });
+  return useMutation({
+    networkMode: "always",
+    mutationFn: ({ id, label }: { id: number; label: string }) =>
+      offlineQueue.submit({
+        key: newEntryKey(),
+        kind: "sign-off",
+        jobId,
+        path: `/prep-records/${id}/sign-off`,
+        body: { at: new Date().toISOString() },
+        madeAt: Date.now(),
+        label,
+        refresh: [prepKeys.job(jobId), ["booth", "card", jobId]],
+      }),
+    onSuccess: (sent) => (sent.queued ? undefined : after()),
+  });
 }
 
 export function useReopenPrep(jobId: number) {

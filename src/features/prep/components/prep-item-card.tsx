@@ -136,8 +136,8 @@ function PrepForm({ jobId, item, record }: { jobId: number; item: Item; record: 
     if (!record) return;
     setProblem(null);
     try {
-      await signOff.mutateAsync(record.id);
-      toast.success(`${item.itemName}: prep signed off`);
+      const sent = await signOff.mutateAsync({ id: record.id, label: `Prep sign-off of ${item.itemName}` });
+      toast.success(sent.queued ? `${item.itemName}: sign-off kept on this tablet, sent when the connection is back` : `${item.itemName}: prep signed off`);
     } catch (error) {
       setProblem(applyServerErrors(error, setError, FIELDS));
     }

@@ -1,16 +1,13 @@
-import { useId, useRef, useState } from "react";
 import { useQuery } from "@tanstack/react-query";
-import { Camera, Eye, EyeOff, Trash2 } from "lucide-react";
-import { MAX_PHOTO_MB, type UploadDto } from "@shared/schemas/upload.schema";
+import { Eye, EyeOff, Trash2 } from "lucide-react";
+import type { UploadDto } from "@shared/schemas/upload.schema";
 import { PANEL_LIGHT_LABELS, PANEL_LIGHTS, type PanelLight } from "@shared/domain/spray-setup";
-import { isApiError } from "@/lib/api-client";
 import { Alert } from "@/components/ui/alert";
 import { Button } from "@/components/ui/button";
 import { toast } from "@/components/ui/toast/toast-store";
 import { cn } from "@/utils/cn";
-import { uploadQueries, useDeleteUpload, useUpdateUpload, useUploadPhoto, type UploadOwner } from "../api/uploads.queries";
-
-const ACCEPT = "image/jpeg,image/png,image/webp";
+import { uploadQueries, useDeleteUpload, useUpdateUpload, type UploadOwner } from "../api/uploads.queries";
+import { PhotoUploadButton } from "./photo-upload-button";
 
 /**
  * Photos of one record (a job, an item, a prep record, a coat, a test panel): add one with a progress bar,
@@ -59,68 +56,6 @@ export function PhotoPanel({
         </ul>
       )}
     </section>
-  );
-}
-
-export function PhotoUploadButton({ owner, label = "Add photo" }: { owner: UploadOwner; label?: string }) {
-  const inputId = useId();
-  const statusId = useId();
-  const input = useRef<HTMLInputElement>(null);
-  const upload = useUploadPhoto(owner);
-  const [problem, setProblem] = useState<string | null>(null);
-
-  const send = async (file: File | undefined) => {
-    if (!file) return;
-    setProblem(null);
-    try {
-      await upload.mutateAsync({ file });
-      toast.success(`${file.name} added`);
-    } catch (error) {
-      setProblem(isApiError(error) ? error.message : "The photo could not be sent. Try again.");
-    } finally {
-      if (input.current) input.current.value = "";
-    }
-  };
-
-  return (
-    <div className="flex flex-col items-end gap-2">
-      <input
-        ref={input}
-        id={inputId}
-        type="file"
-        accept={ACCEPT}
-        className="sr-only"
-        aria-describedby={statusId}
-        onChange={(e) => void send(e.target.files?.[0])}
-        disabled={upload.isPending}
-      />
-      <label
-        htmlFor={inputId}
-        className={cn(
-          "inline-flex min-h-12 cursor-pointer items-center gap-2 rounded-lg border border-primer-300 bg-white px-4 text-base font-semibold text-ink-950 shadow-card hover:bg-primer-100",
-          "[input:focus-visible+&]:outline-3 [input:focus-visible+&]:outline-offset-2 [input:focus-visible+&]:outline-candy-600",
-          upload.isPending && "pointer-events-none opacity-60",
-        )}
-      >
-        <Camera aria-hidden className="size-5" />
-        {label}
-      </label>
-      <div id={statusId} className="w-56 text-right text-sm" aria-live="polite">
-        {upload.progress !== null ? (
-          <>
-            <progress className="h-3 w-full accent-candy-600" max={1} value={upload.progress} aria-label="Upload progress" />
-            <span className="text-primer-800">Sending… {Math.round(upload.progress * 100)}%</span>
-          </>
-        ) : (
-          <span className="text-primer-700">JPEG, PNG or WebP (not HEIC), up to {MAX_PHOTO_MB} MB</span>
-        )}
-      </div>
-      {problem ? (
-        <Alert tone="error" className="w-full max-w-md text-left">
-          {problem}
-        </Alert>
-      ) : null}
-    </div>
   );
 }
 
