@@ -95,6 +95,11 @@ export const PATCH_SPECS: Record<string, PatchSpec> = {
         "vocLimits",
         fc.uniqueArray(fc.record({ layerKind: fc.constantFrom(...LAYER_KINDS), limitGPerL: fc.integer({ min: 1, max: 2000 }) }), { selector: (l) => l.layerKind, maxLength: 4 }),
       ),
+      wasteAllowances: one(
+        "wasteAllowances",
+        fc.uniqueArray(fc.record({ layerKind: fc.constantFrom(...LAYER_KINDS), pct: decimal(0, 200) }), { selector: (l) => l.layerKind, maxLength: 4 }),
+      ),
+      minimumBatchMl: one("minimumBatchMl", decimal(0, 20_000)),
       vocMonthlyCapKg: one("vocMonthlyCapKg", fc.option(decimal(1, 1000), { nil: null })),
       vocYearlyCapKg: one("vocYearlyCapKg", fc.option(decimal(1, 10000), { nil: null })),
       lowDiskWarningGb: one("lowDiskWarningGb", decimal(0, 1000)),
@@ -150,6 +155,10 @@ export const PATCH_SPECS: Record<string, PatchSpec> = {
       waterExemptPct: one("waterExemptPct", decimal(0, 100)),
       densityGPerMl: one("densityGPerMl", fc.option(decimal(0.01, 5), { nil: null })),
       potLifeMinutes: one("potLifeMinutes", fc.option(fc.integer({ min: 1, max: 10_080 }), { nil: null })),
+      // The fixture's material has no recoat window, so either end changed alone keeps min ≤ max.
+      inductionMinutes: one("inductionMinutes", fc.option(fc.integer({ min: 0, max: 1440 }), { nil: null })),
+      recoatMinMinutes: one("recoatMinMinutes", fc.option(fc.integer({ min: 0, max: 20_160 }), { nil: null })),
+      recoatMaxMinutes: one("recoatMaxMinutes", fc.option(fc.integer({ min: 1, max: 100_800 }), { nil: null })),
       containsIsocyanates: one("containsIsocyanates", bool),
       flammable: one("flammable", bool),
       lowStockThreshold: one("lowStockThreshold", fc.option(decimal(0, 1000), { nil: null })),
