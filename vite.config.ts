@@ -3,6 +3,7 @@ import { fileURLToPath } from "node:url";
 import { defineConfig, type Plugin } from "vitest/config";
 import react from "@vitejs/plugin-react";
 import tailwindcss from "@tailwindcss/vite";
+import { VitePWA } from "vite-plugin-pwa";
 
 const apiPort = process.env.PORT ?? "3000";
 const e2e = process.env.E2E === "1";
@@ -29,8 +30,47 @@ function chunkModules(): Plugin {
   };
 }
 
+/**
+ * Installable on the booth tablet: the web app manifest, and a service worker (Workbox, generated at build) that
+ * precaches the app shell (index.html, the built JS and CSS, the Latin font file, the icons) so the booth card opens
+ * with no network. API answers are never precached or cached by the worker: the painter's booth cards are kept by the
+ * app itself (src/lib/offline), per user, and wiped at sign-out. The page registers the worker (src/lib/service-worker.ts).
+ */
+const pwa = VitePWA({
+  injectRegister: null,
+  registerType: "autoUpdate",
+  includeAssets: ["favicon.svg", "apple-touch-icon.png"],
+  manifest: {
+    name: "Coatwright",
+    short_name: "Coatwright",
+    description: "Jobs, finishes and mixes for custom paint shops; the booth card works without Wi-Fi.",
+    start_url: "/booth",
+    scope: "/",
+    display: "standalone",
+    orientation: "any",
+    background_color: "#0b1020",
+    theme_color: "#0b1020",
+    icons: [
+      { src: "/icon-192.png", sizes: "192x192", type: "image/png" },
+      { src: "/icon-512.png", sizes: "512x512", type: "image/png" },
+      { src: "/icon-maskable-512.png", sizes: "512x512", type: "image/png", purpose: "maskable" },
+    ],
+  },
+  workbox: {
+    globPatterns: ["**/*.{js,css,html,woff2,svg,png,webmanifest}"],
+    // Only the Latin font file: the screens' text is Latin, and the other scripts' files are fetched only if needed.
+    globIgnores: ["**/node_modules/**", "**/.vite/**", "**/inter-{cyrillic,cyrillic-ext,greek,greek-ext,vietnamese,latin-ext}-*"],
+    navigateFallback: "/index.html",
+    navigateFallbackDenylist: [/^\/api\//],
+    cleanupOutdatedCaches: true,
+    clientsClaim: true,
+    skipWaiting: true,
+    runtimeCaching: [],
+  },
+});
+
 export default defineConfig({
-  plugins: [react(), tailwindcss(), chunkModules()],
+  plugins: [react(), tailwindcss(), chunkModules(), pwa],
   resolve: {
     alias: [
       { find: "@", replacement: fileURLToPath(new URL("./src", import.meta.url)) },

@@ -179,6 +179,11 @@ export function createApp(options: CreateAppOptions) {
 
   if (deps.clientDir && existsSync(path.join(deps.clientDir, "index.html"))) {
     const clientDir = deps.clientDir;
+    // The service worker and the manifest are checked for updates on each visit: never served from a stale cache.
+    app.get(["/sw.js", "/manifest.webmanifest"], (_req, res, next) => {
+      res.set("Cache-Control", "no-cache");
+      next();
+    });
     app.use(gzippedAssets(clientDir));
     app.use(express.static(clientDir, { index: false, maxAge: "1h" }));
     app.get("/{*splat}", (_req, res) => {

@@ -4,6 +4,7 @@ import "@fontsource-variable/inter/wght.css";
 import "./index.css";
 import { AppProvider, createQueryClient } from "@/app/provider";
 import { createAppRouter } from "@/app/router";
+import { registerServiceWorker } from "@/lib/service-worker";
 
 const root = document.getElementById("root");
 if (!root) throw new Error("The page has no #root element");
@@ -18,3 +19,4 @@ createRoot(root).render(
     <AppProvider queryClient={queryClient} router={router} />
   </StrictMode>,
 );
+registerServiceWorker();

@@ -14,3 +14,4 @@ export * from "./tables/payments";
 export * from "./tables/equipment";
 export * from "./tables/booth";
 export * from "./tables/schedule";
+export * from "./tables/idempotency";

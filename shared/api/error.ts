@@ -25,6 +25,7 @@ export const ERROR_CODES = [
   "forbidden",
   "not_found",
   "conflict",
+  "idempotency_key_reused",
   "version_conflict",
   "payload_too_large",
   "unsupported_media_type",

@@ -136,3 +136,13 @@ export function nextBoothStep(layers: readonly BoothLayerTiming[], coats: readon
     layerDoneAt: rest.lastCoatEndsAt.getTime(),
   };
 }
+
+/**
+ * A temperature typed in a form, re-expressed when the unit switches: "21" °C → "70" °F. Booth thermometers read whole
+ * degrees (common practice), so the result is rounded to one; text that is not a number is left as typed.
+ */
+export function switchTemperatureText(text: string, from: TempUnit, to: TempUnit): string {
+  const value = Number(text.trim().replace(",", "."));
+  if (from === to || text.trim() === "" || !Number.isFinite(value)) return text;
+  return String(Math.round(to === "F" ? cToF(value) : fToC(value)));
+}

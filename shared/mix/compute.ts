@@ -1,5 +1,7 @@
 import { MixError } from "./errors";
-import { mixForTotal, mixFromComponent, scaleTargets, type MixComponent, type MixLine, type ScaleTarget } from "./mix";
+import { mixForTotal, mixFromComponent, type MixComponent, type MixLine } from "./mix";
+import { weighingPlan, type WeighingPlan } from "./weighing";
+import { isMassUnit } from "./units";
 import { roundForMeasuring, type MeasuringResult, type MeasuringUnit } from "./rounding";
 import type { VolumeUnit } from "./units";
 
@@ -11,16 +13,16 @@ export type MixRequest = {
   amount: number;
   unit: VolumeUnit;
   knownName?: string;
-  /** Round for a mixing cup (volume unit) or a scale (mass unit). */
-  rounding?: { step: number; unit: MeasuringUnit };
+  /** Round for a mixing cup (volume unit) or a scale (mass unit); name ratio moves beyond `tolerancePct`. */
+  rounding?: { step: number; unit: MeasuringUnit; tolerancePct?: number; keep?: string[]; allowUnder?: boolean };
 };
 
 export type MixResult = {
   lines: MixLine[];
   total: number;
   unit: VolumeUnit;
-  /** Cumulative scale targets, when every component has a density. */
-  scale: ScaleTarget[] | null;
+  /** Scale targets (rounded to the scale step, readings summed from them), when every component has a density. */
+  scale: WeighingPlan | null;
   rounded: MeasuringResult | null;
 };
 
@@ -34,7 +36,17 @@ export function computeMix(req: MixRequest): MixResult {
     lines = mixForTotal(req.components, req.amount, req.unit);
   }
   const total = lines.reduce((sum, l) => sum + l.volume, 0);
-  const scale = lines.every((l) => l.grams !== undefined) ? scaleTargets(lines) : null;
-  const rounded = req.rounding ? roundForMeasuring(lines, req.rounding.step, req.rounding.unit) : null;
+  const r = req.rounding;
+  const scale = lines.every((l) => l.grams !== undefined)
+    ? weighingPlan(lines, {
+        ...(r && isMassUnit(r.unit) ? { unit: r.unit, step: r.step } : {}),
+        components: req.components,
+        keep: r?.keep,
+        tolerancePct: r?.tolerancePct,
+      })
+    : null;
+  const rounded = r
+    ? roundForMeasuring(lines, r.step, r.unit, { components: req.components, tolerancePct: r.tolerancePct, keep: r.keep, allowUnder: r.allowUnder })
+    : null;
   return { lines, total, unit: req.unit, scale, rounded };
 }

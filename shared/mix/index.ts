@@ -18,10 +18,12 @@ export {
   convertMass,
 } from "./units";
 export type { VolumeUnit, MassUnit, UnitOption } from "./units";
-export { resolveShares, mixForTotal, mixFromComponent, scaleTargets } from "./mix";
-export type { MixComponent, PartsComponent, PercentComponent, ComponentShare, MixLine, ScaleTarget } from "./mix";
-export { roundForMeasuring } from "./rounding";
-export type { MeasuringUnit, RoundedLine, MeasuringResult } from "./rounding";
+export { resolveShares, mixForTotal, mixFromComponent } from "./mix";
+export type { MixComponent, PartsComponent, PercentComponent, ComponentShare, MixLine } from "./mix";
+export { weighingPlan, DEFAULT_SCALE_STEP_G } from "./weighing";
+export type { ScaleTarget, WeighingPlan } from "./weighing";
+export { roundForMeasuring, DEFAULT_RATIO_TOLERANCE_PCT } from "./rounding";
+export type { MeasuringUnit, RoundedLine, MeasuringResult, RoundingOptions } from "./rounding";
 export {
   M2_PER_L_AT_1_UM,
   FT2_PER_GAL_AT_1_MIL,

@@ -203,25 +203,3 @@ export function mixFromComponent(
   // volume_i = amount × relative_i / relative_known
   return components.map((c, i) => toLine(c, shares[i]!, amount * (shares[i]!.relative / known.relative), u));
 }
-
-export interface ScaleTarget {
-  name: string;
-  grams: number;
-  /** Reading the scale should show after adding this component (running sum, tared cup). */
-  cumulativeGrams: number;
-}
-
-/** Running scale readings for mixing by weight into one tared cup, in the lines' order. */
-export function scaleTargets(lines: readonly MixLine[]): ScaleTarget[] {
-  let running = 0;
-  return lines.map((line) => {
-    if (line.grams === undefined) {
-      throw new MixError(`Component "${line.name}": has no density, so it cannot be weighed`, {
-        component: line.name,
-        field: "densityGPerMl",
-      });
-    }
-    running += line.grams;
-    return { name: line.name, grams: line.grams, cumulativeGrams: running };
-  });
-}

@@ -1,30 +1,45 @@
 import { MixError, requirePositive } from "./errors";
-import type { MixLine } from "./mix";
+import type { MixComponent, MixLine } from "./mix";
 import { convertMass, convertVolume, isMassUnit, isVolumeUnit, type MassUnit, type VolumeUnit } from "./units";
 
 /*
  * Rounding a computed mix to what a mixing cup or a scale can show.
  *
- * Meaning: every amount is rounded either down or up to a whole number of `step` (never further),
- * and never to zero. Among those choices we pick the one whose rounded ratio is closest to the exact
- * ratio, measured by the worst relative share error
- *     worst = max_i |roundedShare_i − exactShare_i| / exactShare_i,
- * where share_i = amount_i / Σ amounts. Ties go to the rounded total closest to the exact total,
- * then to the smallest summed amount error.
+ * Every amount is rounded down or up to a whole number of `step` (never further) and never to zero.
+ * Among those choices, in this order of importance:
+ *  1. the batch is not smaller than asked (unless `allowUnder`): Σ rounded ≥ Σ exact;
+ *  2. the ratio between the parts components (paint : hardener, as in 4:1:1 or 2:1) stays as close as
+ *     the step allows: the largest "ratio move" over the parts components (and any named in `keep`);
+ *  3. the largest ratio move over every component (a percent component against what it is a percent of);
+ *  4. the rounded total closest to the exact total, then the smallest summed amount error.
  *
- * Algorithm (exact, no guessing, O(n³) for n components):
- *  1. In step units, q_i = exact_i / step; candidates are floor(q_i) and ceil(q_i) (one candidate
- *     when q_i is a whole number; only ceil when floor would be 0).
- *  2. Let k be how many components are rounded up. For a fixed k the rounded total T is fixed, so
- *     each component's error for "down" and for "up" is known independently of the others.
- *  3. For that k, the smallest achievable worst error is the smallest threshold t (taken from the
- *     candidate errors) for which: every component has a choice with error ≤ t, the components that
- *     can only go up number ≤ k, and the components that may go up number ≥ k. Assign the forced
- *     ups, then the remaining ups to the components that the up choice suits best.
- *  4. Keep the best k.
+ * A component's ratio move is how far, in %, its ratio to its reference moves:
+ *  - a parts component against the base (the parts component with the most parts, first on a tie):
+ *      |(r_i / r_base) / (e_i / e_base) − 1|;
+ *  - a percent component against the sum of the components it is a percent of:
+ *      |(r_i / Σ r_of) / (e_i / Σ e_of) − 1|;
+ *  - the base itself moves 0 (the others are measured against it).
+ * Every component moved beyond `tolerancePct` is named in `moved`, so the sheet can warn about each.
+ *
+ * The choices are enumerated exactly (2^f for f components that are not already whole steps; a mix
+ * has at most 12 components), so the result is the true best under the order above.
  */
 
 export type MeasuringUnit = VolumeUnit | MassUnit;
+
+/** Default tolerance for naming a component whose ratio moves (a shop setting overrides it; common practice). */
+export const DEFAULT_RATIO_TOLERANCE_PCT = 2;
+
+export interface RoundingOptions {
+  /** The mix as written, to measure each ratio against its own reference; without it every line counts as parts. */
+  components?: readonly MixComponent[];
+  /** Names whose ratio is kept first besides the parts components (e.g. a hardener given as a percent). */
+  keep?: readonly string[];
+  /** A move beyond this (in %) is named in `moved`. */
+  tolerancePct?: number;
+  /** Allow a rounded batch smaller than asked. */
+  allowUnder?: boolean;
+}
 
 export interface RoundedLine {
   name: string;
@@ -35,7 +50,9 @@ export interface RoundedLine {
   unit: MeasuringUnit;
   exactShare: number;
   roundedShare: number;
-  /** |roundedShare − exactShare| / exactShare × 100. */
+  /** What this component's ratio is measured against: the base's name, or the names it is a percent of. */
+  reference: string[];
+  /** How far its ratio to `reference` moves, in % (0 for the base). */
   ratioErrorPct: number;
 }
 
@@ -43,10 +60,13 @@ export interface MeasuringResult {
   lines: RoundedLine[];
   step: number;
   unit: MeasuringUnit;
-  /** Largest ratioErrorPct over the components: what the screen should warn about. */
+  /** Largest ratioErrorPct over the components. */
   worstRatioErrorPct: number;
-  /** Component with the largest ratio error. */
+  /** Component with the largest ratio move. */
   worstComponent: string;
+  /** Every component whose ratio moved beyond `tolerancePct`, worst first. */
+  moved: string[];
+  tolerancePct: number;
   /** Components below half a step, which would have rounded to zero and were set to one step. */
   raisedFromZero: string[];
   exactTotal: number;
@@ -73,15 +93,34 @@ function exactAmount(line: MixLine, unit: MeasuringUnit): number {
   return convertMass(line.grams, "g", unit);
 }
 
-interface Choice {
-  units: number[];
-  worst: number;
-  totalGap: number;
-  sumGap: number;
+/** For each line: the indexes of its reference, and whether its ratio is kept first. */
+function references(lines: readonly MixLine[], exact: number[], options: RoundingOptions): { ref: number[][]; key: boolean[] } {
+  const index = new Map(lines.map((l, i) => [l.name, i]));
+  const byName = new Map((options.components ?? []).map((c) => [c.name, c]));
+  const percentOf = (name: string): string[] | null => {
+    const c = byName.get(name);
+    if (c === undefined || !("percentOf" in c) || c.percentOf === undefined) return null;
+    return typeof c.percentOf === "string" ? [c.percentOf] : [...c.percentOf];
+  };
+  const parts = lines.map((l, i) => i).filter((i) => percentOf(lines[i]!.name) === null);
+  const base = parts.reduce((b, i) => (exact[i]! > exact[b]! ? i : b), parts[0] ?? 0);
+  const keep = new Set(options.keep ?? []);
+  const ref = lines.map((l, i) => {
+    const of = percentOf(l.name);
+    if (of === null) return i === base ? [] : [base];
+    return of.map((n) => index.get(n)).filter((j): j is number => j !== undefined);
+  });
+  const key = lines.map((l) => percentOf(l.name) === null || keep.has(l.name));
+  return { ref, key };
 }
 
 /** Rounds mix lines to multiples of `step` in `unit` (a volume unit, or a mass unit to weigh). */
-export function roundForMeasuring(lines: readonly MixLine[], step: number, unit: MeasuringUnit): MeasuringResult {
+export function roundForMeasuring(
+  lines: readonly MixLine[],
+  step: number,
+  unit: MeasuringUnit,
+  options: RoundingOptions = {},
+): MeasuringResult {
   if (!Array.isArray(lines) || lines.length === 0) {
     throw new MixError("lines: nothing to round", { field: "lines" });
   }
@@ -89,12 +128,16 @@ export function roundForMeasuring(lines: readonly MixLine[], step: number, unit:
   if (!isVolumeUnit(unit) && !isMassUnit(unit)) {
     throw new MixError(`unit: unknown unit ${JSON.stringify(unit)}`, { field: "unit" });
   }
+  const tolerancePct = options.tolerancePct ?? DEFAULT_RATIO_TOLERANCE_PCT;
+  if (!(tolerancePct >= 0) || !Number.isFinite(tolerancePct)) {
+    throw new MixError("tolerancePct: must be 0 or more", { field: "tolerancePct" });
+  }
 
   const exact = lines.map((line) => requirePositive(exactAmount(line, unit), "amount", line.name));
   const exactTotal = exact.reduce((a, b) => a + b, 0);
-  const share = exact.map((e) => e / exactTotal);
+  const { ref, key } = references(lines, exact, options);
 
-  // Step 1: candidates in whole steps. Snap values within float noise of a whole step.
+  // Candidates in whole steps; values within float noise of a whole step are snapped.
   const raisedFromZero: string[] = [];
   const low: number[] = [];
   const high: number[] = [];
@@ -106,80 +149,69 @@ export function roundForMeasuring(lines: readonly MixLine[], step: number, unit:
     high.push(Math.max(1, Math.ceil(q)));
   });
   const free = low.map((_, i) => i).filter((i) => high[i]! > low[i]!);
-  const baseUnits = low.reduce((a, b) => a + b, 0);
+  const exactUnits = exactTotal / step;
+  const refExact = ref.map((r) => r.reduce((a, j) => a + exact[j]!, 0));
 
-  const error = (i: number, units: number, total: number): number => Math.abs(units / total - share[i]!) / share[i]!;
+  const moves = (units: number[]): number[] =>
+    units.map((u, i) => {
+      if (ref[i]!.length === 0) return 0;
+      const refUnits = ref[i]!.reduce((a, j) => a + units[j]!, 0);
+      return Math.abs(u / refUnits / (exact[i]! / refExact[i]!) - 1) * 100;
+    });
 
-  let best: Choice | undefined;
-  for (let k = 0; k <= free.length; k++) {
-    const total = baseUnits + k;
-    // Step 2: errors for down (ef) and up (ec) of each free component at this total.
-    const ef = free.map((i) => error(i, low[i]!, total));
-    const ec = free.map((i) => error(i, high[i]!, total));
-    const fixedWorst = Math.max(0, ...low.map((u, i) => (high[i] === u ? error(i, u, total) : 0)));
-
-    // Step 3: smallest feasible threshold.
-    const thresholds = [fixedWorst, ...ef, ...ec].filter((t) => t >= fixedWorst).sort((a, b) => a - b);
-    const threshold = thresholds.find((t) => {
-      let mustUp = 0;
-      let mayUp = 0;
-      for (let j = 0; j < free.length; j++) {
-        if (ef[j]! > t && ec[j]! > t) return false;
-        if (ef[j]! > t) mustUp++;
-        if (ec[j]! <= t) mayUp++;
-      }
-      return mustUp <= k && k <= mayUp;
-    })!;
-    const order = free
-      .map((_, j) => j)
-      .filter((j) => ef[j]! <= threshold && ec[j]! <= threshold)
-      .sort((x, y) => ec[x]! - ef[x]! - (ec[y]! - ef[y]!));
-    const up = new Set(free.filter((_, j) => ef[j]! > threshold));
-    for (const j of order) {
-      if (up.size >= k) break;
-      up.add(free[j]!);
+  type Score = [number, number, number, number];
+  let best: { units: number[]; score: Score } | undefined;
+  const better = (a: Score, b: Score): boolean => {
+    for (let k = 0; k < a.length; k++) {
+      const tol = 1e-9 * Math.max(1, Math.abs(b[k]!));
+      if (a[k]! < b[k]! - tol) return true;
+      if (a[k]! > b[k]! + tol) return false;
     }
-    const units = low.map((u, i) => (up.has(i) ? high[i]! : u));
-
-    const choice: Choice = {
-      units,
-      worst: Math.max(...units.map((u, i) => error(i, u, total))),
-      totalGap: Math.abs(total * step - exactTotal),
-      sumGap: units.reduce((a, u, i) => a + Math.abs(u * step - exact[i]!), 0),
-    };
-    // Step 4: keep the best (compare errors with a small tolerance so float noise does not decide).
-    const better =
-      best === undefined ||
-      choice.worst < best.worst - 1e-12 ||
-      (Math.abs(choice.worst - best.worst) <= 1e-12 &&
-        (choice.totalGap < best.totalGap - 1e-12 ||
-          (Math.abs(choice.totalGap - best.totalGap) <= 1e-12 && choice.sumGap < best.sumGap)));
-    if (better) best = choice;
+    return false;
+  };
+  const units = [...low];
+  for (let mask = 0; mask < 2 ** free.length; mask++) {
+    free.forEach((i, bit) => (units[i] = mask & (1 << bit) ? high[i]! : low[i]!));
+    const total = units.reduce((a, b) => a + b, 0);
+    if (!options.allowUnder && total < exactUnits - 1e-9 * Math.max(1, exactUnits)) continue;
+    const m = moves(units);
+    const score: Score = [
+      Math.max(0, ...m.filter((_, i) => key[i])),
+      Math.max(...m),
+      Math.abs(total - exactUnits),
+      units.reduce((a, u, i) => a + Math.abs(u * step - exact[i]!), 0),
+    ];
+    if (best === undefined || better(score, best.score)) best = { units: [...units], score };
   }
 
-  const { units } = best!;
-  const roundedUnits = units.reduce((a, b) => a + b, 0);
+  const chosen = best!.units;
+  const roundedUnits = chosen.reduce((a, b) => a + b, 0);
   const decimals = stepDecimals(step);
   const tidy = (v: number): number => (decimals === undefined ? v : Number(v.toFixed(decimals)));
-  const out: RoundedLine[] = lines.map((line, i) => {
-    const roundedShare = units[i]! / roundedUnits;
-    return {
-      name: line.name,
-      exact: exact[i]!,
-      rounded: tidy(units[i]! * step),
-      unit,
-      exactShare: share[i]!,
-      roundedShare,
-      ratioErrorPct: (Math.abs(roundedShare - share[i]!) / share[i]!) * 100,
-    };
-  });
+  const m = moves(chosen);
+  const out: RoundedLine[] = lines.map((line, i) => ({
+    name: line.name,
+    exact: exact[i]!,
+    rounded: tidy(chosen[i]! * step),
+    unit,
+    exactShare: exact[i]! / exactTotal,
+    roundedShare: chosen[i]! / roundedUnits,
+    reference: ref[i]!.map((j) => lines[j]!.name),
+    ratioErrorPct: m[i]!,
+  }));
   const worst = out.reduce((w, l) => (l.ratioErrorPct > w.ratioErrorPct ? l : w), out[0]!);
+  const moved = out
+    .filter((l) => l.ratioErrorPct > tolerancePct)
+    .sort((a, b) => b.ratioErrorPct - a.ratioErrorPct)
+    .map((l) => l.name);
   return {
     lines: out,
     step,
     unit,
     worstRatioErrorPct: worst.ratioErrorPct,
     worstComponent: worst.name,
+    moved,
+    tolerancePct,
     raisedFromZero,
     exactTotal,
     roundedTotal: tidy(roundedUnits * step),

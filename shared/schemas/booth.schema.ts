@@ -6,7 +6,7 @@ import type { PlanLayerDto } from "./plan.schema";
 import type { PrepStatus } from "../domain/prep";
 import type { Stage } from "../domain/stages";
 import type { Substrate } from "../domain/substrates";
-import { idSchema, optionalText, requiredText } from "./common.schema";
+import { idSchema, madeAtSchema, optionalText, requiredText } from "./common.schema";
 import { optionalNumber } from "./prep.schema";
 import { checkTemp } from "./booth-conditions.schema";
 import { checkSetup, spraySetupFields, type SpraySetupDto } from "./spray-setup.schema";
@@ -19,7 +19,10 @@ const conditions = {
   note: optionalText(500, "Note"),
 };
 
-/** One tap on the booth card: the coat just sprayed. The time and painter come from the server. */
+/**
+ * One tap on the booth card: the coat just sprayed. The painter comes from the server, and so does the time, unless
+ * the tap was queued offline: then `at` is when it was made on the tablet.
+ */
 export const createCoatLogInputSchema = z
   .object({
     jobId: idSchema,
@@ -32,6 +35,7 @@ export const createCoatLogInputSchema = z
     timingOverrideReason: optionalText(500, "Reason"),
     /** The gun set-up really used (the booth card fills in the approved panel's as a start). */
     ...spraySetupFields,
+    at: madeAtSchema,
   })
   .superRefine(checkTemp)
   .superRefine(checkSetup);
@@ -132,8 +136,17 @@ export type BoothMixSheetDto = {
   mixedByName: string | null;
   potLifeMinutes: number | null;
   potLifeEndsAt: string | null;
-  /** Planned volume in mL and in the sheet's unit; what was really poured (mL). */
-  lines: { label: string; plannedMl: number; plannedInUnit: number; actualMl: number | null; lotNumber: string | null }[];
+  /** Planned volume in mL and in the sheet's unit, and its share of the ready-to-spray batch in %; what was really poured (mL). */
+  lines: {
+    label: string;
+    materialCode: string;
+    materialName: string;
+    plannedMl: number;
+    plannedInUnit: number;
+    readyPct: number | null;
+    actualMl: number | null;
+    lotNumber: string | null;
+  }[];
 };
 
 export type BoothTimerDto = { kind: "flash" | "dry"; startedAt: string; endsAt: string };

@@ -53,3 +53,9 @@ export const versionSchema = z.preprocess(
   fromDigits,
   z.number({ error: "Send the version of the record you are changing (version)" }).int("Version is a whole number").positive("Version is a positive number"),
 );
+
+/**
+ * When an entry was made on the tablet, for one sent late (the booth's offline queue). The server keeps it within
+ * bounds: not in the future, not before the job (or the batch) it belongs to.
+ */
+export const madeAtSchema = z.iso.datetime({ error: "Use a date and time like 2026-12-31T10:15:00Z", offset: true }).optional();

@@ -2,7 +2,7 @@ import { z } from "zod";
 import type { LayerKind } from "../domain/layers";
 import type { MaterialCategory, PurchaseUnit } from "../domain/materials";
 import type { Caution } from "../domain/safety";
-import type { MeasuringUnit, VolumeUnit } from "../mix/index";
+import type { MassUnit, MeasuringUnit, VolumeUnit } from "../mix/index";
 import { idSchema, requiredText } from "./common.schema";
 import { optionalNumber, requiredNumber } from "./material.schema";
 import { measuringUnitSchema, volumeUnitSchema } from "./mix.schema";
@@ -74,14 +74,22 @@ export type MixSheetLineDto = {
   /** Planned amount in the sheet's unit, and in mL. */
   amount: number;
   plannedMl: number;
+  /** Fraction of the ready-to-spray batch. */
   share: number;
+  /** The amount as the plan gives it, saying what a percent is of: "1 part", "10 % of IC-10 Intercoat clear". */
+  asPlanned: string | null;
   /** Weight on a scale (when the material has a density). */
   grams: number | null;
-  /** Scale reading after adding this component to a tared cup (weighed sheets). */
-  cumulativeGrams: number | null;
+  /** Weighed sheets: what to pour of this component after taring, in `scaleUnit` (a whole scale step)… */
+  scaleTarget: number | null;
+  /** …and what the scale reads with it in, poured into one cup without taring (the sum of the targets so far). */
+  scaleReads: number | null;
   /** Rounded amount for the cup or scale, in the rounding unit. */
   rounded: number | null;
+  /** How far rounding moves this component's ratio to `ratioReference`, in %. */
   ratioErrorPct: number | null;
+  /** Labels this component's ratio is measured against (the base part, or what its percent is of). */
+  ratioReference: string[] | null;
   actualMl: number | null;
   lotId: number | null;
   lotNumber: string | null;
@@ -117,6 +125,13 @@ export type MixSheetDto = {
   roundingUnit: MeasuringUnit | null;
   worstRatioErrorPct: number | null;
   worstComponent: string | null;
+  /** Components whose ratio moved beyond the shop's tolerance when rounded, worst first. */
+  movedComponents: string[];
+  /** Weighed sheets: the scale's unit and step, and Σ targets (the last scale reading). */
+  scaleUnit: MassUnit | null;
+  scaleStep: number | null;
+  scaleLastReading: number | null;
+  ratioTolerancePct: number;
   roundedTotal: number | null;
   total: number;
   totalMl: number;
@@ -161,5 +176,4 @@ export type MixSheetSummaryDto = {
   createdAt: string;
 };
 
-/** A ratio error above this (in %) is shown as a warning beside the rounded amounts (common practice: ~2 %). */
-export const RATIO_WARNING_PCT = 2;
+

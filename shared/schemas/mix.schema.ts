@@ -29,6 +29,13 @@ export const mixRequestSchema = z.object({
   amount: positive("Amount").max(1e6, "Amount is too large"),
   unit: volumeUnitSchema,
   knownName: name.optional(),
-  rounding: z.object({ step: positive("Step").max(1e4, "Step is too large"), unit: measuringUnitSchema }).optional(),
+  rounding: z
+    .object({
+      step: positive("Step").max(1e4, "Step is too large"),
+      unit: measuringUnitSchema,
+      tolerancePct: positive("Ratio tolerance").max(20, "Ratio tolerance is limited to 20%").optional(),
+      allowUnder: z.boolean({ error: "allowUnder must be true or false" }).optional(),
+    })
+    .optional(),
 });
 export type MixRequestInput = z.input<typeof mixRequestSchema>;

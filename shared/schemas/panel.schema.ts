@@ -163,7 +163,14 @@ export type PanelDto = {
   conditions: { boothTemp: number | null; tempUnit: TempUnit | null; humidityPct: number | null };
   /** The plan layer and the batch it was sprayed from, with the lots poured (staff only). */
   planLayer: { id: number; name: string; planName: string; version: number } | null;
-  mixSheet: { id: number; status: "draft" | "mixed" | "void"; mixedAt: string | null; lots: { materialCode: string; materialName: string; lotNumber: string | null }[] } | null;
+  mixSheet: {
+    id: number;
+    status: "draft" | "mixed" | "void";
+    mixedAt: string | null;
+    lots: { materialCode: string; materialName: string; lotNumber: string | null }[];
+    /** The toner's share of the whole ready-to-spray batch (with reducer), in %; null when the batch has no toner. */
+    tonerReadyPct: number | null;
+  } | null;
   sprayedOn: string | null;
   notes: string | null;
   createdById: string | null;

@@ -1,7 +1,7 @@
 import { z } from "zod";
 import { SCUFF_MEDIA, type PrepStatus, type PrepStep, type ScuffMedium } from "../domain/prep";
 import type { Substrate } from "../domain/substrates";
-import { idSchema, optionalText, requiredText, versionSchema } from "./common.schema";
+import { idSchema, madeAtSchema, optionalText, requiredText, versionSchema } from "./common.schema";
 import type { UploadDto } from "./upload.schema";
 
 /** Empty input → null; otherwise a number (form inputs send strings). */
@@ -15,7 +15,8 @@ export const prepStepsInputSchema = z.object({
   scuffMedium: z
     .preprocess((v) => (v === "" ? null : v), z.enum(SCUFF_MEDIA, { error: `Scuff medium must be one of: ${SCUFF_MEDIA.join(", ")}` }).nullable())
     .optional(),
-  scuffGrit: optionalNumber("Grit", 36, 5000, true),
+  /** FEPA P-grade as painters write it ("P320") or the bare number; stored as the number and shown as P320. */
+  scuffGrit: z.preprocess((v) => (typeof v === "string" ? v.trim().replace(/^p\s*/i, "") : v), optionalNumber("Grit", 36, 5000, true)),
   cleaner: optionalText(120, "Cleaner"),
   tackCloth: z.boolean({ error: "Tack cloth must be true or false" }).optional(),
   adhesionPromoter: z.boolean({ error: "Adhesion promoter must be true or false" }).optional(),
@@ -32,6 +33,10 @@ export type UpdatePrepRecordInput = z.input<typeof updatePrepRecordInputSchema>;
 
 export const reopenPrepRecordInputSchema = z.object({ reason: requiredText(500, "Reason") });
 export type ReopenPrepRecordInput = z.input<typeof reopenPrepRecordInputSchema>;
+
+/** A sign-off; `at` is when it was made on the tablet, for one sent late. */
+export const signOffPrepRecordInputSchema = z.object({ at: madeAtSchema });
+export type SignOffPrepRecordInput = z.input<typeof signOffPrepRecordInputSchema>;
 
 export const listPrepRecordsQuerySchema = z.object({ jobId: idSchema });
 

@@ -61,6 +61,14 @@ export const shopSettingsSchema = z.object({
   /** Optional VOC mass caps from the shop's air permit, in kg. */
   vocMonthlyCapKg: z.coerce.number().positive().max(1e6).nullable().default(null),
   vocYearlyCapKg: z.coerce.number().positive().max(1e7).nullable().default(null),
+  /**
+   * Rounding a mix to a cup or scale step may move a component's ratio; a move beyond this (in %) is named on
+   * the mix sheet and the booth card (2 % by default, common practice for catalysed mixes).
+   */
+  ratioTolerancePct: z.coerce
+    .number({ error: "Ratio tolerance must be a number" })
+    .min(0.1, "Ratio tolerance must be at least 0.1%")
+    .max(20, "Ratio tolerance is limited to 20%"),
   /** The owner's dashboard warns when the free space left for the data folder falls below this many GB. */
   lowDiskWarningGb: z.coerce
     .number({ error: "Low-disk warning must be a number of GB" })
@@ -78,7 +86,7 @@ export const updateShopSettingsSchema = patchSchemaOf(shopSettingsSchema).extend
 export type UpdateShopSettings = z.input<typeof updateShopSettingsSchema>;
 
 /** What any signed-in user may read: no money. */
-export type PublicShopSettings = Pick<ShopSettings, "shopName" | "shopAddress" | "shopPhone" | "shopEmail" | "defaultVolumeUnit" | "defaultAreaUnit" | "deltaEMatch" | "deltaEClose" | "vocLimits">;
+export type PublicShopSettings = Pick<ShopSettings, "shopName" | "shopAddress" | "shopPhone" | "shopEmail" | "defaultVolumeUnit" | "defaultAreaUnit" | "deltaEMatch" | "deltaEClose" | "ratioTolerancePct" | "vocLimits">;
 
 export const DEFAULT_SETTINGS: ShopSettings = {
   shopName: "My custom paint shop",
@@ -103,4 +111,5 @@ export const DEFAULT_SETTINGS: ShopSettings = {
   vocMonthlyCapKg: null,
   vocYearlyCapKg: null,
   lowDiskWarningGb: 2,
+  ratioTolerancePct: 2,
 };

@@ -24,7 +24,12 @@ describe("making a mix sheet", () => {
       ["reducer", 50],
     ]);
     // Densities 1.00 / 1.10 / 0.87 g/mL → 200.00 → 255.00 → 298.50 g cumulative (references.md §7 "cumulative scale").
-    expect(f.sheet.lines.map((l) => l.cumulativeGrams)).toEqual([200, 255, expect.closeTo(298.5, 9)]);
+    expect(f.sheet.lines.map((l) => l.scaleReads)).toEqual([200, 255, 298.5]);
+    expect(f.sheet.lines.map((l) => l.scaleTarget)).toEqual([200, 55, 43.5]);
+    expect(f.sheet).toMatchObject({ scaleUnit: "g", scaleStep: 0.1, scaleLastReading: 298.5 });
+    // Each line says its amount as the plan gives it, and its share of the ready-to-spray mix (4/6, 1/6, 1/6).
+    expect(f.sheet.lines.map((l) => l.asPlanned)).toEqual(["4 parts", "1 part", "1 part"]);
+    expect(f.sheet.lines.map((l) => l.share)).toEqual([expect.closeTo(4 / 6, 12), expect.closeTo(1 / 6, 12), expect.closeTo(1 / 6, 12)]);
     expect(f.sheet).toMatchObject({ status: "draft", unit: "mL", total: 300, totalMl: 300, potLifeMinutes: 90, potLifeEndsAt: null, planVersion: 1, planChanged: false });
     expect(f.sheet.cautions.map((c) => c.id)).toEqual(["isocyanates", "flammable", "defer"]);
     // Expected VOC from the catalogue: (4·500 + 300 + 880)/6 = 530 g/L (volume-weighted, no water or exempt).
@@ -51,6 +56,27 @@ describe("making a mix sheet", () => {
     );
     expect(res.body.lines.map((l: { rounded: number }) => l.rounded)).toEqual(expected.lines.map((l) => l.rounded));
     expect(res.body.worstRatioErrorPct).toBe(expected.worstRatioErrorPct);
+  });
+
+  it("names every component whose ratio rounding moves past the shop's tolerance, and never makes less than asked", async () => {
+    const s = await makeShop();
+    const f = finishFixtures(s);
+    // 4:1:1 of 100 mL on a 5 mL cup → 70 / 15 / 15 (worked by hand in tests/mix/rounding.test.ts): the hardener
+    // and the reducer are each 14.3 % short of a quarter of the clear.
+    let res = await s.as("painter").post("/api/mix-sheets").send({ jobId: s.jobA.id, layerId: f.layer.id, mode: "total", amount: 100, unit: "mL", roundingStep: 5 });
+    expect(res.status).toBe(201);
+    expect(res.body.lines.map((l: { rounded: number }) => l.rounded)).toEqual([70, 15, 15]);
+    expect(res.body.roundedTotal).toBe(100);
+    expect(res.body.movedComponents).toEqual(["hardener", "reducer"]);
+    expect(res.body.lines[1].ratioReference).toEqual(["clear"]);
+    expect(res.body.ratioTolerancePct).toBe(2);
+    expect((await editAt(s, "owner", "/api/settings", { ratioTolerancePct: 15 })).status).toBe(200);
+    res = await s.as("painter").get(`/api/mix-sheets/${res.body.id}`);
+    expect(res.body.movedComponents).toEqual([]);
+    expect(res.body.ratioTolerancePct).toBe(15);
+    const bad = await editAt(s, "owner", "/api/settings", { ratioTolerancePct: 50 });
+    expect(bad.status).toBe(400);
+    expect(JSON.stringify(bad.body)).toContain("ratioTolerancePct");
   });
 
   it("refuses what cannot be mixed: a layer of another job, a missing density for weighing, a component not in the mix, bad numbers", async () => {

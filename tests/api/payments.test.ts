@@ -1,8 +1,10 @@
 import { afterEach, describe, expect, it } from "vitest";
 import { eq } from "drizzle-orm";
 import type { Server } from "node:http";
-import { auditLog, jobMessages, jobStageEvents, jobs, payments, refunds, webhookEvents } from "../../server/db/schema";
+import { auditLog, jobMessages, jobStageEvents, jobs, payments, refunds, users, webhookEvents } from "../../server/db/schema";
+import request from "supertest";
 import { createPayments } from "../../server/payments/provider";
+import { signQuoteLink } from "../../server/modules/portal/portal-link";
 import { makeShop, type Shop } from "../support/test-app";
 import { approvedQuote, completedEvent, listenForWebhooks, payDeposit, postEvent, sentQuote, submitCard, withPayments } from "../support/quotes";
 
@@ -76,6 +78,21 @@ describe("paying the deposit", () => {
     expect(again.status).toBe(409);
     const list = await s.as("estimator").get(`/api/payments?jobId=${s.inquiryA.id}`);
     expect(list.body.items).toEqual([expect.objectContaining({ amountCents: 52414, status: "paid", flagged: false, version: 1 })]);
+  });
+
+  it("a deposit paid online by a customer without a portal account is credited to the customer's online payment, not to a former user", async () => {
+    const { s, si, q } = await payingShop();
+    // The customer has no portal account (closed), and pays from the quote link in the shop's e-mail.
+    s.db.update(users).set({ active: false }).where(eq(users.id, s.customer.id)).run();
+    const token = signQuoteLink(s.app.deps.appSecret, q.id, s.app.deps.now() + 86_400_000);
+    const checkout = await request(s.app).post("/api/payments/checkout").set("X-Portal-Token", token).send({ quoteId: q.id });
+    expect(checkout.status).toBe(201);
+    await payOnPage(checkout.body.url, "4242 4242 4242 4242");
+    await si.control.settle();
+    expect(stageOf(s, s.inquiryA.id)).toBe("booked");
+    const job = await s.as("owner").get(`/api/jobs/${s.inquiryA.id}`);
+    const booked = job.body.events.find((e: { toStage: string }) => e.toStage === "booked");
+    expect(booked).toMatchObject({ byName: "The customer, paying online", note: "Deposit of $524.14 paid online" });
   });
 
   it("a declined card (4000 0000 0000 0002) leaves the job unpaid and unbooked", async () => {

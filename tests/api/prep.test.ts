@@ -5,6 +5,16 @@ import { addPhoto } from "../support/booth-fixtures";
 import { jobItems } from "../../server/db/schema";
 
 describe("prep records", () => {
+  it("takes a grit written the painter's way (P320) as well as the bare number, and names the field when it is not a grit", async () => {
+    const s = await makeShop();
+    const res = await s.as("painter").post("/api/prep-records").send({ itemId: s.itemA.id, scuffMedium: "scuff_pad", scuffGrit: "P320" });
+    expect(res.status).toBe(201);
+    expect(res.body.scuffGrit).toBe(320);
+    const bad = await s.as("painter").post("/api/prep-records").send({ itemId: s.itemB.id, scuffGrit: "Pfine" });
+    expect(bad.status).toBe(400);
+    expect(JSON.stringify(bad.body)).toContain("scuffGrit");
+  });
+
   it("a painter records the steps, sees what is missing, signs off; then it is locked", async () => {
     const s = await makeShop();
     const start = await s.as("painter").post("/api/prep-records").send({ itemId: s.itemA.id, scuffMedium: "scuff_pad", scuffGrit: "600" });

@@ -207,6 +207,10 @@ describe("sending", () => {
     expect(mail.text).toContain("$1,310.36");
     expect(mail.text).toMatch(/http:\/\/coatwright\.test\/portal\/link\/\d+\.\d+\.[\w-]{43}/);
     expect(mail.attachments?.[0]).toMatchObject({ filename: `quote-${q.id}-v1.pdf`, contentType: "application/pdf" });
+    // The attached PDF is the sent quote, not the draft it was a moment before.
+    const attached = await pdfText(mail.attachments![0]!.content as Buffer);
+    expect(attached).toContain("Golf cart roof");
+    expect(attached).not.toMatch(/Status\s*Draft/);
     const job = s.db.select().from(jobs).where(eq(jobs.id, s.inquiryA.id)).get()!;
     expect(job.stage).toBe("quoted");
     const log = await s.as("owner").get(`/api/messages?jobId=${s.inquiryA.id}`);

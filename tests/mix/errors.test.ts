@@ -4,7 +4,7 @@ import {
   mixForTotal,
   mixFromComponent,
   resolveShares,
-  scaleTargets,
+  weighingPlan,
   type MixComponent,
   type VolumeUnit,
 } from "../../shared/mix/index";
@@ -132,7 +132,7 @@ describe("invalid mixes throw a MixError naming the component", () => {
 
   it("weighing a line without a density", () => {
     const lines = mixForTotal(good, 100, "mL");
-    expect(catchMixError(() => scaleTargets(lines)).message).toBe(
+    expect(catchMixError(() => weighingPlan(lines)).message).toBe(
       'Component "clear": has no density, so it cannot be weighed',
     );
   });

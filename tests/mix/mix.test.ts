@@ -4,7 +4,7 @@ import {
   mixForTotal,
   mixFromComponent,
   resolveShares,
-  scaleTargets,
+  weighingPlan,
   type MixComponent,
   type MixLine,
   type PercentComponent,
@@ -190,9 +190,9 @@ describe("weights from densities", () => {
       300,
       "mL",
     );
-    const targets = scaleTargets(lines);
-    expect(targets.map((t) => Number(t.cumulativeGrams.toFixed(2)))).toEqual([200, 255, 298.5]);
-    expect(targets[1]!.grams).toBeCloseTo(55, 10);
+    const { steps } = weighingPlan(lines);
+    expect(steps.map((t) => t.scaleReads)).toEqual([200, 255, 298.5]);
+    expect(steps[1]!.exact).toBeCloseTo(55, 10);
   });
 
   it("grams use the millilitres of the line, whatever its unit", () => {

@@ -123,6 +123,8 @@ export const jobStageEvents = sqliteTable(
     toStage: text("to_stage", { enum: STAGES }).notNull(),
     note: text("note"),
     userId: text("user_id").references(() => users.id, { onDelete: "set null" }),
+    /** Who made the move when no user did: a customer's online payment, or the server itself. */
+    via: text("via", { enum: ["user", "payment", "system"] }).notNull().default("user"),
     at: integer("at").notNull(),
   },
   (t) => [index("job_stage_events_job_idx").on(t.jobId, t.at), index("job_stage_events_to_stage_idx").on(t.toStage, t.at)],

@@ -1,6 +1,6 @@
 import { aliasedTable, asc, desc, eq, sql } from "drizzle-orm";
 import type { AppDeps } from "../../deps";
-import { coatLogs, mixSheetLines, mixSheets, users } from "../../db/schema";
+import { coatLogs, materials, mixSheetLines, mixSheets, users } from "../../db/schema";
 import { iso, isoOrNull } from "../../http/dates";
 import { preparedQuery } from "../../db/prepared";
 import { gunNames } from "../guns/guns.service";
@@ -71,9 +71,19 @@ const sheetsQuery = preparedQuery((db) =>
 );
 const sheetLinesQuery = preparedQuery((db) =>
   db
-    .select({ sheetId: mixSheetLines.mixSheetId, position: mixSheetLines.position, label: mixSheetLines.label, plannedMl: mixSheetLines.plannedMl, actualMl: mixSheetLines.actualMl, lotNumber: mixSheetLines.lotNumber })
+    .select({
+      sheetId: mixSheetLines.mixSheetId,
+      position: mixSheetLines.position,
+      label: mixSheetLines.label,
+      materialCode: materials.code,
+      materialName: materials.name,
+      plannedMl: mixSheetLines.plannedMl,
+      actualMl: mixSheetLines.actualMl,
+      lotNumber: mixSheetLines.lotNumber,
+    })
     .from(mixSheetLines)
     .innerJoin(mixSheets, eq(mixSheetLines.mixSheetId, mixSheets.id))
+    .innerJoin(materials, eq(mixSheetLines.materialId, materials.id))
     .where(eq(mixSheets.jobId, p("jobId")))
     .orderBy(asc(mixSheetLines.position))
     .prepare(),
@@ -99,6 +109,9 @@ export function mixSheetDtos(deps: AppDeps, jobId: number): BoothMixSheetDto[] {
         .filter((l) => l.sheetId === s.id)
         .map((l) => ({
           label: l.label,
+          materialCode: l.materialCode,
+          materialName: l.materialName,
+          readyPct: s.totalMl > 0 ? (l.plannedMl / s.totalMl) * 100 : null,
           plannedMl: l.plannedMl,
           plannedInUnit: isVolumeUnit(unit) ? convertVolume(l.plannedMl, "mL", unit) : l.plannedMl,
           actualMl: l.actualMl,

@@ -2,6 +2,7 @@ import { Router } from "express";
 import type { AppDeps } from "../../deps";
 import { actorOf, allow } from "../../http/guard";
 import { ctxOf } from "../../http/context";
+import { idempotent } from "../../http/idempotency";
 import { body, params, query } from "../../http/validate";
 import { idParamsSchema } from "../../../shared/schemas/common.schema";
 import { correctCoatLogInputSchema, createCoatLogInputSchema, listCoatLogsQuerySchema } from "../../../shared/schemas/booth.schema";
@@ -19,16 +20,19 @@ export function boothRouter(deps: AppDeps) {
   return r;
 }
 
-/** Coat logs: append-only. A tap adds a coat; a correction is a new entry naming the one it corrects. */
+/**
+ * Coat logs: append-only. A tap adds a coat; a correction is a new entry naming the one it corrects. Both take an
+ * `Idempotency-Key` (the tablet's offline queue sends each entry with its own).
+ */
 export function coatLogsRouter(deps: AppDeps) {
   const r = Router();
   r.get("/", allow("staff"), (req, res) => {
     res.json(listCoatLogs(deps, actorOf(res), query(req, listCoatLogsQuerySchema).jobId));
   });
-  r.post("/", allow("staff"), (req, res) => {
+  r.post("/", allow("staff"), idempotent(deps), (req, res) => {
     res.status(201).json(logCoat(deps, ctxOf(req, res), body(req, createCoatLogInputSchema)));
   });
-  r.post("/:id/corrections", allow("staff"), (req, res) => {
+  r.post("/:id/corrections", allow("staff"), idempotent(deps), (req, res) => {
     res.status(201).json(correctCoatLog(deps, ctxOf(req, res), params(req, idParamsSchema).id, body(req, correctCoatLogInputSchema)));
   });
   return r;

@@ -5,8 +5,9 @@ import type { AppDeps } from "../../deps";
 import type { Actor } from "../../auth/session";
 import type { RequestContext } from "../../http/context";
 import { coatLogs, customers, guns, jobItems, jobs, jobStageEvents, planVersions, plans, prepRecords, testPanels, uploads, users } from "../../db/schema";
-import { badRequest, conflict, forbidden, notFound } from "../../http/http-error";
+import { conflict, forbidden, notFound } from "../../http/http-error";
 import { iso } from "../../http/dates";
+import { madeAt } from "../../http/made-at";
 import { checkGun, gunNames } from "../guns/guns.service";
 import { setupColumns, setupOf } from "../guns/spray-setup";
 import { findJobFor } from "../jobs/jobs.access";
@@ -276,7 +277,8 @@ function moveStage(tx: Pick<AppDeps["db"], "update" | "insert">, job: JobRow, to
 }
 
 /**
- * One tap: the coat just sprayed. The server sets the time and painter; the coat must be the one the card shows
+ * One tap: the coat just sprayed. The server sets the painter, and the time unless the tap was made offline (`at`,
+ * kept within bounds; `createdAt` is when it arrived); the coat must be the one the card shows
  * next (a second tap on a stale card is refused, not double-counted). The first coat of a job needs every item's
  * prep signed off, or the painter's reason for going ahead. Logging freezes the plan version; the first coat moves
  * the job into the booth and the last coat of the last layer moves it to curing.
@@ -305,9 +307,13 @@ export function logCoat(deps: AppDeps, ctx: RequestContext, input: z.output<type
     }
     override = `${input.prepOverrideReason} (prep not signed off: ${pending.join(", ")})`.slice(0, 800);
   }
-  const timingOverridden = timingOverride(next, input.timingOverrideReason);
   checkGun(deps, input.gunId);
   const now = deps.now();
+  const at = madeAt(input.at, now, [
+    { time: job.createdAt, what: "the job was created" },
+    { time: booth.openBatch ? Date.parse(booth.openBatch.mixedAt) : null, what: "its batch was mixed" },
+  ]);
+  const timingOverridden = timingOverride(booth, at, input.timingOverrideReason);
   deps.db.transaction((tx) => {
     tx.insert(coatLogs)
       .values({
@@ -315,7 +321,7 @@ export function logCoat(deps: AppDeps, ctx: RequestContext, input: z.output<type
         planVersionId: booth.plan!.versionId,
         layerId: input.layerId,
         coatNumber: input.coatNumber,
-        at: now,
+        at,
         painterId: actor.id,
         boothTemp: input.boothTemp ?? null,
         tempUnit: input.boothTemp != null ? (input.tempUnit ?? null) : null,
@@ -366,12 +372,7 @@ export function correctCoatLog(deps: AppDeps, ctx: RequestContext, id: number, i
     const latest = effective[effective.length - 1];
     if (latest?.id !== id) throw conflict("Only the latest coat can be marked as not sprayed; correct the details of earlier coats instead", { void: "Not the latest coat" });
   }
-  let at = current.at;
-  if (input.at !== undefined) {
-    at = Date.parse(input.at);
-    if (at > now + 60_000) throw badRequest("The coat's time cannot be in the future", { at: "In the future" });
-    if (at < job.createdAt) throw badRequest("The coat's time is before the job was created", { at: "Before the job" });
-  }
+  const at = input.at === undefined ? current.at : madeAt(input.at, now, [{ time: job.createdAt, what: "the job was created" }]);
   const tempUnit: TempUnit | null = input.boothTemp !== undefined ? (input.boothTemp == null ? null : (input.tempUnit ?? null)) : current.tempUnit;
   deps.db
     .insert(coatLogs)

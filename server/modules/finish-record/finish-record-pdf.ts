@@ -1,3 +1,5 @@
+import { formatMinutes } from "../../../shared/domain/duration";
+import { mixComponentWords, plainNumber } from "../../../shared/domain/mix-words";
 import type { FinishRecordDto } from "../../../shared/schemas/finish-record.schema";
 import { LAYER_KIND_LABELS } from "../../../shared/domain/layers";
 import { SUBSTRATE_LABELS } from "../../../shared/domain/substrates";
@@ -7,10 +9,6 @@ const when = (isoTime: string | null) => (isoTime ? new Date(isoTime).toISOStrin
 const ml = (n: number | null) => (n == null ? "—" : `${Number(n.toFixed(1))} mL`);
 const conditions = (c: { boothTemp: number | null; tempUnit: string | null; humidityPct: number | null }) =>
   [c.boothTemp != null ? `${c.boothTemp} °${c.tempUnit ?? ""}` : null, c.humidityPct != null ? `${c.humidityPct} % RH` : null].filter(Boolean).join(", ");
-
-/** One component as the plan gave it, named by its material and saying what a percentage is of. */
-const component = (c: FinishRecordDto["layers"][number]["components"][number]) =>
-  `${c.materialCode} ${c.materialName} ("${c.label}"): ${c.parts != null ? `${c.parts} ${c.parts === 1 ? "part" : "parts"}` : `${c.percent} % of ${(c.percentOf ?? []).map((l) => `"${l}"`).join(" + ") || "the rest"}`}`;
 
 /** The finish record as a US Letter PDF: one section per layer, what was mixed and what was sprayed. */
 export function renderFinishRecordPdf(d: FinishRecordDto, shopName: string): Promise<Buffer> {
@@ -46,9 +44,11 @@ export function renderFinishRecordPdf(d: FinishRecordDto, shopName: string): Pro
 
   for (const layer of d.layers) {
     heading(`${layer.position}. ${layer.name} (${LAYER_KIND_LABELS[layer.kind]})`);
-    if (layer.components.length) line(`Mix: ${layer.components.map(component).join("; ")}`);
+    for (const w of mixComponentWords(layer.components)) {
+      line(`${w.material} ("${w.label}"): ${w.amount}${w.readyPct !== null ? `, ${plainNumber(w.readyPct, 1)} % of the ready-to-spray mix` : ""}`, { indent: 8 });
+    }
     if (layer.kind === "prep") line("Done through the prep records above.", { color: MUTED });
-    else line(`Planned ${layer.plannedCoats} ${layer.plannedCoats === 1 ? "coat" : "coats"}, flash ${layer.flashMinutes} min, dry ${layer.dryMinutes} min before the next layer`, { color: MUTED });
+    else line(`Planned ${layer.plannedCoats} ${layer.plannedCoats === 1 ? "coat" : "coats"}, flash ${formatMinutes(layer.flashMinutes)}, dry ${formatMinutes(layer.dryMinutes)} before the next layer`, { color: MUTED });
     if (layer.materials.length)
       line(`Materials: ${layer.materials.map((m) => `${m.code} ${m.name}${m.lots.length ? ` (lot ${m.lots.join(", ")})` : ""}`).join("; ")}`);
     for (const b of layer.batches) {

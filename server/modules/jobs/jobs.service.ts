@@ -218,7 +218,7 @@ const stageEventsOf = preparedQuery((db) =>
       fromStage: jobStageEvents.fromStage,
       toStage: jobStageEvents.toStage,
       note: jobStageEvents.note,
-      byName: sql<string>`coalesce(${users.name}, 'Former user')`,
+      byName: sql<string>`coalesce(${users.name}, case ${jobStageEvents.via} when 'payment' then 'The customer, paying online' when 'system' then 'Coatwright' else 'Former user' end)`,
       at: jobStageEvents.at,
     })
     .from(jobStageEvents)

@@ -1,7 +1,8 @@
 import { aliasedTable, and, asc, desc, eq, inArray, type SQL } from "drizzle-orm";
 import type { AppDeps } from "../../deps";
 import type { Actor } from "../../auth/session";
-import { jobs, materialLots, materials, mixSheetLines, mixSheets, planLayers, planVersions, plans, users } from "../../db/schema";
+import { jobs, layerComponents, materialLots, materials, mixSheetLines, mixSheets, planLayers, planVersions, plans, users } from "../../db/schema";
+import { getSettings } from "../settings/settings.service";
 import { badRequest, conflict, notFound } from "../../http/http-error";
 import { iso, isoOrNull } from "../../http/dates";
 import type { RequestContext } from "../../http/context";
@@ -17,14 +18,16 @@ import {
   mixVoc,
   potLifeEnds,
   roundForMeasuring,
+  weighingPlan,
+  type WeighingPlan,
   type MeasuringUnit,
   type MixLine,
   type VolumeUnit,
 } from "../../../shared/mix/index";
 import { toMixComponents } from "../../../shared/domain/layer-mix";
+import { mixComponentWords } from "../../../shared/domain/mix-words";
 import { vocAgainstLimit } from "../../../shared/domain/voc-limits";
 import type { LayerKind } from "../../../shared/domain/layers";
-import { getSettings } from "../settings/settings.service";
 import { batchNeed } from "./batch-need";
 import { centsPerMl, mlToPurchaseUnit } from "../../../shared/domain/material-units";
 import { cautionsFor } from "../../../shared/domain/safety";
@@ -103,6 +106,16 @@ function neededInPurchaseUnit(ml: number, m: MaterialRow, density: number | null
   }
 }
 
+/** The layer's mix as written (parts, percent of), to measure rounding against. */
+function layerComponentsOf(db: DbOrTx, layerId: number) {
+  return db
+    .select({ label: layerComponents.label, parts: layerComponents.parts, percent: layerComponents.percent, percentOf: layerComponents.percentOf })
+    .from(layerComponents)
+    .where(eq(layerComponents.layerId, layerId))
+    .orderBy(asc(layerComponents.position))
+    .all();
+}
+
 function lotsByMaterial(db: DbOrTx, materialIds: number[]): Map<number, LotRow[]> {
   const out = new Map<number, LotRow[]>();
   if (!materialIds.length) return out;
@@ -158,21 +171,38 @@ function sheetDto(deps: AppDeps, actor: Actor, sheet: SheetRow): MixSheetDto {
     if (d != null) line.grams = r.l.plannedMl * d;
     return line;
   });
+  const tolerancePct = getSettings(deps).ratioTolerancePct;
+  const written = layerComponentsOf(deps.db, sheet.layerId);
+  const words = new Map(
+    mixComponentWords(
+      written.map((c) => {
+        const r = rows.find((x) => x.l.label === c.label);
+        return { ...c, materialCode: r?.m.code ?? "", materialName: r?.m.name ?? c.label };
+      }),
+    ).map((w) => [w.label, w.amount]),
+  );
+  const rounding = {
+    components: toMixComponents(written),
+    keep: rows.filter((r) => r.m.category === "hardener").map((r) => r.l.label),
+    tolerancePct,
+  };
+  const roundingUnit = sheet.roundingUnit as MeasuringUnit | null;
   let rounded: ReturnType<typeof roundForMeasuring> | null = null;
-  if (sheet.roundingStep != null && sheet.roundingUnit) {
-    try {
-      rounded = roundForMeasuring(mixLines, sheet.roundingStep, sheet.roundingUnit as MeasuringUnit);
-    } catch {
-      rounded = null;
+  let scale: WeighingPlan | null = null;
+  try {
+    if (sheet.roundingStep != null && roundingUnit) rounded = roundForMeasuring(mixLines, sheet.roundingStep, roundingUnit, rounding);
+    if (mixLines.every((l) => l.grams !== undefined)) {
+      const onScale = sheet.roundingStep != null && roundingUnit && isMassUnit(roundingUnit) ? { unit: roundingUnit, step: sheet.roundingStep } : {};
+      scale = weighingPlan(mixLines, { ...onScale, ...rounding });
     }
+  } catch {
+    rounded = null;
+    scale = null;
   }
-  const allGrams = mixLines.every((l) => l.grams !== undefined);
-  let running = 0;
   const today = todayOf(deps.now());
   const lots = sheet.status === "draft" ? lotsByMaterial(deps.db, rows.map((r) => r.m.id)) : new Map<number, LotRow[]>();
   const lines: MixSheetLineDto[] = rows.map((r, i) => {
     const ml = mixLines[i]!;
-    if (ml.grams !== undefined) running += ml.grams;
     const materialLotsOf = lots.get(r.m.id) ?? [];
     const suggested = sheet.status === "draft" ? suggestLot(materialLotsOf, neededInPurchaseUnit(r.l.plannedMl, r.m, density(r)), today) : undefined;
     const choices: LotChoiceDto[] = lotOrder(materialLotsOf).map((l) => ({
@@ -196,10 +226,13 @@ function sheetDto(deps: AppDeps, actor: Actor, sheet: SheetRow): MixSheetDto {
       amount: ml.volume,
       plannedMl: r.l.plannedMl,
       share: ml.share,
+      asPlanned: words.get(r.l.label) ?? null,
       grams: ml.grams ?? null,
-      cumulativeGrams: allGrams && ml.grams !== undefined ? running : null,
+      scaleTarget: scale?.steps[i]!.target ?? null,
+      scaleReads: scale?.steps[i]!.scaleReads ?? null,
       rounded: rl?.rounded ?? null,
       ratioErrorPct: rl?.ratioErrorPct ?? null,
+      ratioReference: rl?.reference ?? null,
       actualMl: r.l.actualMl,
       lotId: r.l.lotId,
       lotNumber: r.l.lotNumber,
@@ -235,6 +268,11 @@ function sheetDto(deps: AppDeps, actor: Actor, sheet: SheetRow): MixSheetDto {
     roundingUnit: (sheet.roundingUnit as MeasuringUnit | null) ?? null,
     worstRatioErrorPct: rounded?.worstRatioErrorPct ?? null,
     worstComponent: rounded?.worstComponent ?? null,
+    movedComponents: rounded?.moved ?? [],
+    scaleUnit: scale?.unit ?? null,
+    scaleStep: scale?.step ?? null,
+    scaleLastReading: scale?.total ?? null,
+    ratioTolerancePct: tolerancePct,
     roundedTotal: rounded?.roundedTotal ?? null,
     total: mixLines.reduce((a, l) => a + l.volume, 0),
     totalMl: sheet.totalMl,

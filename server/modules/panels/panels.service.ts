@@ -87,7 +87,14 @@ function sheetsOf(deps: AppDeps, sheetIds: number[]): Map<number, NonNullable<Pa
   if (!sheetIds.length) return new Map();
   const sheets = deps.db.select({ id: mixSheets.id, status: mixSheets.status, mixedAt: mixSheets.mixedAt }).from(mixSheets).where(inArray(mixSheets.id, sheetIds)).all();
   const lines = deps.db
-    .select({ sheetId: mixSheetLines.mixSheetId, materialCode: materials.code, materialName: materials.name, lotNumber: mixSheetLines.lotNumber })
+    .select({
+      sheetId: mixSheetLines.mixSheetId,
+      materialCode: materials.code,
+      materialName: materials.name,
+      category: materials.category,
+      lotNumber: mixSheetLines.lotNumber,
+      ml: mixSheetLines.plannedMl,
+    })
     .from(mixSheetLines)
     .innerJoin(materials, eq(mixSheetLines.materialId, materials.id))
     .where(inArray(mixSheetLines.mixSheetId, sheetIds))
@@ -101,9 +108,17 @@ function sheetsOf(deps: AppDeps, sheetIds: number[]): Map<number, NonNullable<Pa
         status: sh.status,
         mixedAt: sh.mixedAt != null ? iso(sh.mixedAt) : null,
         lots: lines.filter((l) => l.sheetId === sh.id).map(({ materialCode, materialName, lotNumber }) => ({ materialCode, materialName, lotNumber })),
+        tonerReadyPct: tonerShare(lines.filter((l) => l.sheetId === sh.id)),
       },
     ]),
   );
+}
+
+/** The toner's share of the whole ready-to-spray batch (clear, toner, reducer and the rest), in %; null without toner. */
+function tonerShare(lines: { category: string; ml: number }[]): number | null {
+  const total = lines.reduce((a, l) => a + l.ml, 0);
+  const toner = lines.filter((l) => l.category === "toner").reduce((a, l) => a + l.ml, 0);
+  return total > 0 && toner > 0 ? (toner / total) * 100 : null;
 }
 
 /** Panels as the actor may see them: painters see job titles only for their own jobs; customers no shop notes. */

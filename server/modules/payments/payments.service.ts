@@ -169,7 +169,7 @@ function bookJob(tx: Tx, jobId: number, by: string | null, now: number, note: st
       .get()?.id ??
     null;
   tx.update(jobs).set({ stage: "booked", stageChangedAt: now, updatedAt: now }).where(eq(jobs.id, jobId)).run();
-  tx.insert(jobStageEvents).values({ jobId, fromStage: job.stage, toStage: "booked", userId: customerUser, note, at: now }).run();
+  tx.insert(jobStageEvents).values({ jobId, fromStage: job.stage, toStage: "booked", userId: customerUser, via: "payment", note, at: now }).run();
 }
 
 function recordRefund(tx: Tx, eventId: string, refund: Pick<Stripe.Refund, "id" | "amount" | "status" | "metadata"> & { payment_intent: Stripe.Refund["payment_intent"] }, now: number): string {

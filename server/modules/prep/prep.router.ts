@@ -2,11 +2,13 @@ import { Router } from "express";
 import type { AppDeps } from "../../deps";
 import { actorOf, allow } from "../../http/guard";
 import { body, params, query } from "../../http/validate";
+import { idempotent } from "../../http/idempotency";
 import { idParamsSchema } from "../../../shared/schemas/common.schema";
 import {
   createPrepRecordInputSchema,
   listPrepRecordsQuerySchema,
   reopenPrepRecordInputSchema,
+  signOffPrepRecordInputSchema,
   updatePrepRecordInputSchema,
 } from "../../../shared/schemas/prep.schema";
 import { createPrepRecord, getPrepRecord, jobPrep, reopenPrepRecord, signOffPrepRecord, updatePrepRecord } from "./prep.service";
@@ -26,8 +28,8 @@ export function prepRouter(deps: AppDeps) {
   r.patch("/:id", allow("staff"), (req, res) => {
     res.json(updatePrepRecord(deps, actorOf(res), params(req, idParamsSchema).id, body(req, updatePrepRecordInputSchema)));
   });
-  r.post("/:id/sign-off", allow("staff"), (req, res) => {
-    res.json(signOffPrepRecord(deps, actorOf(res), params(req, idParamsSchema).id));
+  r.post("/:id/sign-off", allow("staff"), idempotent(deps), (req, res) => {
+    res.json(signOffPrepRecord(deps, actorOf(res), params(req, idParamsSchema).id, body(req, signOffPrepRecordInputSchema)));
   });
   r.post("/:id/reopen", allow("office"), (req, res) => {
     res.json(reopenPrepRecord(deps, actorOf(res), params(req, idParamsSchema).id, body(req, reopenPrepRecordInputSchema)));

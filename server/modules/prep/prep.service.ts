@@ -6,6 +6,7 @@ import type { Actor } from "../../auth/session";
 import { jobItems, prepRecords, users } from "../../db/schema";
 import { badRequest, conflict, notFound } from "../../http/http-error";
 import { iso, isoOrNull } from "../../http/dates";
+import { madeAt } from "../../http/made-at";
 import { findJobFor } from "../jobs/jobs.access";
 import { photosOf } from "../uploads/uploads.service";
 import { missingPrepSteps, PREP_STEP_LABELS, type PrepStatus } from "../../../shared/domain/prep";
@@ -15,6 +16,7 @@ import type {
   JobPrepDto,
   PrepRecordDto,
   reopenPrepRecordInputSchema,
+  signOffPrepRecordInputSchema,
   updatePrepRecordInputSchema,
 } from "../../../shared/schemas/prep.schema";
 
@@ -148,7 +150,7 @@ export function updatePrepRecord(deps: AppDeps, actor: Actor, id: number, input:
 }
 
 /** Sign-off needs every step the substrate calls for; the refusal names what is missing. */
-export function signOffPrepRecord(deps: AppDeps, actor: Actor, id: number): PrepRecordDto {
+export function signOffPrepRecord(deps: AppDeps, actor: Actor, id: number, input: z.output<typeof signOffPrepRecordInputSchema> = {}): PrepRecordDto {
   const { r } = findRecord(deps, actor, id);
   if (r.signedOffAt) throw conflict("This prep is already signed off");
   const missing = missingPrepSteps(r.substrate, r);
@@ -157,7 +159,8 @@ export function signOffPrepRecord(deps: AppDeps, actor: Actor, id: number): Prep
     throw conflict(`Not ready to sign off: still to record ${names.join(", ")}`, Object.fromEntries(missing.map((s) => [stepField(s), "Not done yet"])));
   }
   const now = deps.now();
-  deps.db.update(prepRecords).set({ signedOffBy: actor.id, signedOffAt: now, updatedAt: now }).where(eq(prepRecords.id, id)).run();
+  const at = madeAt(input.at, now, [{ time: findJobFor(deps, actor, r.jobId).createdAt, what: "the job was created" }]);
+  deps.db.update(prepRecords).set({ signedOffBy: actor.id, signedOffAt: at, updatedAt: now }).where(eq(prepRecords.id, id)).run();
   return getPrepRecord(deps, actor, id);
 }
 

@@ -492,7 +492,8 @@ export async function sendQuote(deps: AppDeps, ctx: RequestContext, id: number, 
   const to = input.to ?? q.customerEmail;
   if (!to) throw badRequest("The customer has no e-mail address on file; enter one to send to", { to: "Enter an e-mail address" });
 
-  const pdf = await renderQuotePdf(pdfDataFor(deps, v));
+  // The attached PDF is the quote as the customer receives it: sent, not a draft.
+  const pdf = await renderQuotePdf({ ...pdfDataFor(deps, v), ...(v.status === "draft" ? { status: "sent" as const, issuedAt: deps.now() } : {}) });
   const link = quoteLink(deps, id, v.validUntil);
   const t = totalsOf(v);
   const mail = composeQuoteMail({

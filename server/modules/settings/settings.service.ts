@@ -38,6 +38,7 @@ export function getPublicSettings(deps: Pick<AppDeps, "db">): PublicShopSettings
     defaultAreaUnit: s.defaultAreaUnit,
     deltaEMatch: s.deltaEMatch,
     deltaEClose: s.deltaEClose,
+    ratioTolerancePct: s.ratioTolerancePct,
     vocLimits: s.vocLimits,
   };
 }

@@ -12,6 +12,7 @@ import {
 } from "../../../shared/schemas/upload.schema";
 import { uploadMiddleware } from "./storage";
 import { acceptsFiles } from "../../http/media-type";
+import { idempotent } from "../../http/idempotency";
 import { createUpload, deleteUpload, listUploads, photoTooLarge, readUpload, updateUpload } from "./uploads.service";
 
 /** Multer in memory, with the size limit answered as a 413 that says what the limits are. */
@@ -25,7 +26,7 @@ function receiveFile(): RequestHandler {
 export function uploadsRouter(deps: AppDeps) {
   const r = Router();
   /** multipart/form-data: file, ownerType, ownerId, caption, shareable. Photos only (JPEG, PNG, WebP). */
-  r.post("/", allow("staff"), receiveFile(), async (req, res) => {
+  r.post("/", allow("staff"), receiveFile(), idempotent(deps), async (req, res) => {
     res.status(201).json(await createUpload(deps, actorOf(res), body(req, createUploadFieldsSchema), req.file));
   });
   r.get("/", allow("signedIn"), (req, res) => {

@@ -14,6 +14,7 @@ import { Panel } from "@/components/ui/panel";
 import { SelectField } from "@/components/ui/form/select-field";
 import { Spinner } from "@/components/ui/spinner";
 import { toast } from "@/components/ui/toast/toast-store";
+import { shopSettingsQueries } from "@/lib/shop-settings.queries";
 import { paths } from "@/config/paths";
 import { cn } from "@/utils/cn";
 import { formatDateTime } from "@/utils/format-date";
@@ -72,7 +73,7 @@ function PlanActions({ plan }: { plan: PlanDto }) {
 function PlanBody({ jobId, plan, estimate }: { jobId: number; plan: PlanDto; estimate: PlanEstimateDto | null }) {
   const navigate = useNavigate();
   const create = useCreateMixSheet();
-  const unit = useQuery(planQueries.shopUnits()).data?.defaultVolumeUnit ?? "mL";
+  const unit = useQuery(shopSettingsQueries.public()).data?.defaultVolumeUnit ?? "mL";
   const [mixing, setMixing] = useState<PlanLayerDto | null>(null);
   const v = plan.latest;
   return (

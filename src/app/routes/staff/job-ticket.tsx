@@ -5,6 +5,7 @@ import { LAYER_KIND_LABELS } from "@shared/domain/layers";
 import { STAGE_LABELS } from "@shared/domain/stages";
 import { SUBSTRATE_LABELS, AREA_UNIT_LABELS } from "@shared/domain/substrates";
 import { isApiError } from "@/lib/api-client";
+import { formatMinutes } from "@shared/domain/duration";
 import { Alert } from "@/components/ui/alert";
 import { Button, ButtonLink } from "@/components/ui/button";
 import { Spinner } from "@/components/ui/spinner";
@@ -96,9 +97,17 @@ export default function JobTicketRoute() {
                       </span>
                     ) : null}
                   </td>
-                  <td className="py-2 pr-2 tabular-nums">{l.kind === "prep" ? "—" : l.coats}</td>
-                  <td className="py-2 pr-2 whitespace-nowrap tabular-nums">{l.flashMinutes} min</td>
-                  <td className="py-2 pr-2 whitespace-nowrap tabular-nums">{l.dryMinutes} min</td>
+                  {l.kind === "prep" ? (
+                    <td colSpan={2} className="py-2 pr-2">
+                      Sign off each item on the prep record
+                    </td>
+                  ) : (
+                    <>
+                      <td className="py-2 pr-2 tabular-nums">{l.coats}</td>
+                      <td className="py-2 pr-2 whitespace-nowrap tabular-nums">{formatMinutes(l.flashMinutes)}</td>
+                    </>
+                  )}
+                  <td className="py-2 pr-2 whitespace-nowrap tabular-nums">{formatMinutes(l.dryMinutes)}</td>
                   <td className="py-2 pr-2">☐</td>
                 </tr>
               ))}

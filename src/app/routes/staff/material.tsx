@@ -1,3 +1,4 @@
+import { formatMinutes } from "@shared/domain/duration";
 import { useState, type ReactNode } from "react";
 import { useNavigate, useParams } from "react-router";
 import { useQuery } from "@tanstack/react-query";
@@ -95,9 +96,9 @@ function MaterialPage({ material: m }: { material: MaterialDetailDto }) {
               <Fact label="VOC, less water and exempt">{orDash(m.vocGPerL, " g/L", 0)}</Fact>
               <Fact label="Water and exempt">{orDash(m.waterExemptPct, " %", 1)}</Fact>
               <Fact label="Density">{orDash(m.densityGPerMl, " g/mL", 3)}</Fact>
-              <Fact label="Pot life">{m.potLifeMinutes == null ? "—" : `${m.potLifeMinutes} min`}</Fact>
-              <Fact label="Induction">{orDash(m.inductionMinutes, " min", 0)}</Fact>
-              <Fact label="Recoat window">{m.recoatMinMinutes == null && m.recoatMaxMinutes == null ? "—" : `${m.recoatMinMinutes ?? 0} to ${m.recoatMaxMinutes ?? "any"} min after the last coat`}</Fact>
+              <Fact label="Pot life">{m.potLifeMinutes == null ? "—" : formatMinutes(m.potLifeMinutes)}</Fact>
+              <Fact label="Induction">{m.inductionMinutes == null ? "—" : formatMinutes(m.inductionMinutes)}</Fact>
+              <Fact label="Recoat window">{m.recoatMinMinutes == null && m.recoatMaxMinutes == null ? "—" : `${formatMinutes(m.recoatMinMinutes ?? 0)} to ${m.recoatMaxMinutes != null ? formatMinutes(m.recoatMaxMinutes) : "any time"} after the last coat`}</Fact>
             </dl>
             {m.notes ? <p className="mt-5 border-t border-primer-200 pt-4 whitespace-pre-line">{m.notes}</p> : null}
           </Panel>

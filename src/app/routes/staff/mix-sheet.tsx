@@ -18,6 +18,7 @@ import { cn } from "@/utils/cn";
 import { formatDateTime } from "@/utils/format-date";
 import { formatAmount, formatNumber } from "@/utils/format-quantity";
 import { mixSheetQueries, useDeleteMixSheet, useRecordMixSheet, useVoidMixSheet } from "@/features/plans/api/mix-sheets.queries";
+import { WeighSteps } from "@/features/plans/components/weigh-steps";
 import { MIX_SHEET_PRINT_CSS, MixSheetTable, PotLife, RatioWarning, RecordMixedForm, SheetCautions } from "@/features/plans/components/mix-sheet-view";
 import { VocOverLimit } from "@/features/plans/components/layer-voc-note";
 import { InPageNotFound } from "../in-page-not-found";
@@ -92,6 +93,7 @@ function MixSheetPage({ sheet }: { sheet: MixSheetDto }) {
             {sheet.batchWarning}
           </Alert>
         ) : null}
+        {sheet.status === "draft" ? <WeighSteps sheet={sheet} /> : null}
         {sheet.vocOverLimit && sheet.vocGPerL != null && sheet.vocLimitGPerL != null ? <VocOverLimit kind={sheet.layerKind} gPerL={sheet.vocGPerL} limitGPerL={sheet.vocLimitGPerL} /> : null}
         <div className="flex flex-wrap items-center gap-x-6 gap-y-2">
           <PotLife sheet={sheet} />

@@ -48,7 +48,11 @@ function PanelPage({ panel }: { panel: PanelDto }) {
   const rows: [string, string][] = [
     ["Ground coat", panel.groundName],
     ["Candy", panel.candyName],
-    ["Let-down (clear : toner)", `${panel.letDownClear}:${panel.letDownToner} · toner ${(panel.tonerFraction * 100).toFixed(2)}% of the mix`],
+    [
+      "Let-down (clear : toner)",
+      `${panel.letDownClear}:${panel.letDownToner} · toner ${(panel.tonerFraction * 100).toFixed(2)} % of clear + toner` +
+        (panel.mixSheet?.tonerReadyPct != null ? `, ${panel.mixSheet.tonerReadyPct.toFixed(2)} % of the ready-to-spray batch` : ""),
+    ],
     ["Coats", String(panel.coats)],
     ["Meter reading (daylight, D65)", formatLab(panel.lab)],
     ...panel.readings.map((r): [string, string] => [`Reading, ${PANEL_LIGHT_LABELS[r.light].toLowerCase()} (${r.illuminant})`, formatLab(r.lab)]),

@@ -28,7 +28,7 @@ export default function PanelsCompareRoute() {
   const rows: [string, (p: (typeof panels)[number]) => string][] = [
     ["Ground", (p) => p.groundName],
     ["Candy", (p) => p.candyName],
-    ["Let-down", (p) => `${p.letDownClear}:${p.letDownToner} (toner ${(p.tonerFraction * 100).toFixed(1)}%)`],
+    ["Let-down", (p) => `${p.letDownClear}:${p.letDownToner} (toner ${(p.tonerFraction * 100).toFixed(1)} % of clear + toner)`],
     ["Coats", (p) => String(p.coats)],
     ["Depth (toner fraction × coats)", (p) => formatNumber(p.tonerFraction * p.coats, 3)],
     [`As deep as, at ${ref.clear}:${ref.toner}`, (p) => `${formatNumber(equivalentCoats(p.coats, { clear: p.letDownClear, toner: p.letDownToner }, ref), 2)} coats`],

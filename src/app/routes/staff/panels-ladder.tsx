@@ -39,7 +39,7 @@ export default function PanelsLadderRoute() {
         <TextField label="Toner parts" inputMode="decimal" defaultValue={toToner ?? ""} onChange={(e) => set("toToner", e.target.value)} fieldClassName="w-32" />
         {ladder.data ? (
           <p className="pb-3 text-sm text-primer-800">
-            Reference {ladder.data.reference.clear}:{ladder.data.reference.toner} (toner {(ladder.data.reference.tonerFraction * 100).toFixed(2)}% of the mix)
+            Reference {ladder.data.reference.clear}:{ladder.data.reference.toner} (toner {(ladder.data.reference.tonerFraction * 100).toFixed(2)} % of clear + toner)
           </p>
         ) : null}
       </fieldset>

@@ -2,7 +2,7 @@ import { Link } from "react-router";
 import type { BoothDto } from "@shared/schemas/booth.schema";
 import { ButtonLink } from "@/components/ui/button";
 import { Panel } from "@/components/ui/panel";
-import { formatVolume } from "@/utils/format-quantity";
+import { formatNumber, formatVolume } from "@/utils/format-quantity";
 import { isVolumeUnit } from "@shared/mix/index";
 import { formatClock } from "./booth-timers";
 
@@ -42,7 +42,15 @@ export function BatchPanel({ card, mixSheetPath, jobPlanPath }: { card: BoothDto
             <tbody>
               {sheet.lines.map((l) => (
                 <tr key={l.label} className="border-b border-primer-200 last:border-0">
-                  <th scope="row" className="py-2 font-semibold text-ink-950">{l.label}</th>
+                  <th scope="row" className="py-2 text-ink-950">
+                    <span className="block font-semibold">
+                      <span className="font-mono">{l.materialCode}</span> {l.materialName}
+                    </span>
+                    <span className="block text-sm font-normal text-primer-800">
+                      {l.label}
+                      {l.readyPct != null ? ` · ${formatNumber(l.readyPct, 1)} % of the ready-to-spray mix` : ""}
+                    </span>
+                  </th>
                   <td className="py-2 text-right tabular-nums">{isVolumeUnit(sheet.unit) ? formatVolume(l.plannedMl, sheet.unit) : `${l.plannedInUnit} ${sheet.unit}`}</td>
                   <td className="py-2 text-right">{l.lotNumber ?? "—"}</td>
                 </tr>

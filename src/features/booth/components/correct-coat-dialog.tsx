@@ -1,4 +1,5 @@
-import { useState } from "react";
+import { switchTemperatureText, type TempUnit } from "@shared/domain/booth";
+import { useState, type ChangeEvent } from "react";
 import { useForm } from "react-hook-form";
 import { zodResolver } from "@hookform/resolvers/zod";
 import type { z } from "zod";
@@ -34,6 +35,8 @@ export function CorrectCoatDialog({ jobId, entry, canVoid, onClose }: { jobId: n
     register,
     handleSubmit,
     setError,
+    setValue,
+    getValues,
     watch,
     formState: { errors, isSubmitting, dirtyFields },
   } = useForm<Input, unknown, Values>({
@@ -96,7 +99,16 @@ export function CorrectCoatDialog({ jobId, entry, canVoid, onClose }: { jobId: n
             />
             <div className="grid grid-cols-[1fr_7rem_1fr] gap-3">
               <TextField label="Booth temperature" inputMode="decimal" error={errors.boothTemp?.message} {...register("boothTemp")} />
-              <SelectField label="Unit" error={errors.tempUnit?.message} {...register("tempUnit")}>
+              <SelectField
+                label="Unit"
+                error={errors.tempUnit?.message}
+                {...register("tempUnit", {
+                  onChange: (e: ChangeEvent<HTMLSelectElement>) => {
+                    const to = e.target.value as TempUnit;
+                    setValue("boothTemp", switchTemperatureText(String(getValues("boothTemp") ?? ""), to === "C" ? "F" : "C", to), { shouldDirty: true });
+                  },
+                })}
+              >
                 <option value="C">°C</option>
                 <option value="F">°F</option>
               </SelectField>

@@ -1,3 +1,4 @@
+import { MixWordsList } from "@/components/ui/mix-words-list";
 import { Check, ShieldAlert } from "lucide-react";
 import { Link } from "react-router";
 import { LAYER_KIND_LABELS } from "@shared/domain/layers";
@@ -5,12 +6,6 @@ import type { BoothLayerDto } from "@shared/schemas/booth.schema";
 import { cn } from "@/utils/cn";
 import { formatMinutes } from "../hooks/use-server-now";
 
-function mixLine(layer: BoothLayerDto) {
-  const parts = layer.components.filter((c) => c.parts != null);
-  const ratio = parts.map((c) => c.parts).join(":");
-  const percents = layer.components.filter((c) => c.percent != null).map((c) => `${c.label} ${c.percent}%`);
-  return [ratio && `${ratio} (${parts.map((c) => c.label).join(" : ")})`, ...percents].filter(Boolean).join(" + ");
-}
 
 /** The plan's layers in spray order: done, the current one, and what comes after. */
 export function LayerList({ layers, prepPath }: { layers: BoothLayerDto[]; prepPath: string }) {
@@ -60,7 +55,7 @@ export function LayerList({ layers, prepPath }: { layers: BoothLayerDto[]; prepP
                     Prep records
                   </Link>
                 )}
-                {layer.components.length ? <p className="mt-1 text-sm text-primer-800">Mix {mixLine(layer)}</p> : null}
+                <MixWordsList components={layer.components} className="mt-1 text-primer-800" />
                 {layer.cautions.length ? (
                   <p className="mt-1 flex items-center gap-1.5 text-sm font-semibold text-flake-800">
                     <ShieldAlert aria-hidden className="size-4" />

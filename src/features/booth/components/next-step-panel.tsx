@@ -1,3 +1,4 @@
+import { switchTemperatureText } from "@shared/domain/booth";
 import { useState, type ChangeEvent, type FormEvent } from "react";
 import { Link } from "react-router";
 import { CheckCircle2, PaintBucket, TriangleAlert } from "lucide-react";
@@ -273,7 +274,12 @@ function LogCoatForm({ card, now, prepPath }: { card: BoothDto; now: number; pre
                       values.tempUnit === u ? "border-ink-900 bg-ink-900 text-white" : "border-primer-400 bg-white text-ink-950",
                     )}
                   >
-                    <input type="radio" name="tempUnit" value={u} className="sr-only" checked={values.tempUnit === u} onChange={() => set("tempUnit", u)} />°{u}
+                    <input type="radio" name="tempUnit" value={u} className="sr-only" checked={values.tempUnit === u} onChange={() => {
+                        set("boothTemp", switchTemperatureText(values.boothTemp, values.tempUnit, u));
+                        set("tempUnit", u);
+                      }}
+                    />
+                    °{u}
                   </label>
                 ))}
               </fieldset>

@@ -1,3 +1,5 @@
+import { formatMinutes } from "@shared/domain/duration";
+import { MixWordsList } from "@/components/ui/mix-words-list";
 import { FileDown, Printer, TriangleAlert } from "lucide-react";
 import { LAYER_KIND_LABELS } from "@shared/domain/layers";
 import { SUBSTRATE_LABELS } from "@shared/domain/substrates";
@@ -15,10 +17,6 @@ const PRINT_CSS = `@media print {
 const ml = (n: number | null) => (n == null ? "—" : `${Number(n.toFixed(1))} mL`);
 const RULES: Record<FinishCoatDto["overrides"][number]["rule"], string> = { prep: "Sprayed before prep sign-off", timing: "Sprayed against a timing rule", change: "Change not yet approved" };
 
-function component(c: FinishLayerDto["components"][number]) {
-  const amount = c.parts != null ? `${c.parts} ${c.parts === 1 ? "part" : "parts"}` : `${c.percent} % of ${(c.percentOf ?? []).map((l) => `“${l}”`).join(" + ")}`;
-  return `${c.materialCode} ${c.materialName} (“${c.label}”): ${amount}`;
-}
 
 /**
  * What was really sprayed on a job, layer by layer: the page a shop prints and files so the finish can be repaired
@@ -104,11 +102,11 @@ function LayerRecord({ layer }: { layer: FinishLayerDto }) {
       <h2 id={headingId} className="text-xl font-semibold">
         {layer.position}. {layer.name} <span className="text-base font-normal text-primer-800">({LAYER_KIND_LABELS[layer.kind]})</span>
       </h2>
-      {layer.components.length ? <p className="mt-1">Mix: {layer.components.map(component).join("; ")}</p> : null}
+      <MixWordsList components={layer.components} className="mt-1" />
       <p className="text-primer-900">
         {layer.kind === "prep"
           ? "Done through the prep records above."
-          : `Planned ${layer.plannedCoats} ${layer.plannedCoats === 1 ? "coat" : "coats"}, flash ${layer.flashMinutes} min, dry ${layer.dryMinutes} min before the next layer.`}
+          : `Planned ${layer.plannedCoats} ${layer.plannedCoats === 1 ? "coat" : "coats"}, flash ${formatMinutes(layer.flashMinutes)}, dry ${formatMinutes(layer.dryMinutes)} before the next layer.`}
       </p>
       {layer.materials.length ? (
         <p>

@@ -3,7 +3,9 @@ import { useFieldArray, useForm, useWatch } from "react-hook-form";
 import { Plus, Trash2 } from "lucide-react";
 import { computeMix, MASS_UNITS, MixError, VOLUME_UNITS, type MeasuringUnit, type MixComponent, type MixResult, type VolumeUnit } from "@shared/mix/index";
 import { MAX_MIX_COMPONENTS } from "@shared/schemas/mix.schema";
-import { RATIO_WARNING_PCT } from "@shared/schemas/mix-sheet.schema";
+import { useQuery } from "@tanstack/react-query";
+import { shopSettingsQueries } from "@/lib/shop-settings.queries";
+import { RoundingNote } from "@/components/ui/rounding-note";
 import { Button } from "@/components/ui/button";
 import { SingleChoice } from "@/components/ui/choice-group";
 import { SelectField } from "@/components/ui/form/select-field";
@@ -40,7 +42,7 @@ const START: Values = {
 
 type Outcome = { result: MixResult | null; error: { row: number | null; field: string; message: string } | null };
 
-function compute(v: Values): Outcome {
+function compute(v: Values, tolerancePct?: number): Outcome {
   const rows = v.rows ?? [];
   const components: MixComponent[] = rows.map((r) => {
     const density = num(r.density);
@@ -57,7 +59,7 @@ function compute(v: Values): Outcome {
       amount,
       unit: v.unit,
       knownName: v.mode === "component" ? v.knownName : undefined,
-      rounding: step !== undefined ? { step, unit: v.stepUnit } : undefined,
+      rounding: step !== undefined ? { step, unit: v.stepUnit, tolerancePct } : undefined,
     });
     return { result, error: null };
   } catch (e) {
@@ -71,7 +73,8 @@ export function MixCalculator() {
   const { control, register, setValue } = useForm<Values>({ defaultValues: START });
   const rows = useFieldArray({ control, name: "rows" });
   const v = useWatch({ control }) as Values;
-  const { result, error } = useMemo(() => compute(v), [v]);
+  const tolerancePct = useQuery(shopSettingsQueries.public()).data?.ratioTolerancePct;
+  const { result, error } = useMemo(() => compute(v, tolerancePct), [v, tolerancePct]);
   const names = (v.rows ?? []).map((r) => r.name.trim()).filter(Boolean);
   const rowError = (i: number, field: string) => (error && error.row === i && (error.field === field || (field === "name" && !["parts", "percent", "percentOf", "densityGPerMl"].includes(error.field))) ? error.message : undefined);
   const topError = (field: string) => (error && error.row === null && (error.field === field || (field === "amount" && error.field === "total")) ? error.message : undefined);
@@ -223,9 +226,9 @@ function Results({ result }: { result: MixResult }) {
                 {formatAmount(l.volume, l.unit)}
               </td>
               {grams ? <td className="px-3 py-2 text-right tabular-nums">{l.grams === undefined ? "—" : `${formatNumber(l.grams, 1)} g`}</td> : null}
-              {result.scale ? <td className="px-3 py-2 text-right font-semibold tabular-nums">{formatNumber(result.scale[i]!.cumulativeGrams, 1)} g</td> : null}
+              {result.scale ? <td className="px-3 py-2 text-right font-semibold tabular-nums">{formatAmount(result.scale.steps[i]!.scaleReads, result.scale.unit, 4)}</td> : null}
               {r ? (
-                <td className={cn("px-3 py-2 text-right font-semibold tabular-nums", r.lines[i]!.ratioErrorPct > RATIO_WARNING_PCT && "text-flake-800")}>{formatAmount(r.lines[i]!.rounded, r.unit, 4)}</td>
+                <td className={cn("px-3 py-2 text-right font-semibold tabular-nums", r.moved.includes(l.name) && "text-flake-800")}>{formatAmount(r.lines[i]!.rounded, r.unit, 4)}</td>
               ) : null}
             </tr>
           ))}
@@ -241,11 +244,7 @@ function Results({ result }: { result: MixResult }) {
         </tfoot>
       </table>
       {r ? (
-        <p role="status" className={cn("rounded-lg px-3 py-2 text-sm", r.worstRatioErrorPct > RATIO_WARNING_PCT ? "border-l-4 border-flake-600 bg-flake-50 text-flake-900" : "text-primer-700")}>
-          {r.worstRatioErrorPct > RATIO_WARNING_PCT ? "Warning: " : ""}
-          rounding to {formatAmount(r.step, r.unit, 4)} puts the ratio off by up to {formatNumber(r.worstRatioErrorPct, 2)} % ({r.worstComponent}).
-          {r.raisedFromZero.length ? ` Raised from zero to one step: ${r.raisedFromZero.join(", ")}.` : ""}
-        </p>
+        <RoundingNote {...r} />
       ) : null}
     </div>
   );

@@ -1,4 +1,5 @@
-import { useState } from "react";
+import { switchTemperatureText, type TempUnit } from "@shared/domain/booth";
+import { useState, type ChangeEvent } from "react";
 import { useQuery } from "@tanstack/react-query";
 import { useFieldArray, useForm, type UseFormRegister } from "react-hook-form";
 import { zodResolver } from "@hookform/resolvers/zod";
@@ -75,6 +76,8 @@ export function PanelForm({
     register,
     handleSubmit,
     setError,
+    setValue,
+    getValues,
     control,
     watch,
     formState: { errors, isSubmitting },
@@ -203,7 +206,16 @@ export function PanelForm({
           <option value="cm">cm</option>
         </SelectField>
         <TextField label="Booth temperature" inputMode="decimal" error={fieldError("boothTemp")} {...reg("boothTemp")} />
-        <SelectField label="Temperature unit" error={fieldError("tempUnit")} {...reg("tempUnit")}>
+        <SelectField
+          label="Temperature unit"
+          error={fieldError("tempUnit")}
+          {...reg("tempUnit", {
+            onChange: (e: ChangeEvent<HTMLSelectElement>) => {
+              const to = e.target.value as TempUnit;
+              setValue("boothTemp", switchTemperatureText(String(getValues("boothTemp") ?? ""), to === "C" ? "F" : "C", to));
+            },
+          })}
+        >
           <option value="F">°F</option>
           <option value="C">°C</option>
         </SelectField>

@@ -1,6 +1,5 @@
 import { queryOptions, useMutation, useQueryClient } from "@tanstack/react-query";
 import { api } from "@/lib/api-client";
-import type { PublicShopSettings } from "@shared/schemas/settings.schema";
 import type {
   CopyAsTemplateInput,
   JobPlanDto,
@@ -34,13 +33,6 @@ export const planQueries = {
       queryKey: planKeys.version(id, versionId),
       queryFn: ({ signal }) => api.get<PlanVersionDto>(`/plans/${id}/versions/${versionId}`, { signal }),
       // A stored version never changes once it is locked.
-      staleTime: 5 * 60_000,
-    }),
-  /** The shop's default units (money-free settings any staff member may read). */
-  shopUnits: () =>
-    queryOptions({
-      queryKey: ["settings", "shop"] as const,
-      queryFn: ({ signal }) => api.get<PublicShopSettings>("/settings/shop", { signal }),
       staleTime: 5 * 60_000,
     }),
   /** The job's current plan with its estimate. */

@@ -5,7 +5,7 @@ import { vocAgainstLimit, vocWarning } from "@shared/domain/voc-limits";
 import { mixVoc } from "@shared/mix/index";
 import type { MaterialDto } from "@shared/schemas/material.schema";
 import { formatNumber } from "@/utils/format-quantity";
-import { planQueries } from "../api/plans.queries";
+import { shopSettingsQueries } from "@/lib/shop-settings.queries";
 
 /**
  * The layer's mixed VOC as it is typed (mix engine mixVoc over the shares), warned against the shop's own limit for
@@ -22,7 +22,7 @@ export function VocOverLimit({ kind, gPerL, limitGPerL }: { kind: LayerKind; gPe
 }
 
 export function LayerVocNote({ kind, parts }: { kind: LayerKind; parts: { share: number; material: MaterialDto | undefined }[] }) {
-  const settings = useQuery(planQueries.shopUnits());
+  const settings = useQuery(shopSettingsQueries.public());
   if (parts.length === 0 || parts.some((p) => p.material?.vocGPerL == null)) return null;
   let gPerL: number;
   try {

@@ -1,6 +1,5 @@
-import { TriangleAlert } from "lucide-react";
 import type { MixResult } from "@shared/mix/index";
-import { RATIO_WARNING_PCT } from "@shared/schemas/mix-sheet.schema";
+import { RoundingNote } from "@/components/ui/rounding-note";
 import { cn } from "@/utils/cn";
 import { formatAmount, formatNumber } from "@/utils/format-quantity";
 
@@ -11,7 +10,6 @@ import { formatAmount, formatNumber } from "@/utils/format-quantity";
 export function MixPreview({ result, labels, caption }: { result: MixResult; labels?: Record<string, string>; caption?: string }) {
   const rounded = result.rounded;
   const scale = result.scale;
-  const warn = rounded && rounded.worstRatioErrorPct > RATIO_WARNING_PCT;
   return (
     <div className="flex flex-col gap-3">
       <div className="scrollbar-thin overflow-x-auto rounded-lg border border-primer-200 bg-white">
@@ -36,9 +34,9 @@ export function MixPreview({ result, labels, caption }: { result: MixResult; lab
                 <td className="px-3 py-2 text-right text-base font-semibold tabular-nums">{formatAmount(l.volume, l.unit)}</td>
                 <td className="px-3 py-2 text-right whitespace-nowrap tabular-nums">{formatNumber(l.share * 100, 1)} %</td>
                 {result.lines.some((x) => x.grams !== undefined) ? <td className="px-3 py-2 text-right tabular-nums">{l.grams === undefined ? "—" : `${formatNumber(l.grams, 1)} g`}</td> : null}
-                {scale ? <td className="px-3 py-2 text-right tabular-nums">{formatNumber(scale[i]!.cumulativeGrams, 1)} g</td> : null}
+                {scale ? <td className="px-3 py-2 text-right tabular-nums">{formatAmount(scale.steps[i]!.scaleReads, scale.unit, 4)}</td> : null}
                 {rounded ? (
-                  <td className={cn("px-3 py-2 text-right font-semibold tabular-nums", rounded.lines[i]!.ratioErrorPct > RATIO_WARNING_PCT && "text-flake-800")}>
+                  <td className={cn("px-3 py-2 text-right font-semibold tabular-nums", rounded.moved.includes(l.name) && "text-flake-800")}>
                     {formatAmount(rounded.lines[i]!.rounded, rounded.unit, 4)}
                   </td>
                 ) : null}
@@ -58,16 +56,7 @@ export function MixPreview({ result, labels, caption }: { result: MixResult; lab
         </table>
       </div>
       {rounded ? (
-        warn ? (
-          <p role="status" className="flex items-start gap-2 rounded-lg border-l-4 border-flake-600 bg-flake-50 px-3 py-2 text-sm text-flake-900">
-            <TriangleAlert aria-hidden className="mt-0.5 size-4 shrink-0" />
-            Rounding to {formatAmount(rounded.step, rounded.unit, 4)} puts the ratio off by up to {formatNumber(rounded.worstRatioErrorPct, 1)} % ({rounded.worstComponent}). Use a finer step or a bigger batch.
-          </p>
-        ) : (
-          <p role="status" className="text-sm text-primer-700">
-            Rounded to {formatAmount(rounded.step, rounded.unit, 4)}: ratio within {formatNumber(rounded.worstRatioErrorPct, 1)} %.
-          </p>
-        )
+        <RoundingNote {...rounded} names={labels} />
       ) : null}
     </div>
   );

@@ -6,6 +6,8 @@ import { computeMix, MASS_UNITS, MixError, VOLUME_UNITS, type MeasuringUnit, typ
 import { toMixComponents } from "@shared/domain/layer-mix";
 import { createMixSheetInputSchema, type CreateMixSheetInput } from "@shared/schemas/mix-sheet.schema";
 import type { PlanLayerDto } from "@shared/schemas/plan.schema";
+import { useQuery } from "@tanstack/react-query";
+import { shopSettingsQueries } from "@/lib/shop-settings.queries";
 import { applyServerErrors } from "@/lib/form-errors";
 import { Alert } from "@/components/ui/alert";
 import { Button } from "@/components/ui/button";
@@ -53,6 +55,8 @@ export function MixSheetCreateDialog({
   });
   const v = useWatch({ control });
 
+  const tolerancePct = useQuery(shopSettingsQueries.public()).data?.ratioTolerancePct;
+  const keep = useMemo(() => layer.components.filter((c) => c.category === "hardener").map((c) => c.label), [layer.components]);
   const preview = useMemo((): { result: MixResult | null; error: { field: string; message: string } | null } => {
     const amount = Number(v.amount);
     if (!v.amount || !Number.isFinite(amount) || amount <= 0) return { result: null, error: null };
@@ -64,14 +68,14 @@ export function MixSheetCreateDialog({
         amount,
         unit: (v.unit ?? "mL") as VolumeUnit,
         knownName: v.mode === "component" ? (v.knownLabel ?? undefined) : undefined,
-        rounding: step && step > 0 ? { step, unit: ((v.roundingUnit as MeasuringUnit) ?? (v.weigh ? "g" : v.unit)) as MeasuringUnit } : undefined,
+        rounding: step && step > 0 ? { step, unit: ((v.roundingUnit as MeasuringUnit) ?? (v.weigh ? "g" : v.unit)) as MeasuringUnit, tolerancePct, keep } : undefined,
       });
       return { result, error: null };
     } catch (e) {
       if (e instanceof MixError) return { result: null, error: { field: ENGINE_FIELD[e.field ?? ""] ?? "amount", message: e.message } };
       throw e;
     }
-  }, [v.amount, v.mode, v.unit, v.knownLabel, v.roundingStep, v.roundingUnit, v.weigh, layer.components]);
+  }, [v.amount, v.mode, v.unit, v.knownLabel, v.roundingStep, v.roundingUnit, v.weigh, layer.components, tolerancePct, keep]);
 
   const fieldError = (name: (typeof FIELDS)[number]) => errors[name]?.message ?? (preview.error?.field === name ? preview.error.message : undefined);
   const labels = Object.fromEntries(layer.components.map((c) => [c.label, `${c.materialCode} ${c.materialName}`]));

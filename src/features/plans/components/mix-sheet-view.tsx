@@ -1,11 +1,12 @@
 import { useEffect, useState } from "react";
 import { useForm, type Resolver } from "react-hook-form";
+import { RoundingNote } from "@/components/ui/rounding-note";
 import { zodResolver } from "@hookform/resolvers/zod";
 import type { z } from "zod";
-import { Check, Clock, TriangleAlert } from "lucide-react";
+import { Check, Clock } from "lucide-react";
 import { MASS_UNITS, VOLUME_UNITS, type MeasuringUnit } from "@shared/mix/index";
 import { formatCents } from "@shared/quote/money";
-import { RATIO_WARNING_PCT, recordMixSheetInputSchema, type MixSheetDto, type MixSheetLineDto, type RecordMixSheetInput } from "@shared/schemas/mix-sheet.schema";
+import { recordMixSheetInputSchema, type MixSheetDto, type MixSheetLineDto, type RecordMixSheetInput } from "@shared/schemas/mix-sheet.schema";
 import { isApiError } from "@/lib/api-client";
 import { Alert } from "@/components/ui/alert";
 import { Button } from "@/components/ui/button";
@@ -68,7 +69,7 @@ export function PotLife({ sheet }: { sheet: MixSheetDto }) {
 /** The batch table: amounts in the sheet's unit, grams and scale readings, rounded amounts, lots. */
 export function MixSheetTable({ sheet }: { sheet: MixSheetDto }) {
   const showGrams = sheet.lines.some((l) => l.grams != null);
-  const showScale = sheet.weigh && sheet.lines.every((l) => l.cumulativeGrams != null);
+  const showScale = sheet.weigh && sheet.scaleUnit != null && sheet.lines.every((l) => l.scaleReads != null);
   const showRounded = sheet.roundingStep != null && sheet.lines.every((l) => l.rounded != null);
   const recorded = sheet.status !== "draft";
   const showCost = recorded && sheet.totalCostCents !== undefined;
@@ -96,12 +97,16 @@ export function MixSheetTable({ sheet }: { sheet: MixSheetDto }) {
                 <span className="block text-xs font-normal text-primer-700">
                   <span className="font-mono">{l.materialCode}</span> {l.materialName}
                 </span>
+                <span className="block text-xs font-normal text-ink-900">
+                  {l.asPlanned ? `${l.asPlanned} · ` : ""}
+                  {formatNumber(l.share * 100, 1)} % of the ready-to-spray mix
+                </span>
               </th>
               <td className="px-3 py-2 text-right text-base font-semibold whitespace-nowrap tabular-nums">{formatAmount(l.amount, sheet.unit)}</td>
               {showGrams ? <td className="px-3 py-2 text-right whitespace-nowrap tabular-nums">{l.grams == null ? "—" : `${formatNumber(l.grams, 1)} g`}</td> : null}
-              {showScale ? <td className="px-3 py-2 text-right text-base font-semibold tabular-nums">{formatNumber(l.cumulativeGrams!, 1)} g</td> : null}
+              {showScale ? <td className="px-3 py-2 text-right text-base font-semibold tabular-nums">{formatAmount(l.scaleReads!, sheet.scaleUnit!, 4)}</td> : null}
               {showRounded ? (
-                <td className={cn("px-3 py-2 text-right text-base font-semibold tabular-nums", (l.ratioErrorPct ?? 0) > RATIO_WARNING_PCT && "text-flake-800")}>
+                <td className={cn("px-3 py-2 text-right text-base font-semibold tabular-nums", sheet.movedComponents.includes(l.label) && "text-flake-800")}>
                   {formatAmount(l.rounded!, sheet.roundingUnit ?? sheet.unit, 4)}
                 </td>
               ) : null}
@@ -117,7 +122,7 @@ export function MixSheetTable({ sheet }: { sheet: MixSheetDto }) {
             <th scope="row" className="px-3 py-2">Total</th>
             <td className="px-3 py-2 text-right tabular-nums">{formatAmount(sheet.total, sheet.unit)}</td>
             {showGrams ? <td /> : null}
-            {showScale ? <td /> : null}
+            {showScale ? <td className="px-3 py-2 text-right tabular-nums">{formatAmount(sheet.scaleLastReading!, sheet.scaleUnit!, 4)}</td> : null}
             {showRounded ? <td className="px-3 py-2 text-right tabular-nums">{formatAmount(sheet.roundedTotal ?? 0, sheet.roundingUnit ?? sheet.unit, 4)}</td> : null}
             <td />
             {recorded ? <td className="px-3 py-2 text-right tabular-nums">{formatVolume(sheet.totalMl, sheet.unit)}</td> : null}
@@ -136,18 +141,16 @@ function lotLabel(l: MixSheetLineDto) {
 }
 
 export function RatioWarning({ sheet }: { sheet: MixSheetDto }) {
-  if (sheet.worstRatioErrorPct == null) return null;
-  if (sheet.worstRatioErrorPct <= RATIO_WARNING_PCT)
-    return (
-      <p className="text-sm text-primer-700">
-        Rounded to {formatAmount(sheet.roundingStep!, sheet.roundingUnit!, 4)}: ratio within {formatNumber(sheet.worstRatioErrorPct, 1)} %.
-      </p>
-    );
+  if (sheet.roundingStep == null || sheet.roundingUnit == null || sheet.roundedTotal == null) return null;
   return (
-    <p role="status" className="flex items-start gap-2 rounded-lg border-l-4 border-flake-600 bg-flake-50 px-3 py-2 text-sm text-flake-900">
-      <TriangleAlert aria-hidden className="mt-0.5 size-4 shrink-0" />
-      Rounding to {formatAmount(sheet.roundingStep!, sheet.roundingUnit!, 4)} puts the ratio off by up to {formatNumber(sheet.worstRatioErrorPct, 1)} % ({sheet.worstComponent}). Measure the exact amounts if you can.
-    </p>
+    <RoundingNote
+      step={sheet.roundingStep}
+      unit={sheet.roundingUnit}
+      lines={sheet.lines.map((l) => ({ name: l.label, ratioErrorPct: l.ratioErrorPct ?? 0, reference: l.ratioReference ?? [] }))}
+      moved={sheet.movedComponents}
+      tolerancePct={sheet.ratioTolerancePct}
+      names={Object.fromEntries(sheet.lines.map((l) => [l.label, `${l.label} (${l.materialCode} ${l.materialName})`]))}
+    />
   );
 }
 

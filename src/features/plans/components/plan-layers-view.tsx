@@ -6,17 +6,16 @@ import { formatCents } from "@shared/quote/money";
 import { VocOverLimit } from "./layer-voc-note";
 import type { LayerEstimateDto, PlanEstimateDto, PlanLayerDto } from "@shared/schemas/plan.schema";
 import type { VolumeUnit } from "@shared/mix/index";
+import { mixSentence } from "@shared/domain/mix-words";
+import { formatMinutes } from "@shared/domain/duration";
+import { MixWordsList } from "@/components/ui/mix-words-list";
 import { SafetyCautions } from "@/components/ui/safety-cautions";
 import { paths } from "@/config/paths";
 import { formatNumber, formatVolume } from "@/utils/format-quantity";
 
-/** "4 clear : 1 hardener : 1 reducer" and "reducer 10 % of sealer". */
+/** The mix in one line, each component named by material, each percent saying what it is of. */
 export function mixWords(layer: Pick<PlanLayerDto, "components">): string {
-  const parts = layer.components.filter((c) => c.parts != null);
-  const percents = layer.components.filter((c) => c.percent != null);
-  const ratio = parts.map((c) => `${formatNumber(c.parts!, 3)} ${c.label}`).join(" : ");
-  const extra = percents.map((c) => `${c.label} ${formatNumber(c.percent!, 2)} % of ${(c.percentOf ?? []).join(" + ")}`);
-  return [ratio, ...extra].filter(Boolean).join("; ");
+  return mixSentence(layer.components);
 }
 
 /** Volume units of the US system: coverage is then shown per gallon in ft², else per litre in m². */
@@ -53,24 +52,30 @@ export function PlanLayersView({
                   {l.name}
                   <span className="ml-2 rounded-full bg-ink-50 px-2 py-0.5 align-middle text-xs font-semibold text-ink-800">{LAYER_KIND_LABELS[l.kind]}</span>
                 </h3>
-                {l.components.length ? <p className="mt-0.5 text-sm text-ink-900">{mixWords(l)}</p> : null}
+                <MixWordsList components={l.components} className="mt-0.5 text-ink-900" />
               </div>
               {layerActions ? <div className="flex flex-wrap gap-2">{layerActions(l)}</div> : null}
             </div>
             <div className="grid gap-4 px-4 py-3 2xl:grid-cols-[minmax(0,1fr)_minmax(0,1fr)]">
               <dl className="grid grid-cols-2 gap-x-4 gap-y-2 text-sm sm:grid-cols-4">
-                <Fact label="Coats">{formatNumber(l.coats, 2)}</Fact>
-                <Fact label="Flash">{formatNumber(l.flashMinutes, 0)} min</Fact>
-                <Fact label="Dry before next">{formatNumber(l.dryMinutes, 0)} min</Fact>
-                {l.inductionMinutes ? <Fact label="Induction">{formatNumber(l.inductionMinutes, 0)} min</Fact> : null}
+                {l.kind === "prep" ? (
+                  <Fact label="Prep">Scuff, clean and sign off each item</Fact>
+                ) : (
+                  <>
+                    <Fact label="Coats">{formatNumber(l.coats, 2)}</Fact>
+                    <Fact label="Flash">{formatMinutes(l.flashMinutes)}</Fact>
+                  </>
+                )}
+                <Fact label="Dry before next">{formatMinutes(l.dryMinutes)}</Fact>
+                {l.inductionMinutes ? <Fact label="Induction">{formatMinutes(l.inductionMinutes)}</Fact> : null}
                 {l.recoatMinMinutes != null || l.recoatMaxMinutes != null ? (
                   <Fact label="Recoat window">
-                    {formatNumber(l.recoatMinMinutes ?? 0, 0)} to {l.recoatMaxMinutes != null ? `${formatNumber(l.recoatMaxMinutes, 0)} min` : "any time"}
+                    {formatMinutes(l.recoatMinMinutes ?? 0)} to {l.recoatMaxMinutes != null ? formatMinutes(l.recoatMaxMinutes) : "any time"}
                   </Fact>
                 ) : null}
-                {l.gunTip ? <Fact label="Gun tip">{l.gunTip}</Fact> : null}
-                {l.pressurePsi != null ? <Fact label="Pressure">{formatNumber(l.pressurePsi, 1)} psi</Fact> : null}
-                {l.overlapPct != null ? <Fact label="Overlap">{formatNumber(l.overlapPct, 0)} %</Fact> : null}
+                {l.kind !== "prep" && l.gunTip ? <Fact label="Gun tip">{l.gunTip}</Fact> : null}
+                {l.kind !== "prep" && l.pressurePsi != null ? <Fact label="Pressure">{formatNumber(l.pressurePsi, 1)} psi</Fact> : null}
+                {l.kind !== "prep" && l.overlapPct != null ? <Fact label="Overlap">{formatNumber(l.overlapPct, 0)} %</Fact> : null}
                 {film(l) ? <Fact label="Dry film / coat">{film(l)}</Fact> : null}
                 {e?.film ? (
                   <Fact label="Wet film / coat">
@@ -82,7 +87,7 @@ export function PlanLayersView({
                     {US_UNITS.has(unit) ? `${formatNumber(e.film.ft2PerGal, 0)} ft²/gal` : `${formatNumber(e.film.m2PerL, 1)} m²/L`}
                   </Fact>
                 ) : null}
-                {l.potLifeMinutes ? <Fact label="Pot life">{l.potLifeMinutes} min</Fact> : null}
+                {l.potLifeMinutes ? <Fact label="Pot life">{formatMinutes(l.potLifeMinutes)}</Fact> : null}
                 {e && e.volumeMl > 0 ? <Fact label="Estimated volume">{formatVolume(e.volumeMl, unit)}</Fact> : null}
                 {e?.vocGPerL != null ? <Fact label="Mixed VOC">{formatNumber(e.vocGPerL, 0)} g/L</Fact> : null}
                 {e?.costCents != null && e.volumeMl > 0 ? <Fact label="Material cost">{formatCents(e.costCents)}</Fact> : null}

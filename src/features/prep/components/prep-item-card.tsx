@@ -113,7 +113,7 @@ function PrepForm({ jobId, item, record }: { jobId: number; item: Item; record: 
     resolver: zodResolver(prepStepsInputSchema),
     defaultValues: {
       scuffMedium: record?.scuffMedium ?? "",
-      scuffGrit: record?.scuffGrit != null ? String(record.scuffGrit) : "",
+      scuffGrit: record?.scuffGrit != null ? `P${record.scuffGrit}` : "",
       cleaner: record?.cleaner ?? "",
       tackCloth: record?.tackCloth ?? false,
       adhesionPromoter: record?.adhesionPromoter ?? false,
@@ -156,7 +156,7 @@ function PrepForm({ jobId, item, record }: { jobId: number; item: Item; record: 
             </option>
           ))}
         </SelectField>
-        <TextField label="Grit" inputMode="numeric" placeholder="e.g. 600" error={errors.scuffGrit?.message} {...register("scuffGrit")} />
+        <TextField label="Grit" placeholder="e.g. P600" hint="P600 or 600" error={errors.scuffGrit?.message} {...register("scuffGrit")} />
       </div>
       <TextField label="Cleaner" placeholder="e.g. wax and grease remover, then final wipe" list={`prep-cleaners-${item.itemId}`} error={errors.cleaner?.message} {...register("cleaner")} />
       <datalist id={`prep-cleaners-${item.itemId}`}>

@@ -51,6 +51,7 @@ const TOP_FIELDS = [
   "vocMonthlyCapKg",
   "vocYearlyCapKg",
   "lowDiskWarningGb",
+  "ratioTolerancePct",
 ] as const;
 
 /** "" → null for the optional caps (an empty box means "no cap"). */
@@ -183,6 +184,13 @@ export function SettingsForm({
               hint="Closer than this (but not a match) reads as close."
               error={errors.deltaEClose?.message}
               {...register("deltaEClose")}
+            />
+            <TextField
+              label="Ratio tolerance when rounding a mix (%)"
+              inputMode="decimal"
+              hint="Mix sheets name every component whose ratio moves more than this when amounts are rounded to the cup or scale step."
+              error={errors.ratioTolerancePct?.message}
+              {...register("ratioTolerancePct")}
             />
           </div>
         </Group>

@@ -1,0 +1,1 @@
+ALTER TABLE `job_stage_events` ADD `via` text DEFAULT 'user' NOT NULL;
