@@ -28,6 +28,7 @@ import { mixRouter } from "./modules/mix/mix.router";
 import { settingsRouter } from "./modules/settings/settings.router";
 import { auditRouter } from "./modules/audit/audit.router";
 import { complianceRouter } from "./modules/compliance/compliance.router";
+import { solventUsesRouter } from "./modules/solvent-uses/solvent-uses.router";
 import { dashboardRouter } from "./modules/dashboard/dashboard.router";
 
 import { materialsRouter } from "./modules/materials/materials.router";
@@ -156,6 +157,7 @@ export function createApp(options: CreateAppOptions) {
     ["/settings", settingsRouter(deps)],
     ["/audit", auditRouter(deps)],
     ["/compliance", complianceRouter(deps)],
+    ["/solvent-uses", solventUsesRouter(deps)],
     ["/dashboard", dashboardRouter(deps)],
     ["/uploads", uploadsRouter(deps)],
     ["/prep-records", prepRouter(deps)],

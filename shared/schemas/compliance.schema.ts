@@ -2,6 +2,7 @@ import { z } from "zod";
 import { isoDateSchema } from "./common.schema";
 import type { LayerKind } from "../domain/layers";
 import type { MaterialCategory } from "../domain/materials";
+import type { SolventUseDto } from "./solvent-use.schema";
 
 export const complianceQuerySchema = z
   .object({ from: isoDateSchema, to: isoDateSchema })
@@ -29,6 +30,8 @@ export type ComplianceBatchDto = {
 export type ComplianceMonthDto = {
   month: string;
   batches: number;
+  /** Prep and cleaning solvent logged outside a batch (counted in the month's volume and VOC). */
+  solventUses: number;
   volumeL: number;
   volumeGal: number;
   vocMass: VocMass;
@@ -45,7 +48,9 @@ export type ComplianceDto = {
   batches: ComplianceBatchDto[];
   months: ComplianceMonthDto[];
   categories: ComplianceCategoryDto[];
-  totals: { batches: number; volumeL: number; volumeGal: number; vocMass: VocMass; batchesOverLimit: number };
+  /** Prep and cleaning solvent logged outside a batch, counted in the months, categories and totals. */
+  solventUses: SolventUseDto[];
+  totals: { batches: number; solventUses: number; volumeL: number; volumeGal: number; vocMass: VocMass; batchesOverLimit: number };
   limits: { layerKind: LayerKind; limitGPerL: number; limitLbPerGal: number }[];
   yearlyCapKg: number | null;
   monthlyCapKg: number | null;

@@ -139,6 +139,10 @@ export type MixSheetDto = {
   /** The shop's VOC limit for the layer's category (null: none entered), and whether this batch is over it. */
   vocLimitGPerL: number | null;
   vocOverLimit: boolean;
+  /** What the layer needs for the whole job (estimate with the waste allowance), mL; null when it cannot be worked out. */
+  needMl: number | null;
+  /** This batch is smaller than the layer needs (a candy: mix it all at once, one batch for all parts). */
+  batchWarning: string | null;
   potLifeMinutes: number | null;
   potLifeEndsAt: string | null;
   mixedAt: string | null;

@@ -198,8 +198,12 @@ export type LayerEstimateDto = {
   layerId: number;
   name: string;
   kind: LayerKind;
-  /** Ready-to-spray volume for all the job's items, mL (0 when it cannot be worked out: see `problem`). */
+  /** Ready-to-spray volume for all the job's items with the shop's waste allowance, at least the minimum batch, mL (0 when it cannot be worked out: see `problem`). */
   volumeMl: number;
+  /** The film build's theoretical minimum, before the waste allowance, mL. */
+  theoreticalMl: number;
+  /** The shop's waste allowance for this layer kind, %. */
+  wasteAllowancePct: number;
   /** Office only: material cost of that volume, integer cents. */
   costCents?: number;
   /** VOC of the mixed layer, g/L less water and exempt (null when a material has no VOC figure). */

@@ -53,6 +53,19 @@ export const shopSettingsSchema = z.object({
     .max(LAYER_KINDS.length)
     .refine((ls) => new Set(ls.map((l) => l.layerKind)).size === ls.length, "One limit per coating category")
     .default([]),
+  /** Paint lost in the cup, gun and overspray beyond the transfer efficiency, per layer kind, added to the estimate (%; kinds not listed: none). */
+  wasteAllowances: z
+    .array(
+      z.object({
+        layerKind: z.enum(LAYER_KINDS, { error: `Layer kind must be one of: ${LAYER_KINDS.join(", ")}` }),
+        pct: pct("Waste allowance", 200),
+      }),
+    )
+    .max(LAYER_KINDS.length)
+    .refine((ls) => new Set(ls.map((l) => l.layerKind)).size === ls.length, "One allowance per layer kind")
+    .default([]),
+  /** The smallest batch worth mixing (fills the gun cup, measures accurately), mL; an estimated layer needs at least this. */
+  minimumBatchMl: z.coerce.number({ error: "Minimum batch must be a number of mL" }).min(0, "Minimum batch cannot be negative").max(20_000, "Minimum batch is limited to 20000 mL").default(0),
   /** Optional VOC mass caps from the shop's air permit, in kg. */
   vocMonthlyCapKg: z.coerce.number().positive().max(1e6).nullable().default(null),
   vocYearlyCapKg: z.coerce.number().positive().max(1e7).nullable().default(null),
@@ -108,6 +121,8 @@ export const DEFAULT_SETTINGS: ShopSettings = {
   deltaEMatch: 1,
   deltaEClose: 2,
   vocLimits: [],
+  wasteAllowances: [],
+  minimumBatchMl: 0,
   vocMonthlyCapKg: null,
   vocYearlyCapKg: null,
   lowDiskWarningGb: 2,

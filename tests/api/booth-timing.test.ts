@@ -206,3 +206,22 @@ describe("induction and recoat figures from the catalogue", () => {
     expect(word.body.error.fields).toHaveProperty("inductionMinutes");
   });
 });
+
+describe("an entry queued offline is checked at the time it was made", () => {
+  it("a coat made inside the flash is refused even when it arrives after; one made in time is taken however late it arrives", async () => {
+    const { s, clock } = await clockShop();
+    readyForBooth(s);
+    await tap(s);
+    // Made at 09:03 (inside the 10-minute flash), sent at 09:30.
+    clock.now = T0 + 30 * MIN;
+    const early = await tap(s, { at: new Date(T0 + 3 * MIN).toISOString() });
+    expect(early.status).toBe(409);
+    expect(early.body.error.rules).toEqual(["flash"]);
+    // Made at 09:12 (flash over), sent at 09:30: taken, with its own time and no flag.
+    const inTime = await tap(s, { at: new Date(T0 + 12 * MIN).toISOString() });
+    expect(inTime.status).toBe(201);
+    const row = s.db.select().from(coatLogs).all().at(-1)!;
+    expect(row.at).toBe(T0 + 12 * MIN);
+    expect(row.timingOverrideReason).toBeNull();
+  });
+});

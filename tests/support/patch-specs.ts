@@ -97,6 +97,11 @@ export const PATCH_SPECS: Record<string, PatchSpec> = {
         "vocLimits",
         fc.uniqueArray(fc.record({ layerKind: fc.constantFrom(...LAYER_KINDS), limitGPerL: fc.integer({ min: 1, max: 2000 }) }), { selector: (l) => l.layerKind, maxLength: 4 }),
       ),
+      wasteAllowances: one(
+        "wasteAllowances",
+        fc.uniqueArray(fc.record({ layerKind: fc.constantFrom(...LAYER_KINDS), pct: decimal(0, 200) }), { selector: (l) => l.layerKind, maxLength: 4 }),
+      ),
+      minimumBatchMl: one("minimumBatchMl", decimal(0, 20_000)),
       vocMonthlyCapKg: one("vocMonthlyCapKg", fc.option(decimal(1, 1000), { nil: null })),
       vocYearlyCapKg: one("vocYearlyCapKg", fc.option(decimal(1, 10000), { nil: null })),
       lowDiskWarningGb: one("lowDiskWarningGb", decimal(0, 1000)),

@@ -32,6 +32,17 @@ export function seedSettings(ctx: SeedContext) {
       { layerKind: "clear", limitGPerL: 465 },
     ],
     vocMonthlyCapKg: 8,
+    // Common practice: about 15 % more than the film build needs (more for a candy, which is mixed once for every part).
+    wasteAllowances: [
+      { layerKind: "adhesion_promoter", pct: 15 },
+      { layerKind: "sealer", pct: 15 },
+      { layerKind: "ground_coat", pct: 15 },
+      { layerKind: "candy", pct: 20 },
+      { layerKind: "effect_mid_coat", pct: 15 },
+      { layerKind: "intercoat_clear", pct: 15 },
+      { layerKind: "clear", pct: 15 },
+    ],
+    minimumBatchMl: 100,
   };
   ctx.db.insert(shopSettings).values({ id: 1, data, updatedAt: ctx.now, updatedBy: ctx.userIds.owner }).run();
 }

@@ -2,6 +2,7 @@ import { index, integer, real, sqliteTable, text, uniqueIndex, type AnySQLiteCol
 import { SUBSTRATES } from "../../../shared/domain/substrates";
 import { SCUFF_MEDIA } from "../../../shared/domain/prep";
 import { TEMP_UNITS } from "../../../shared/domain/booth";
+import { SOLVENT_PURPOSES } from "../../../shared/domain/materials";
 import { jobItems, jobs, users } from "./core";
 import { materials } from "./materials";
 import { planLayers, planVersions } from "./plans";
@@ -149,4 +150,31 @@ export const panelReadings = sqliteTable(
     labB: real("lab_b").notNull(),
   },
   (t) => [uniqueIndex("panel_readings_panel_light_idx").on(t.panelId, t.light)],
+);
+
+/**
+ * Prep and cleaning solvent used outside a mixed batch (wax and grease remover, gun wash): counted in the VOC log.
+ * Append-only; the VOC figures are copied from the catalogue when logged, like a batch's lines.
+ */
+export const solventUses = sqliteTable(
+  "solvent_uses",
+  {
+    id: integer("id").primaryKey({ autoIncrement: true }),
+    materialId: integer("material_id")
+      .notNull()
+      .references(() => materials.id, { onDelete: "restrict" }),
+    jobId: integer("job_id").references(() => jobs.id, { onDelete: "set null" }),
+    purpose: text("purpose", { enum: SOLVENT_PURPOSES }).notNull(),
+    /** As entered, and in mL. */
+    amount: real("amount").notNull(),
+    unit: text("unit").notNull(),
+    volumeMl: real("volume_ml").notNull(),
+    vocGPerL: real("voc_g_per_l"),
+    waterExemptPct: real("water_exempt_pct").notNull().default(0),
+    note: text("note"),
+    usedAt: integer("used_at").notNull(),
+    loggedBy: text("logged_by").references(() => users.id, { onDelete: "set null" }),
+    createdAt: createdAt(),
+  },
+  (t) => [index("solvent_uses_used_idx").on(t.usedAt), index("solvent_uses_job_idx").on(t.jobId)],
 );

@@ -327,13 +327,13 @@ export function logCoat(deps: AppDeps, ctx: RequestContext, input: z.output<type
     }
     override = `${input.prepOverrideReason} (prep not signed off: ${pending.join(", ")})`.slice(0, 800);
   }
-  const timingOverridden = timingOverride(next, input.timingOverrideReason);
   checkGun(deps, input.gunId);
   const now = deps.now();
   const at = madeAt(input.at, now, [
     { time: job.createdAt, what: "the job was created" },
     { time: booth.openBatch ? Date.parse(booth.openBatch.mixedAt) : null, what: "its batch was mixed" },
   ]);
+  const timingOverridden = timingOverride(booth, at, input.timingOverrideReason);
   deps.db.transaction((tx) => {
     tx.insert(coatLogs)
       .values({

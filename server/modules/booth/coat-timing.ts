@@ -3,7 +3,8 @@ import { isoOrNull } from "../../http/dates";
 import type { LoadedLayer } from "../plans/plans.service";
 import type { EffectiveCoat } from "../../../shared/domain/booth";
 import { coatWindows, timingBreaches, TIMING_RULE_LABELS, type TimingBreach, type TimingLayer } from "../../../shared/domain/booth-timing";
-import type { BoothNextDto, CoatWindowsDto } from "../../../shared/schemas/booth.schema";
+import type { BoothDto, CoatWindowsDto } from "../../../shared/schemas/booth.schema";
+import { cardBreaches } from "../../../shared/domain/booth-card-timing";
 
 
 /**
@@ -34,19 +35,21 @@ export function nextCoatTiming(
 
 /**
  * A coat against a timing rule is refused (409, naming each rule) unless the painter gives a reason; with one, the
- * reason and the rules as they stood go on the coat's record. Returns null when no rule is broken.
+ * reason and the rules as they stood go on the coat's record. The rules are checked at the time the coat was made
+ * (`at`: now, or the time an entry queued offline was made). Returns null when no rule is broken.
  */
-export function timingOverride(next: Extract<BoothNextDto, { state: "spray" }>, reason: string | null | undefined): { reason: string; breaches: TimingBreach[] } | null {
-  if (next.breaches.length === 0) return null;
+export function timingOverride(card: BoothDto, at: number, reason: string | null | undefined): { reason: string; breaches: TimingBreach[] } | null {
+  const breaches = cardBreaches(card, at);
+  if (breaches.length === 0) return null;
   if (!reason) {
-    const rules = next.breaches.map((b) => TIMING_RULE_LABELS[b.rule].toLowerCase()).join(", ");
+    const rules = breaches.map((b) => TIMING_RULE_LABELS[b.rule].toLowerCase()).join(", ");
     throw new HttpError(
       409,
       "conflict",
-      `Not logged: ${next.breaches.map((b) => b.message).join(". ")}. Wait, or give a reason to go ahead (it is kept on the record).`,
+      `Not logged: ${breaches.map((b) => b.message).join(". ")}. Wait, or give a reason to go ahead (it is kept on the record).`,
       { timingOverrideReason: `Give a reason to spray against the ${rules} rule` },
-      { rules: next.breaches.map((b) => b.rule), breaches: next.breaches },
+      { rules: breaches.map((b) => b.rule), breaches },
     );
   }
-  return { reason, breaches: next.breaches };
+  return { reason, breaches };
 }

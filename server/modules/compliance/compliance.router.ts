@@ -5,6 +5,7 @@ import { query } from "../../http/validate";
 import { toCsv } from "../../http/csv";
 import { complianceQuerySchema } from "../../../shared/schemas/compliance.schema";
 import { complianceLog } from "./compliance.service";
+import { convertMass, convertVolume, gPerLToLbPerGal } from "../../../shared/mix/index";
 
 export const CSV_COLUMNS = [
   "batch",
@@ -48,6 +49,10 @@ export function complianceRouter(deps: AppDeps) {
       b.limitGPerL ?? "",
       b.overLimit ? "yes" : "no",
     ]);
+    // Solvent logged outside a batch: "S" before its id, the material in the layer column, its purpose as the category.
+    for (const u of log.solventUses) {
+      rows.push([`S${u.id}`, u.usedAt, u.jobId ?? "", u.jobTitle ?? "", `${u.materialCode} ${u.materialName}`, `solvent: ${u.purpose}`, u.volumeMl / 1000, convertVolume(u.volumeMl, "mL", "gallon"), u.vocGPerL ?? "", u.vocGPerL != null ? gPerLToLbPerGal(u.vocGPerL) : "", u.vocKg, convertMass(u.vocKg, "kg", "lb"), "", "no"]);
+    }
     res.type("text/csv; charset=utf-8");
     res.setHeader("Content-Disposition", `attachment; filename="voc-log-${q.from}-to-${q.to}.csv"`);
     res.send(toCsv([[...CSV_COLUMNS], ...rows]));

@@ -1,6 +1,8 @@
 import { sql } from "drizzle-orm";
 import type { AppDeps } from "../../deps";
 import { getSettings } from "../settings/settings.service";
+import { dayStart, solventUsesBetween } from "../solvent-uses/solvent-uses.service";
+import type { SolventUseDto } from "../../../shared/schemas/solvent-use.schema";
 import { convertMass, convertVolume, gPerLToLbPerGal } from "../../../shared/mix/index";
 import type { LayerKind } from "../../../shared/domain/layers";
 import type { MaterialCategory } from "../../../shared/domain/materials";
@@ -13,11 +15,6 @@ import type {
   VocMass,
 } from "../../../shared/schemas/compliance.schema";
 
-/** Local midnight of a YYYY-MM-DD date, epoch ms. */
-function dayStart(date: string) {
-  const [y, m, d] = date.split("-").map(Number) as [number, number, number];
-  return new Date(y, m - 1, d).getTime();
-}
 const monthOf = (ms: number) => {
   const d = new Date(ms);
   return `${d.getFullYear()}-${String(d.getMonth() + 1).padStart(2, "0")}`;
@@ -73,6 +70,18 @@ function categories(deps: AppDeps, fromMs: number, toMs: number): ComplianceCate
   return rows.map((r) => ({ category: r.category, volumeL: r.volumeMl / 1000, volumeGal: gal(r.volumeMl / 1000), vocMass: mass(r.vocGrams) }));
 }
 
+/** The batch categories with the solvent logged outside batches added to its material's category. */
+function withSolvents(rows: ComplianceCategoryDto[], solvents: SolventUseDto[]): ComplianceCategoryDto[] {
+  const byCat = new Map(rows.map((r) => [r.category, { category: r.category, litres: r.volumeL, grams: r.vocMass.kg * 1000 }]));
+  for (const u of solvents) {
+    const c = byCat.get(u.category) ?? { category: u.category, litres: 0, grams: 0 };
+    c.litres += u.volumeMl / 1000;
+    c.grams += u.vocKg * 1000;
+    byCat.set(u.category, c);
+  }
+  return [...byCat.values()].sort((a, b) => b.grams - a.grams).map((c) => ({ category: c.category, volumeL: c.litres, volumeGal: gal(c.litres), vocMass: mass(c.grams) }));
+}
+
 export function complianceLog(deps: AppDeps, q: ComplianceQuery): ComplianceDto {
   const settings = getSettings(deps);
   const limits = new Map(settings.vocLimits.map((l) => [l.layerKind, l.limitGPerL]));
@@ -99,30 +108,43 @@ export function complianceLog(deps: AppDeps, q: ComplianceQuery): ComplianceDto 
     };
   });
 
+  // Prep and cleaning solvent logged outside a batch counts too: in its month, its category and the totals.
+  const solvents = solventUsesBetween(deps, fromMs, toMs);
   const byMonth = new Map<string, ComplianceMonthDto & { grams: number }>();
+  const monthRow = (key: string) =>
+    byMonth.get(key) ?? { month: key, batches: 0, solventUses: 0, volumeL: 0, volumeGal: 0, vocMass: mass(0), capKg: settings.vocMonthlyCapKg, overCap: false, batchesOverLimit: 0, grams: 0 };
+  for (const u of solvents) {
+    const key = monthOf(Date.parse(u.usedAt));
+    const m = monthRow(key);
+    m.solventUses += 1;
+    m.volumeL += u.volumeMl / 1000;
+    m.grams += u.vocKg * 1000;
+    byMonth.set(key, m);
+  }
   for (const b of batchDtos) {
     const key = monthOf(Date.parse(b.mixedAt));
-    const m = byMonth.get(key) ?? { month: key, batches: 0, volumeL: 0, volumeGal: 0, vocMass: mass(0), capKg: settings.vocMonthlyCapKg, overCap: false, batchesOverLimit: 0, grams: 0 };
+    const m = monthRow(key);
     m.batches += 1;
     m.volumeL += b.volumeL;
     m.grams += b.vocMass.kg * 1000;
     if (b.overLimit) m.batchesOverLimit += 1;
     byMonth.set(key, m);
   }
-  const months = [...byMonth.values()].map(({ grams, ...m }) => ({
+  const months = [...byMonth.values()].sort((a, b) => a.month.localeCompare(b.month)).map(({ grams, ...m }) => ({
     ...m,
     volumeGal: gal(m.volumeL),
     vocMass: mass(grams),
     overCap: m.capKg !== null && grams / 1000 > m.capKg,
   }));
 
-  const totalGrams = batchDtos.reduce((s, b) => s + b.vocMass.kg * 1000, 0);
-  const totalL = batchDtos.reduce((s, b) => s + b.volumeL, 0);
+  const totalGrams = batchDtos.reduce((s, b) => s + b.vocMass.kg * 1000, 0) + solvents.reduce((s, u) => s + u.vocKg * 1000, 0);
+  const totalL = batchDtos.reduce((s, b) => s + b.volumeL, 0) + solvents.reduce((s, u) => s + u.volumeMl / 1000, 0);
 
   let yearToDate: ComplianceDto["yearToDate"] = null;
   if (settings.vocYearlyCapKg !== null) {
     const year = q.to.slice(0, 4);
-    const ytd = batches(deps, dayStart(`${year}-01-01`), toMs).reduce((s, b) => s + b.vocGrams, 0);
+    const ytdFrom = dayStart(`${year}-01-01`);
+    const ytd = batches(deps, ytdFrom, toMs).reduce((s, b) => s + b.vocGrams, 0) + solventUsesBetween(deps, ytdFrom, toMs).reduce((s, u) => s + u.vocKg * 1000, 0);
     yearToDate = { year, vocMass: mass(ytd), overCap: ytd / 1000 > settings.vocYearlyCapKg };
   }
 
@@ -131,8 +153,9 @@ export function complianceLog(deps: AppDeps, q: ComplianceQuery): ComplianceDto 
     to: q.to,
     batches: batchDtos,
     months,
-    categories: categories(deps, fromMs, toMs),
-    totals: { batches: batchDtos.length, volumeL: totalL, volumeGal: gal(totalL), vocMass: mass(totalGrams), batchesOverLimit: batchDtos.filter((b) => b.overLimit).length },
+    categories: withSolvents(categories(deps, fromMs, toMs), solvents),
+    solventUses: solvents,
+    totals: { batches: batchDtos.length, solventUses: solvents.length, volumeL: totalL, volumeGal: gal(totalL), vocMass: mass(totalGrams), batchesOverLimit: batchDtos.filter((b) => b.overLimit).length },
     limits: settings.vocLimits.map((l) => ({ layerKind: l.layerKind, limitGPerL: l.limitGPerL, limitLbPerGal: gPerLToLbPerGal(l.limitGPerL) })),
     monthlyCapKg: settings.vocMonthlyCapKg,
     yearlyCapKg: settings.vocYearlyCapKg,

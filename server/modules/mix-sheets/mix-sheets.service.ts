@@ -28,6 +28,7 @@ import { toMixComponents } from "../../../shared/domain/layer-mix";
 import { mixComponentWords } from "../../../shared/domain/mix-words";
 import { vocAgainstLimit } from "../../../shared/domain/voc-limits";
 import type { LayerKind } from "../../../shared/domain/layers";
+import { batchNeed } from "./batch-need";
 import { centsPerMl, mlToPurchaseUnit } from "../../../shared/domain/material-units";
 import { cautionsFor } from "../../../shared/domain/safety";
 import type {
@@ -277,6 +278,7 @@ function sheetDto(deps: AppDeps, actor: Actor, sheet: SheetRow): MixSheetDto {
     totalMl: sheet.totalMl,
     vocGPerL,
     ...vocLimitOf(deps, head.layerKind, vocGPerL),
+    ...batchNeed(deps, sheet, head.layerKind),
     potLifeMinutes: sheet.potLifeMinutes,
     potLifeEndsAt: mixedAt != null && sheet.potLifeMinutes ? potLifeEnds(new Date(mixedAt), sheet.potLifeMinutes).toISOString() : null,
     mixedAt: isoOrNull(mixedAt),

@@ -11,7 +11,9 @@ import type { PlanEstimateDto } from "../../../shared/schemas/plan.schema";
 import { jobPlanRow, loadPlanVersion, type DbOrTx, type LoadedLayer } from "./plans.service";
 import { seesCost } from "../materials/materials.service";
 import { getSettings } from "../settings/settings.service";
-import { vocAgainstLimit, type VocLimit } from "../../../shared/domain/voc-limits";
+import { vocAgainstLimit } from "../../../shared/domain/voc-limits";
+import { wasteAllowanceFor, withWasteAllowance } from "../../../shared/domain/batch-size";
+import type { ShopSettings } from "../../../shared/schemas/settings.schema";
 import { desc } from "drizzle-orm";
 import { planVersions } from "../../db/schema";
 
@@ -42,6 +44,9 @@ export type JobPlanEstimate = {
     name: string;
     kind: LayerKind;
     volumeMl: number;
+    /** Before the waste allowance and the minimum batch, mL. */
+    theoreticalMl: number;
+    wasteAllowancePct: number;
     costCents: number;
     vocGPerL: number | null;
     vocLimitGPerL: number | null;
@@ -79,7 +84,7 @@ function filmOf(layer: LoadedLayer, volumeSolidsPct: number): LayerFilm | null {
 const SOLIDS_FREE = new Set(["reducer", "cleaner"]);
 
 type LayerResult = JobPlanEstimate["layers"][number] & { exactCostCents: number };
-type BaseResult = Omit<LayerResult, "vocLimitGPerL" | "vocOverLimit">;
+type BaseResult = Omit<LayerResult, "vocLimitGPerL" | "vocOverLimit" | "theoreticalMl" | "wasteAllowancePct">;
 
 function vocOfShares(layer: LoadedLayer, shares: number[]): number | null {
   if (!layer.components.every((c) => c.vocGPerL != null)) return null;
@@ -97,11 +102,22 @@ export function layerVoc(layer: LoadedLayer): number | null {
   }
 }
 
-/** One layer's estimate, with its mixed VOC checked against the shop's limit for its category (`limits`, shop settings). */
-export function estimateLayer(layer: LoadedLayer, areaM2: number, limits: readonly VocLimit[] = []): LayerResult {
+/** The shop settings an estimate applies: VOC limits, waste allowance per layer kind, minimum batch. */
+export type EstimateSettings = Pick<ShopSettings, "vocLimits" | "wasteAllowances" | "minimumBatchMl">;
+const NO_SETTINGS: EstimateSettings = { vocLimits: [], wasteAllowances: [], minimumBatchMl: 0 };
+
+/**
+ * One layer's estimate: the theoretical volume for the film build plus the shop's waste allowance for the layer's
+ * kind, at least the minimum batch (cost follows the volume); its mixed VOC checked against the shop's limit.
+ */
+export function estimateLayer(layer: LoadedLayer, areaM2: number, settings: EstimateSettings = NO_SETTINGS): LayerResult {
   const e = estimateBase(layer, areaM2);
-  const voc = vocAgainstLimit(layer.kind, e.vocGPerL, limits);
-  return { ...e, vocLimitGPerL: voc.limitGPerL, vocOverLimit: voc.over };
+  const voc = vocAgainstLimit(layer.kind, e.vocGPerL, settings.vocLimits);
+  const wasteAllowancePct = wasteAllowanceFor(layer.kind, settings.wasteAllowances);
+  const volumeMl = withWasteAllowance(e.volumeMl, wasteAllowancePct, settings.minimumBatchMl);
+  const scale = e.volumeMl > 0 ? volumeMl / e.volumeMl : 0;
+  const exactCostCents = e.exactCostCents * scale;
+  return { ...e, theoreticalMl: e.volumeMl, wasteAllowancePct, volumeMl, exactCostCents, costCents: Math.round(exactCostCents), vocLimitGPerL: voc.limitGPerL, vocOverLimit: voc.over };
 }
 
 function estimateBase(layer: LoadedLayer, areaM2: number): BaseResult {
@@ -172,8 +188,8 @@ export function estimateJobPlan(deps: { db: DbOrTx }, jobId: number): JobPlanEst
   if (!latest) return null;
   const version = loadPlanVersion(deps, latest.id);
   const areaM2 = jobAreaM2(deps.db, jobId);
-  const { vocLimits } = getSettings(deps);
-  const layers = version.layers.map((l) => estimateLayer(l, areaM2, vocLimits));
+  const settings = getSettings(deps);
+  const layers = version.layers.map((l) => estimateLayer(l, areaM2, settings));
   const exactTotal = layers.reduce((a, l) => a + l.exactCostCents, 0);
   const problems = layers.filter((l) => l.problem).map((l) => `${l.name}: ${l.problem}`);
   return {

@@ -21,6 +21,8 @@ export const NOT_MONEY: Record<string, string> = {
   "/api/jobs/:id/plan .estimate.totalAreaM2": "surface area to paint, m²",
   "/api/jobs/:id/plan .estimate.totalVolumeMl": "paint to mix for the plan, mL",
   "/api/mix-sheets .amount": "the batch size or amount on hand the painter entered, in the sheet's unit",
+  "/api/solvent-uses .amount": "solvent used (wax and grease remover, gun wash), in the unit entered",
+  "/api/solvent-uses [].amount": "list of solvent uses: each one's volume in the unit entered",
   "/api/mix-sheets .total": "batch volume in the sheet's unit",
   "/api/mix-sheets .totalMl": "batch volume, mL",
   "/api/mix-sheets .roundedTotal": "batch volume after rounding to measurable steps, in the sheet's unit",

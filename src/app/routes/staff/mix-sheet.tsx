@@ -88,6 +88,11 @@ function MixSheetPage({ sheet }: { sheet: MixSheetDto }) {
       <section aria-label="Batch" className="flex flex-col gap-3">
         <MixSheetTable sheet={sheet} />
         <RatioWarning sheet={sheet} />
+        {sheet.batchWarning ? (
+          <Alert tone="warning" title="Not enough for the layer">
+            {sheet.batchWarning}
+          </Alert>
+        ) : null}
         {sheet.status === "draft" ? <WeighSteps sheet={sheet} /> : null}
         {sheet.vocOverLimit && sheet.vocGPerL != null && sheet.vocLimitGPerL != null ? <VocOverLimit kind={sheet.layerKind} gPerL={sheet.vocGPerL} limitGPerL={sheet.vocLimitGPerL} /> : null}
         <div className="flex flex-wrap items-center gap-x-6 gap-y-2">

@@ -1,39 +1,20 @@
 import { CalendarClock, FlaskRound, TriangleAlert } from "lucide-react";
-import { timingBreaches, TIMING_RULE_LABELS, type CoatWindows, type TimingBreach } from "@shared/domain/booth-timing";
+import { TIMING_RULE_LABELS } from "@shared/domain/booth-timing";
+import { cardBreaches, cardWindows } from "@shared/domain/booth-card-timing";
 import type { BoothDto } from "@shared/schemas/booth.schema";
 import { Alert } from "@/components/ui/alert";
 import { formatDateTime } from "@/utils/format-date";
 import { formatAgo, formatCountdown } from "../hooks/use-server-now";
 import { formatClock, TimerBox } from "./booth-timers";
 
-type SprayNext = Extract<BoothDto["next"], { state: "spray" }>;
-
-const ms = (iso: string | null) => (iso == null ? null : Date.parse(iso));
-
-/** The next coat's windows as times, from the card. */
-function windowsOf(next: SprayNext): CoatWindows {
-  const w = next.windows;
-  return { flashEndsAt: ms(w.flashEndsAt), dryEndsAt: ms(w.dryEndsAt), recoatClosesAt: ms(w.recoatClosesAt), inductionEndsAt: ms(w.inductionEndsAt), needsBatch: w.needsBatch };
-}
-
-/**
- * The timing rules the next coat would break at `now`, worked out on the tablet with the server's own rules
- * (shared/domain/booth-timing.ts) from the windows the server sent, so the warning appears and clears as the clock runs.
- */
-export function breachesAt(card: BoothDto, now: number): TimingBreach[] {
-  const next = card.next;
-  if (next.state !== "spray") return [];
-  const layers = card.layers.filter((l) => !l.isPrep);
-  const index = layers.findIndex((l) => l.id === next.layerId);
-  if (index < 0) return next.breaches;
-  return timingBreaches(layers, index, windowsOf(next), now);
-}
+/** The timing rules the next coat would break at `now` (shared with the server's check). */
+export const breachesAt = cardBreaches;
 
 /** Induction of the open batch and the previous layer's recoat window, when the next coat has them. */
 export function TimingWindowTimers({ card, now }: { card: BoothDto; now: number }) {
   const next = card.next;
   if (next.state !== "spray") return null;
-  const w = windowsOf(next);
+  const w = cardWindows(next);
   const prev = card.layers.filter((l) => !l.isPrep).find((_, i, all) => all[i + 1]?.id === next.layerId);
   return (
     <>

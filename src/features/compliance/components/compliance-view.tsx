@@ -11,6 +11,7 @@ import { cn } from "@/utils/cn";
 import { formatDateTime } from "@/utils/format-date";
 import { formatNumber } from "@/utils/format-quantity";
 import { complianceCsvUrl } from "../api/compliance.queries";
+import { LogSolventUseForm, SolventUseList } from "./solvent-use-panel";
 
 const monthFormat = new Intl.DateTimeFormat(undefined, { month: "long", year: "numeric" });
 const formatMonth = (ym: string) => {
@@ -162,6 +163,11 @@ export function ComplianceView({ log, range }: { log: ComplianceDto; range: Comp
             </tbody>
           </table>
         </div>
+      </Section>
+
+      <Section title="Prep and cleaning solvent (outside batches)">
+        <SolventUseList uses={log.solventUses} />
+        <LogSolventUseForm />
       </Section>
 
       <Section title="Limits entered by the shop" className="print:hidden">

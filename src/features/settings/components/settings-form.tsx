@@ -18,6 +18,7 @@ import { SelectField } from "@/components/ui/form/select-field";
 import { TextField } from "@/components/ui/form/text-field";
 import { TextareaField } from "@/components/ui/form/textarea-field";
 import { controlClasses } from "@/components/ui/form/field";
+import { WasteAllowanceFields } from "./waste-allowance-fields";
 
 type SettingsInput = z.input<typeof updateShopSettingsSchema>;
 type SettingsOutput = z.output<typeof updateShopSettingsSchema>;
@@ -47,6 +48,8 @@ const TOP_FIELDS = [
   "deltaEMatch",
   "deltaEClose",
   "vocLimits",
+  "wasteAllowances",
+  "minimumBatchMl",
   "vocMonthlyCapKg",
   "vocYearlyCapKg",
   "lowDiskWarningGb",
@@ -321,6 +324,17 @@ export function SettingsForm({
               error={errors.vocYearlyCapKg?.message}
               {...register("vocYearlyCapKg", { setValueAs: emptyToNull })}
             />
+          </div>
+        </Group>
+
+        <Group title="Batches" description="Added to the material estimate: paint lost in the cup, the gun and overspray, per layer kind (e.g. 15 %), and the smallest batch worth mixing.">
+          <Controller
+            control={control}
+            name="wasteAllowances"
+            render={({ field }) => <WasteAllowanceFields value={field.value as never} onChange={field.onChange} error={errors.wasteAllowances?.message} disabled={!canEdit} />}
+          />
+          <div className="grid gap-5 sm:grid-cols-2">
+            <TextField label="Minimum batch (mL)" inputMode="decimal" hint="An estimated layer needs at least this much. 0 for none." error={errors.minimumBatchMl?.message} {...register("minimumBatchMl")} />
           </div>
         </Group>
 
