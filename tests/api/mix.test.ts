@@ -21,7 +21,8 @@ describe("POST /api/mix/compute", () => {
     expect(res.body).toEqual(JSON.parse(JSON.stringify(computeMix(request))));
     // 4:1:1 of 300 mL with densities 1.00 / 1.10 / 0.87 g/mL weighs 200.00 → 255.00 → 298.50 g cumulative
     // (worked example, references.md §7, computed from the definition mass = volume × density).
-    expect(res.body.scale.map((t: { cumulativeGrams: number }) => Number(t.cumulativeGrams.toFixed(2)))).toEqual([200, 255, 298.5]);
+    expect(res.body.scale.steps.map((t: { scaleReads: number }) => t.scaleReads)).toEqual([200, 255, 298.5]);
+    expect(res.body.scale.total).toBe(298.5);
   });
 
   it("mixes from the amount of one component on hand", async () => {
