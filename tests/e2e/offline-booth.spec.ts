@@ -74,7 +74,7 @@ describe("the booth card without Wi-Fi", () => {
 
     // Online first: the booth list (the installed app's start page) fetches every card of the painter's jobs.
     await page.goto(`${baseUrl}/booth`);
-    await page.getByRole("link", { name: /E2E booth tank/ }).first().waitFor();
+    await page.getByRole("main").locator(`a[href="/booth/${jobId}"]`).waitFor();
     await page.goto(`${baseUrl}/booth/${jobId}`);
     const nextCoat = page.getByTestId("next-coat");
     const nextLayer = page.getByTestId("next-layer");

@@ -109,7 +109,9 @@ describe("finish plans and mix sheets", () => {
     await page.getByRole("button", { name: "Create template" }).click();
     await page.waitForURL(/\/plans\/\d+$/);
     const layers = page.getByRole("list", { name: "Layers, bottom to top" });
-    await expect.poll(() => layers.innerText()).toMatch(/1\.\s*Sealer[\s\S]*2\.\s*Clear[\s\S]*4 clear; reducer 10 % of clear/);
+    await expect.poll(() => layers.innerText()).toMatch(/1\.\s*Sealer[\s\S]*2\.\s*Clear[\s\S]*\(clear\): 4 parts · 90\.9 % of the ready-to-spray mix/);
+    // The reducer says what its percentage is of, by material, and its share of what goes in the gun: 10 / 110 = 9.1 %.
+    expect(await layers.innerText()).toMatch(/\(reducer\): 10 % of HC-CL-20 2K urethane clear, high gloss · 9\.1 % of the ready-to-spray mix/);
     expect(errors).toEqual([]);
     await close();
   });
@@ -196,9 +198,9 @@ describe("mix calculator", () => {
     await expect.poll(() => amounts.innerText()).toMatch(/298\.5 g/);
     expect(await amounts.innerText()).toMatch(/255 g/);
 
-    // Rounding to a 25 mL cup mark shows the measure column and the ratio line.
+    // Rounding to a 25 mL cup mark lands every part on a mark (200 / 50 / 50 mL), so every ratio holds.
     await page.getByRole("textbox", { name: "Round to a step of" }).fill("25");
-    await expect.poll(() => page.getByText(/puts the ratio off by up to/).count()).toBe(1);
+    await expect.poll(() => page.getByText(/Rounded to 25 mL: every ratio stays within 2 %/).count()).toBe(1);
 
     // A zero part is an error shown beside that field, and the amounts wait for a fix.
     await page.getByRole("textbox", { name: "Parts" }).nth(1).fill("0");
