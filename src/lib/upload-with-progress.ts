@@ -5,12 +5,13 @@ import { ApiError } from "./api-client";
  * Sends a multipart form to the API with upload progress (fetch cannot report it, XMLHttpRequest can).
  * Resolves with the JSON answer; rejects with the same ApiError the JSON client throws.
  */
-export function uploadWithProgress<T>(path: string, form: FormData, onProgress?: (fraction: number) => void, signal?: AbortSignal): Promise<T> {
+export function uploadWithProgress<T>(path: string, form: FormData, onProgress?: (fraction: number) => void, signal?: AbortSignal, headers: Record<string, string> = {}): Promise<T> {
   return new Promise<T>((resolve, reject) => {
     const xhr = new XMLHttpRequest();
     xhr.open("POST", `/api${path}`);
     xhr.withCredentials = true;
     xhr.setRequestHeader("Accept", "application/json");
+    for (const [name, value] of Object.entries(headers)) xhr.setRequestHeader(name, value);
     xhr.upload.onprogress = (e) => {
       if (e.lengthComputable) onProgress?.(e.loaded / e.total);
     };

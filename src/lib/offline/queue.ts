@@ -1,10 +1,11 @@
 import { createStore, get, set, del, type UseStore } from "idb-keyval";
 // The API client (and the zod it reads error bodies with) loads with the first send, not with the app's entry.
 const client = () => import("@/lib/api-client");
+const uploader = () => import("@/lib/upload-with-progress");
 import { IDEMPOTENCY_HEADER } from "@shared/api/idempotency";
 
 /**
- * The tablet's outbox for booth entries (coats, corrections, prep sign-offs): kept in IndexedDB so a reload, a flat
+ * The tablet's outbox for booth entries (coats, corrections, prep sign-offs, photos): kept in IndexedDB so a reload, a flat
  * battery or a closed tab loses nothing, and sent in the order they were made when the server can be reached. Each
  * entry has its own random key, sent as the `Idempotency-Key` header, so an entry sent twice (a reply lost on the
  * way back, two tablets, a replay) is stored once by the server.
@@ -13,11 +14,13 @@ export type QueuedEntry = {
   /** The entry's Idempotency-Key (a UUID). */
   key: string;
   userId: string;
-  kind: "coat" | "correction" | "sign-off";
+  kind: "coat" | "correction" | "sign-off" | "photo";
   jobId: number;
-  /** API path (under /api) and JSON body, `at` (when it was made) included. */
+  /** API path (under /api) and JSON body, `at` (when it was made) included; for a photo, the form's text fields. */
   path: string;
   body: Record<string, unknown>;
+  /** A photo: the picture itself (IndexedDB keeps Blobs), sent as the form's `file` field with `body` beside it. */
+  file?: { blob: Blob; name: string };
   madeAt: number;
   /** What the painter sees: "Coat 2 of Candy garnet". */
   label: string;
@@ -59,6 +62,21 @@ const storageKey = (userId: string) => `queue:${userId}`;
 let state: QueueState = { entries: [], reachable: true, sending: false, firstTry: null };
 /** A send that has not answered in this long is taken as no network (a booth's Wi-Fi can be up with no route). */
 const SEND_TIMEOUT_MS = 15_000;
+/** A photo (up to 15 MB on a weak booth signal) gets longer. */
+const PHOTO_TIMEOUT_MS = 120_000;
+
+/** One entry to the server with its key: JSON, or a multipart form through the same upload path as any photo. */
+async function post(entry: Pick<QueuedEntry, "key" | "path" | "body" | "file">, timeout: boolean): Promise<unknown> {
+  const headers = { [IDEMPOTENCY_HEADER]: entry.key };
+  if (!entry.file) {
+    const signal = timeout ? AbortSignal.timeout(SEND_TIMEOUT_MS) : undefined;
+    return (await client()).api.post<unknown>(entry.path, entry.body, { headers, signal });
+  }
+  const form = new FormData();
+  for (const [name, value] of Object.entries(entry.body)) if (value != null) form.set(name, String(value));
+  form.set("file", entry.file.blob, entry.file.name);
+  return (await uploader()).uploadWithProgress<unknown>(entry.path, form, undefined, timeout ? AbortSignal.timeout(PHOTO_TIMEOUT_MS) : undefined, headers);
+}
 let userId: string | null = null;
 let handlers: Handlers = { onSent: () => undefined, onRefused: () => undefined };
 const listeners = new Set<() => void>();
@@ -101,9 +119,9 @@ async function sendWaiting() {
     for (;;) {
       const entry = state.entries.find((e) => e.state === "waiting" && !heldBack(e, state.entries));
       if (!entry) break;
-      const { api, isApiError } = await client();
+      const { isApiError } = await client();
       try {
-        const answer = await api.post<unknown>(entry.path, entry.body, { headers: { [IDEMPOTENCY_HEADER]: entry.key }, signal: AbortSignal.timeout(SEND_TIMEOUT_MS) });
+        const answer = await post(entry, true);
         answers.set(entry.key, answer);
         // The answer goes on screen before the entry leaves the queue, so the card never steps back in between.
         handlers.onSent(entry, answer);
@@ -149,7 +167,7 @@ export const offlineQueue = {
    * anyone else (the owner at the booth) the entry is sent straight away, with its key, and not kept.
    */
   async submit(entry: Omit<QueuedEntry, "userId" | "state">): Promise<{ queued: true } | { queued: false; answer: unknown }> {
-    if (!userId) return { queued: false, answer: await (await client()).api.post<unknown>(entry.path, entry.body, { headers: { [IDEMPOTENCY_HEADER]: entry.key } }) };
+    if (!userId) return { queued: false, answer: await post(entry, false) };
     setState({ firstTry: entry.key });
     const mine = () => state.entries.find((e) => e.key === entry.key);
     try {

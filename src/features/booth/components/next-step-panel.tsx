@@ -330,13 +330,13 @@ function LogCoatForm({ card, now, clockOffset, prepPath }: { card: BoothDto; now
       >
         Log coat {next.coat} of {next.of}
       </Button>
-      <LastLogged card={card} />
+      <LastLogged card={card} clockOffset={clockOffset} />
     </form>
   );
 }
 
 /** Confirms the latest tap from the stored log (so it is still there after a reload). */
-function LastLogged({ card }: { card: BoothDto }) {
+function LastLogged({ card, clockOffset }: { card: BoothDto; clockOffset: number }) {
   const last = card.coatLogs.filter((c) => c.status === "counts" || c.status === "corrected").at(-1);
   return (
     <div className="flex flex-col items-center gap-2">
@@ -351,7 +351,13 @@ function LastLogged({ card }: { card: BoothDto }) {
         "The time and your name are recorded by the server when you tap."
       )}
     </p>
-    {last && !isWaiting(last) ? <PhotoUploadButton owner={{ ownerType: "coat_log", ownerId: last.id }} label="Photo of this coat" /> : null}
+    {last && !isWaiting(last) ? (
+      <PhotoUploadButton
+        owner={{ ownerType: "coat_log", ownerId: last.id }}
+        label="Photo of this coat"
+        queue={{ jobId: card.job.id, label: `Photo of coat ${last.coatNumber} of ${last.layerName}`, clockOffsetMs: clockOffset }}
+      />
+    ) : null}
     </div>
   );
 }
