@@ -146,6 +146,8 @@ export async function createUpload(
   actor: Actor,
   fields: z.output<typeof createUploadFieldsSchema>,
   file: Express.Multer.File | undefined,
+  /** Wraps the database write (the route stores an Idempotency-Key's answer in the same transaction). */
+  within: (write: () => UploadDto) => UploadDto = (write) => write(),
 ): Promise<UploadDto> {
   const jobId = ownerJob(deps, actor, fields.ownerType, fields.ownerId, "write");
   if (!file) throw badRequest("Attach a file in the 'file' field", { file: "No file attached" });
@@ -154,26 +156,28 @@ export async function createUpload(
   const job = jobId === null ? undefined : deps.db.select({ createdAt: jobs.createdAt }).from(jobs).where(eq(jobs.id, jobId)).get();
   const takenAt = fields.at === undefined ? null : madeAt(fields.at, now, [{ time: job?.createdAt, what: "the job was created" }]);
   const stored = await storeFile(deps.uploadsDir, file, "photo");
-  const row = keepStored(deps.uploadsDir, stored, () =>
-    deps.db
-    .insert(uploads)
-    .values({
-      ownerType: fields.ownerType,
-      ownerId: fields.ownerId,
-      jobId,
-      kind: "photo",
-      ...stored,
-      caption: fields.caption ?? null,
-      shareable: jobId !== null && (fields.shareable ?? false),
-      light: fields.ownerType === "panel" ? (fields.light ?? null) : null,
-      uploadedBy: actor.id,
-      createdAt: now,
-      takenAt,
-    })
-    .returning()
-    .get()!,
+  return keepStored(deps.uploadsDir, stored, () =>
+    within(() => {
+      const row = deps.db
+        .insert(uploads)
+        .values({
+          ownerType: fields.ownerType,
+          ownerId: fields.ownerId,
+          jobId,
+          kind: "photo",
+          ...stored,
+          caption: fields.caption ?? null,
+          shareable: jobId !== null && (fields.shareable ?? false),
+          light: fields.ownerType === "panel" ? (fields.light ?? null) : null,
+          uploadedBy: actor.id,
+          createdAt: now,
+          takenAt,
+        })
+        .returning()
+        .get()!;
+      return toUploadDto({ ...row, uploadedByName: actor.name });
+    }),
   );
-  return toUploadDto({ ...row, uploadedByName: actor.name });
 }
 
 export function photoTooLarge(size?: number) {
