@@ -10,8 +10,7 @@ export const PHOTO_OWNER_TYPES = ["job", "job_item", "prep_record", "coat_log", 
 export const UPLOAD_KINDS = ["photo", "tds", "sds"] as const;
 export type UploadKind = (typeof UPLOAD_KINDS)[number];
 
-/** Photo upload limit; the server answers 413 with it in the message. */
-export const MAX_PHOTO_MB = 15;
+export { MAX_PHOTO_MB } from "../domain/photo-limits";
 
 /** Multipart fields arrive as strings: "true"/"false"/"on" → boolean. */
 const formBoolean = z.preprocess((v) => (v === "true" || v === "on" || v === "1" ? true : v === "false" || v === "0" || v === "" ? false : v), z.boolean({ error: "Must be true or false" }));

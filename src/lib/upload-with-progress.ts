@@ -1,4 +1,3 @@
-import { apiErrorBodySchema } from "@shared/api/error";
 import { ApiError } from "./api-client";
 
 /**
@@ -27,10 +26,13 @@ export function uploadWithProgress<T>(path: string, form: FormData, onProgress?:
         resolve(body as T);
         return;
       }
-      const parsed = apiErrorBodySchema.safeParse(body);
-      if (parsed.success) reject(new ApiError(xhr.status, parsed.data.error.code, parsed.data.error.message, parsed.data.error.fields));
-      else if (xhr.status === 413) reject(new ApiError(413, "payload_too_large", "The file is larger than the upload limit; send a smaller file."));
-      else reject(new ApiError(xhr.status, xhr.status >= 500 ? "internal" : "bad_request", `The upload failed (${xhr.status}).`));
+      // The error body's schema (and zod) loads only when an upload is refused.
+      void import("@shared/api/error").then(({ apiErrorBodySchema }) => {
+        const parsed = apiErrorBodySchema.safeParse(body);
+        if (parsed.success) reject(new ApiError(xhr.status, parsed.data.error.code, parsed.data.error.message, parsed.data.error.fields));
+        else if (xhr.status === 413) reject(new ApiError(413, "payload_too_large", "The file is larger than the upload limit; send a smaller file."));
+        else reject(new ApiError(xhr.status, xhr.status >= 500 ? "internal" : "bad_request", `The upload failed (${xhr.status}).`));
+      }, reject);
     };
     xhr.onerror = () => reject(new ApiError(0, "network", "Could not reach the server. Check the connection and try again."));
     xhr.onabort = () => reject(new DOMException("Upload cancelled", "AbortError"));

@@ -184,16 +184,17 @@ function LogCoatForm({ card, now, clockOffset, prepPath }: { card: BoothDto; now
     event.preventDefault();
     if (submitting || guarded) return;
     setProblem(null);
-    const parsed = form.validate();
-    if (!parsed) return;
-    // Offline there is no server to refuse the tap: the tablet asks for the reason against a timing rule itself.
-    if (!navigator.onLine && breaches.length && !(overridingTiming && parsed.timingOverrideReason)) {
-      setOverridingTiming(true);
-      setProblem(`Not logged: ${breaches.map((b) => b.message).join(" ")} Give a reason to go ahead.`);
-      return;
-    }
+    // Held from the tap itself (checking the form may wait for its schema to load): a second tap is not a second coat.
     setSubmitting(true);
     try {
+      const parsed = await form.validate();
+      if (!parsed) return;
+      // Offline there is no server to refuse the tap: the tablet asks for the reason against a timing rule itself.
+      if (!navigator.onLine && breaches.length && !(overridingTiming && parsed.timingOverrideReason)) {
+        setOverridingTiming(true);
+        setProblem(`Not logged: ${breaches.map((b) => b.message).join(" ")} Give a reason to go ahead.`);
+        return;
+      }
       const { jobId: _jobId, ...rest } = parsed;
       // No toast here: it would cover the log button. The "last logged" line below the button confirms it.
       await log.mutateAsync({

@@ -1,6 +1,6 @@
 import { useId, useRef, useState } from "react";
 import { Camera } from "lucide-react";
-import { MAX_PHOTO_MB } from "@shared/schemas/upload.schema";
+import { MAX_PHOTO_MB } from "@shared/domain/photo-limits";
 import { isApiError } from "@/lib/api-client";
 import { Alert } from "@/components/ui/alert";
 import { toast } from "@/components/ui/toast/toast-store";
