@@ -15,7 +15,7 @@ afterAll(async () => {
 });
 
 type Coat = { id: number; coatNumber: number; layerName: string; at: string; loggedAt: string; status: string };
-type Entry = { key: string; kind: string; label: string; path: string; body: Record<string, unknown>; madeAt: number; state: string };
+type Entry = { key: string; kind: string; label: string; path: string; body: Record<string, unknown>; madeAt: number; state: string; waitsFor?: string };
 type Photo = { id: number; ownerType: string; ownerId: number; size: number; takenAt: string; createdAt: string };
 
 /** The tablet's queue as stored in IndexedDB (src/lib/offline/queue.ts), read from inside the page. */
@@ -198,7 +198,7 @@ describe("the booth card without Wi-Fi", () => {
     await close();
   });
 
-  it("keeps a correction and a booth photo made offline over a reload, and sends each exactly once when back online", async () => {
+  it("keeps a correction and booth photos made offline (one of a coat also made offline) over a reload, and sends each exactly once", async () => {
     const { jobId, page, errors, close, context, nextCoat } = await painterAtTheCard();
 
     // The sealer's coat is logged while the Wi-Fi is up; then the Wi-Fi drops.
@@ -221,19 +221,37 @@ describe("the booth card without Wi-Fi", () => {
     await page.getByLabel("Photo of this coat").setInputFiles({ name: "sealer.jpg", mimeType: "image/jpeg", buffer: jpeg });
     await expect.poll(() => banner.innerText()).toBe("Offline: 2 entries waiting to send");
     const after = Date.now();
+
+    // Then a coat of the ground, logged offline (inside the sealer's flash, so with a reason), and a photo of it: the
+    // coat has no id yet, so its photo waits in the queue for the coat's answer.
+    const logButton = page.getByRole("button", { name: /^Log coat/ });
+    await logButton.click();
+    await expect.poll(() => page.getByRole("form", { name: "Log a coat" }).getByRole("alert").innerText()).toMatch(/^Not logged: .*Give a reason to go ahead\./);
+    await page.getByLabel("Reason for going ahead against the timing rule").fill("Flashed by eye, offline test");
+    await logButton.click();
+    await expect.poll(() => nextCoat.innerText()).toBe("Coat 2 of 3");
+    const groundJpeg = await sharp({ create: { width: 160, height: 120, channels: 3, background: { r: 90, g: 90, b: 100 } } }).jpeg().toBuffer();
+    await page.getByLabel("Photo of this coat").setInputFiles({ name: "ground.jpg", mimeType: "image/jpeg", buffer: groundJpeg });
+    await expect.poll(() => banner.innerText()).toBe("Offline: 4 entries waiting to send");
     const queued = await storedQueue(page);
     expect(queued.map((e) => [e.kind, e.label, e.state])).toEqual([
       ["correction", "Correction of coat 1 of Sealer", "waiting"],
       ["photo", "Photo of coat 1 of Sealer", "waiting"],
+      ["coat", "Coat 1 of Metallic ground", "waiting"],
+      ["photo", "Photo of coat 1 of Metallic ground", "waiting"],
     ]);
     const photoEntry = queued[1]!;
     expect(photoEntry.body).toMatchObject({ ownerType: "coat_log", ownerId: sealerCoat!.id });
-    expect(new Set(queued.map((e) => e.key)).size).toBe(2);
+    expect(queued[3]!.waitsFor).toBe(queued[2]!.key);
+    expect(queued[3]!.body).not.toHaveProperty("ownerId");
+    expect(new Set(queued.map((e) => e.key)).size).toBe(4);
 
-    // A reload with no network: both are still on the tablet, the photo with its picture.
+    // A reload with no network: all four are still on the tablet, the photos with their pictures.
     await page.reload();
-    await expect.poll(() => banner.innerText(), { timeout: 15_000 }).toBe("Offline: 2 entries waiting to send");
-    expect(await page.getByRole("list", { name: "Entries on this tablet" }).innerText()).toMatch(/Correction of coat 1 of Sealer[\s\S]*Photo of coat 1 of Sealer/);
+    await expect.poll(() => banner.innerText(), { timeout: 15_000 }).toBe("Offline: 4 entries waiting to send");
+    expect(await page.getByRole("list", { name: "Entries on this tablet" }).innerText()).toMatch(
+      /Correction of coat 1 of Sealer[\s\S]*Photo of coat 1 of Sealer[\s\S]*Coat 1 of Metallic ground[\s\S]*Photo of coat 1 of Metallic ground/,
+    );
     const storedBytes = await page.evaluate(
       () =>
         new Promise<number>((resolve, reject) => {
@@ -247,7 +265,7 @@ describe("the booth card without Wi-Fi", () => {
     );
     expect(storedBytes).toBe(jpeg.length);
 
-    // Back online: both go out in order, once.
+    // Back online: all go out in order, once.
     await context.setOffline(false);
     await expect.poll(() => banner.innerText(), { timeout: 20_000 }).toBe("All sent");
     const photos = await call<Photo[]>(page, "GET", `/api/uploads?ownerType=coat_log&ownerId=${sealerCoat!.id}`);
@@ -260,6 +278,11 @@ describe("the booth card without Wi-Fi", () => {
     expect(Date.parse(photos[0]!.createdAt)).toBeGreaterThan(photoEntry.madeAt);
     const corrections = (await call<(Coat & { correctsId: number | null; humidityPct: number | null })[]>(page, "GET", `/api/coat-logs?jobId=${jobId}`)).filter((c) => c.status === "correction");
     expect(corrections.map((c) => [c.correctsId, c.humidityPct])).toEqual([[sealerCoat!.id, 47]]);
+    // The coat made offline has its one photo, taken after it.
+    const groundCoat = (await coatsOf(page, jobId)).find((c) => c.layerName === "Metallic ground" && c.coatNumber === 1)!;
+    const groundPhotos = await call<Photo[]>(page, "GET", `/api/uploads?ownerType=coat_log&ownerId=${groundCoat.id}`);
+    expect(groundPhotos.map((p) => [p.ownerId, Date.parse(p.takenAt)])).toEqual([[groundCoat.id, queued[3]!.madeAt]]);
+    expect(Date.parse(groundCoat.at)).toBe(queued[2]!.madeAt);
 
     // The same photo sent again under its key (a reply lost on the way back): the first answer, still one photo.
     const again = await page.evaluate(

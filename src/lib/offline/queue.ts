@@ -3,6 +3,7 @@ import { createStore, get, set, del, type UseStore } from "idb-keyval";
 const client = () => import("@/lib/api-client");
 const uploader = () => import("@/lib/upload-with-progress");
 import { IDEMPOTENCY_HEADER } from "@shared/api/idempotency";
+import { discarded, heldBack, replaced, withOwner, type Replacement } from "./queue-order";
 
 /**
  * The tablet's outbox for booth entries (coats, corrections, prep sign-offs, photos): kept in IndexedDB so a reload, a flat
@@ -21,6 +22,11 @@ export type QueuedEntry = {
   body: Record<string, unknown>;
   /** A photo: the picture itself (IndexedDB keeps Blobs), sent as the form's `file` field with `body` beside it. */
   file?: { blob: Blob; name: string };
+  /**
+   * The key of an earlier entry whose answer gives this one its owner (a photo of a coat still waiting to send): held
+   * back until that entry is stored, then its `ownerId` is filled in from the answer.
+   */
+  waitsFor?: string;
   madeAt: number;
   /** What the painter sees: "Coat 2 of Candy garnet". */
   label: string;
@@ -51,6 +57,8 @@ export function newEntryKey(): string {
 
 type Handlers = {
   onSent: (entry: QueuedEntry, answer: unknown) => void;
+  /** The id of the record an entry stored, read from its answer (for the entries that wait for it), or null. */
+  idFrom?: (entry: QueuedEntry, answer: unknown) => number | null;
   /** The server refused the entry: what it shows is out of date. */
   onRefused: (entry: QueuedEntry) => void;
 };
@@ -95,10 +103,6 @@ async function change(entries: QueuedEntry[]) {
   await save();
 }
 
-/** Entries of a job after one the server refused stay back until that one is fixed or discarded. */
-function heldBack(entry: QueuedEntry, entries: QueuedEntry[]) {
-  return entries.some((e) => e.jobId === entry.jobId && e.state === "refused" && entries.indexOf(e) < entries.indexOf(entry));
-}
 
 let flushing: Promise<void> | null = null;
 /** Answers to entries just sent, for the submit that is waiting on them. */
@@ -125,7 +129,8 @@ async function sendWaiting() {
         answers.set(entry.key, answer);
         // The answer goes on screen before the entry leaves the queue, so the card never steps back in between.
         handlers.onSent(entry, answer);
-        await change(state.entries.filter((e) => e.key !== entry.key));
+        const rest = state.entries.filter((e) => e.key !== entry.key);
+        await change(rest.some((e) => e.waitsFor === entry.key) ? withOwner(rest, entry, handlers.idFrom?.(entry, answer) ?? null) : rest);
         setState({ reachable: true });
       } catch (error) {
         const refused = isApiError(error) && error.isClientError && error.status !== 401 && error.status !== 429;
@@ -193,11 +198,11 @@ export const offlineQueue = {
   /** Sends a refused entry again as it is (the office fixed what was in the way). */
   retry: (key: string) => change(state.entries.map((e) => (e.key === key ? { ...e, state: "waiting" as const, problem: undefined } : e))).then(flushQueue),
 
-  /** Replaces a refused entry by a changed one (a new key: it is a different request). */
-  replace: (key: string, changed: Pick<QueuedEntry, "key" | "body" | "label">) =>
-    change(state.entries.map((e) => (e.key === key ? { ...e, ...changed, state: "waiting" as const, problem: undefined } : e))).then(flushQueue),
+  /** Replaces a refused entry by a changed one (a new key: it is a different request); entries waiting for it follow. */
+  replace: (key: string, changed: Replacement) => change(replaced(state.entries, key, changed)).then(flushQueue),
 
-  discard: (key: string) => change(state.entries.filter((e) => e.key !== key)),
+  /** Drops an entry; any waiting for it (a photo of that coat) is shown as refused, to go on the job or be discarded. */
+  discard: (key: string) => change(discarded(state.entries, key)),
 
   /** Forgets every entry on this tablet (sign-out). */
   async clear() {

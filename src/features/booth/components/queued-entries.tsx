@@ -75,7 +75,7 @@ function Refused({ entry, card }: { entry: QueuedEntry; card: BoothDto }) {
           </Button>
         ) : null}
         {onJob ? (
-          <Button size="lg" onClick={() => void offlineQueue.replace(entry.key, { key: newEntryKey(), label: `${entry.label} (on the job)`, body: { ...entry.body, ownerType: "job", ownerId: entry.jobId } })}>
+          <Button size="lg" onClick={() => void offlineQueue.replace(entry.key, { key: newEntryKey(), label: `${entry.label} (on the job)`, body: { ...entry.body, ownerType: "job", ownerId: entry.jobId }, waitsFor: undefined })}>
             Add it to the job instead
           </Button>
         ) : null}

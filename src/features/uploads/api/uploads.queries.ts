@@ -50,7 +50,8 @@ export function useUploadPhoto(owner: UploadOwner) {
   return { ...mutation, progress };
 }
 
-export type QueuedPhoto = { jobId: number; label: string; clockOffsetMs: number };
+/** A booth photo's queue details; `waitsFor` is the queue key of its coat when that coat is itself still waiting to send. */
+export type QueuedPhoto = { jobId: number; label: string; clockOffsetMs: number; waitsFor?: string };
 
 /**
  * A booth photo: kept in the tablet's queue (src/lib/offline/queue.ts) with its own Idempotency-Key and the time it
@@ -69,8 +70,10 @@ export function useQueuedPhoto(owner: UploadOwner, queue: QueuedPhoto | undefine
         kind: "photo",
         jobId: queue.jobId,
         path: "/uploads",
-        body: { ownerType: owner.ownerType, ownerId: owner.ownerId, at: new Date(madeAt).toISOString() },
+        // A photo of a coat still waiting gets its owner's id when the coat is stored (src/lib/offline/queue.ts).
+        body: { ownerType: owner.ownerType, ...(queue.waitsFor ? {} : { ownerId: owner.ownerId }), at: new Date(madeAt).toISOString() },
         file: { blob: file, name: file.name },
+        waitsFor: queue.waitsFor,
         madeAt,
         label: queue.label,
         refresh: [uploadKeys.all, ["booth", "card", queue.jobId]],
