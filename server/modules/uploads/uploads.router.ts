@@ -26,7 +26,7 @@ function receiveFile(): RequestHandler {
 
 export function uploadsRouter(deps: AppDeps) {
   const r = Router();
-  /** multipart/form-data: file, ownerType, ownerId, caption, shareable. Photos only (JPEG, PNG, WebP). */
+  /** multipart/form-data: file, ownerType, ownerId, caption, shareable, light, at (when taken, from an offline tablet). Photos only (JPEG, PNG, WebP); takes an Idempotency-Key. */
   r.post("/", allow("staff"), receiveFile(), idempotent(deps), async (req, res) => {
     // The row and the key's answer are written together, once the file is on disk.
     res.status(201).json(await createUpload(deps, actorOf(res), body(req, createUploadFieldsSchema), req.file, (write) => withAnswer(deps, res, 201, write)));
