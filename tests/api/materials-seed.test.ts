@@ -2,7 +2,7 @@ import { describe, expect, it } from "vitest";
 import { eq } from "drizzle-orm";
 import { makeApp } from "../support/test-app";
 import { seedDemo } from "../../server/db/seed/index";
-import { jobs, materialLots, materials, mixSheets, plans, planVersions } from "../../server/db/schema";
+import { jobs, layerComponents, materialLots, materials, mixSheets, plans, planVersions } from "../../server/db/schema";
 
 describe("demo catalogue, plans and batches", () => {
   it("seeds an invented catalogue, three or more templates, plans on the jobs in production and recorded batches on those that reached the booth", async () => {
@@ -39,5 +39,15 @@ describe("demo catalogue, plans and batches", () => {
     const stockOf = (id: number) => lots.filter((l) => l.materialId === id).reduce((a, l) => a + l.quantityOnHand, 0);
     const low = catalogue.filter((m) => m.lowStockThreshold != null && stockOf(m.id) <= m.lowStockThreshold);
     expect(low.length).toBeGreaterThan(0);
+  });
+
+  it("names a ground coat \"basecoat\" in the mix (painters' word), never \"ground\"", async () => {
+    const t = makeApp();
+    await seedDemo(t.db);
+    const rows = t.db.select({ label: layerComponents.label, percentOf: layerComponents.percentOf, category: materials.category }).from(layerComponents).innerJoin(materials, eq(materials.id, layerComponents.materialId)).all();
+    const grounds = rows.filter((r) => r.category === "ground_coat");
+    expect(grounds.length).toBeGreaterThan(0);
+    expect(grounds.every((r) => r.label === "basecoat")).toBe(true);
+    expect(rows.some((r) => r.label === "ground" || (r.percentOf ?? []).includes("ground"))).toBe(false);
   });
 });

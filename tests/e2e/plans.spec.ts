@@ -84,7 +84,7 @@ describe("finish plans and mix sheets", () => {
     await page.getByRole("button", { name: "Add layer" }).click();
     await page.getByRole("button", { name: "Add material" }).click();
     await page.getByRole("combobox", { name: "Material 1" }).selectOption({ label: "HC-CL-20 2K urethane clear, high gloss" });
-    await expect.poll(() => page.getByRole("textbox", { name: "Label in the mix" }).first().inputValue()).toBe("clear");
+    await expect.poll(() => page.getByRole("textbox", { name: "Name on the mix sheet" }).first().inputValue()).toBe("clear");
     await page.getByRole("textbox", { name: "Parts" }).first().fill("4");
     await page.getByRole("button", { name: "Add material" }).click();
     await page.getByRole("combobox", { name: "Material 2" }).selectOption({ label: "HC-RD-02 Urethane reducer, medium" });
@@ -198,9 +198,9 @@ describe("mix calculator", () => {
     await expect.poll(() => amounts.innerText()).toMatch(/298\.5 g/);
     expect(await amounts.innerText()).toMatch(/255 g/);
 
-    // Rounding to a 25 mL cup mark lands every part on a mark (200 / 50 / 50 mL), so every ratio holds.
+    // Rounding to a 25 mL cup mark lands every part on a mark (200 / 50 / 50 mL), so every ratio is exact.
     await page.getByRole("textbox", { name: "Round to a step of" }).fill("25");
-    await expect.poll(() => page.getByText(/Rounded to 25 mL: every ratio stays within 2 %/).count()).toBe(1);
+    await expect.poll(() => page.getByText(/Rounded to 25 mL: every ratio is exact\./).count()).toBe(1);
 
     // A zero part is an error shown beside that field, and the amounts wait for a fix.
     await page.getByRole("textbox", { name: "Parts" }).nth(1).fill("0");

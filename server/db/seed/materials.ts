@@ -99,7 +99,7 @@ function groundLayer(m: Codes, code: string, name: string): PlanLayerInput {
     dryFilmPerCoat: 6,
     dryFilmUnit: "um",
     transferEfficiencyPct: 60,
-    components: [comp(m[code]!, "ground", { parts: 1 }), comp(m["HC-RD-02"]!, "reducer", { parts: 1 })],
+    components: [comp(m[code]!, "basecoat", { parts: 1 }), comp(m["HC-RD-02"]!, "reducer", { parts: 1 })],
   };
 }
 
@@ -224,7 +224,7 @@ function fitLayers(m: Codes, templateIndex: number, finish: ReturnType<typeof fi
       if (templateIndex === 0 && finish.ground !== "HC-GC-10") ground = groundLayer(m, finish.ground, finish.ground === "HC-GC-02" ? "Black ground" : "Metallic ground");
       if (templateIndex === 1 && finish.solidGround !== "HC-GC-20") ground = groundLayer(m, finish.solidGround, "Solid colour");
       if (finish.flake) {
-        ground = { ...ground, name: `${ground.name} with flake`, components: [...ground.components, comp(m["HC-AD-05"]!, "flake", { percent: 2, percentOf: ["ground"] })] };
+        ground = { ...ground, name: `${ground.name} with flake`, components: [...ground.components, comp(m["HC-AD-05"]!, "flake", { percent: 2, percentOf: ["basecoat"] })] };
       }
       if (ground !== l) changed = true;
       return ground;
