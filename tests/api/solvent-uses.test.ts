@@ -62,6 +62,7 @@ describe("solvent use", () => {
     expect(cleaner.vocMass.kg).toBeCloseTo(1.38, 12);
     expect(log.solventUses).toHaveLength(1);
     const csv = (await s.as("owner").get("/api/compliance/export.csv?from=2026-10-01&to=2026-10-31")).text;
-    expect(csv).toMatch(/^S\d+,2026-10-15T10:00:00.000Z,,,T-WG-1 Test wax and grease remover,solvent: surface_prep,2,/m);
+    // 2 L is 0.528344 US gal (1 gal = 3.785411784 L, NIST HB44), written to the mL: 2.000 L, 0.5283 gal.
+    expect(csv).toMatch(/^S\d+,2026-10-15T10:00:00.000Z,,,T-WG-1 Test wax and grease remover,solvent: surface_prep,2.000,0.5283,/m);
   });
 });
