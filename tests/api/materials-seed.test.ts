@@ -10,8 +10,11 @@ describe("demo catalogue, plans and batches", () => {
     const ctx = await seedDemo(t.db);
     const catalogue = t.db.select().from(materials).all();
     expect(catalogue.length).toBeGreaterThanOrEqual(25);
-    // Shop-made codes only, and the hazard flags where the cautions need them.
-    expect(catalogue.every((m) => /^HC-[A-Z]{2}-\d{2}$/.test(m.code))).toBe(true);
+    // The shop's own stock numbers (shelf and bin, "S4-B02"), never a maker-style letters-type-number code; one shelf per
+    // group of categories, and the hazard flags where the cautions need them.
+    expect(catalogue.every((m) => /^S[1-7]-B\d{2}$/.test(m.code))).toBe(true);
+    expect(catalogue.some((m) => /^[A-Z]{2}-[A-Z]{2}-\d+$/.test(m.code))).toBe(false);
+    expect(new Set(catalogue.filter((m) => m.category === "toner").map((m) => m.code.slice(0, 2)))).toEqual(new Set(["S4"]));
     expect(catalogue.filter((m) => m.category === "hardener").every((m) => m.containsIsocyanates)).toBe(true);
     expect(catalogue.filter((m) => m.category === "reducer").every((m) => m.flammable)).toBe(true);
     expect(t.db.select().from(materialLots).all().every((l) => l.quantityOnHand >= 0)).toBe(true);

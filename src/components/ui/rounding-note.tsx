@@ -14,7 +14,7 @@ export type RoundingNoteProps = {
   exactTotal?: number;
   roundedTotal?: number;
   raisedFromZero?: string[];
-  /** Display names by component name (e.g. "CL-20 Intercoat clear"). */
+  /** Display names by component name (e.g. "S5-B02 Intercoat clear"). */
   names?: Record<string, string>;
 };
 
