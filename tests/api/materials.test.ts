@@ -49,8 +49,9 @@ describe("materials catalogue", () => {
     expect(res.status).toBe(200);
     const entry = s.db.select().from(auditLog).all().find((a) => a.action === "cost_changed")!;
     expect(entry).toMatchObject({ kind: "money", entity: "material", entityId: String(id), userId: s.estimator.id });
-    expect(entry.before).toEqual({ costCents: 5400 });
-    expect(entry.after).toEqual({ costCents: 5900 });
+    // The stock number and name are kept on both sides so the trail names the material in words.
+    expect(entry.before).toEqual({ code: "S9-B11", name: "Urethane sealer, grey", costCents: 5400 });
+    expect(entry.after).toEqual({ code: "S9-B11", name: "Urethane sealer, grey", costCents: 5900 });
   });
 
   it("shows hazard cautions from the flags and lists low stock", async () => {
