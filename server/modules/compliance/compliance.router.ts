@@ -6,6 +6,7 @@ import { toCsv } from "../../http/csv";
 import { complianceQuerySchema } from "../../../shared/schemas/compliance.schema";
 import { complianceLog } from "./compliance.service";
 import { convertMass, convertVolume, gPerLToLbPerGal } from "../../../shared/mix/index";
+import { sendFile } from "../../http/send-file";
 
 /**
  * The file's columns, units in each name, and the decimals each is measured to: volumes to the millilitre
@@ -64,9 +65,8 @@ export function complianceRouter(deps: AppDeps) {
     for (const u of log.solventUses) {
       rows.push([`S${u.id}`, u.usedAt, u.jobId ?? "", u.jobTitle ?? "", `${u.materialCode} ${u.materialName}`, `solvent: ${u.purpose}`, u.volumeMl / 1000, convertVolume(u.volumeMl, "mL", "gallon"), u.vocGPerL ?? "", u.vocGPerL != null ? gPerLToLbPerGal(u.vocGPerL) : "", u.vocKg, convertMass(u.vocKg, "kg", "lb"), "", "no"]);
     }
-    res.type("text/csv; charset=utf-8");
-    res.setHeader("Content-Disposition", `attachment; filename="voc-log-${q.from}-to-${q.to}.csv"`);
-    res.send(toCsv([[...CSV_COLUMNS], ...rows.map((row) => row.map((v, i) => cell(CSV_COLUMNS[i]!, v)))]));
+    const data = toCsv([[...CSV_COLUMNS], ...rows.map((row) => row.map((v, i) => cell(CSV_COLUMNS[i]!, v)))]);
+    sendFile(res, { data, mime: "text/csv; charset=utf-8", name: `voc-log-${q.from}-to-${q.to}.csv`, disposition: "attachment", kept: "generated" });
   });
   return r;
 }

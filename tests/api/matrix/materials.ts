@@ -1,7 +1,7 @@
 import { office, staff, type MatrixRows } from "./rows";
 import { fx, TINY_PDF } from "../../support/finish-fixtures";
 import { storeFile } from "../../../server/modules/uploads/storage";
-import { addFile } from "../../../server/modules/materials/materials.service";
+import { addFile } from "../../../server/modules/materials/material-files.service";
 import type { Shop } from "../../support/test-app";
 
 /** Stores a safety data sheet on the clear, for the file read/delete rows. */

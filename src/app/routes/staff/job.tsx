@@ -1,5 +1,5 @@
 import { useState } from "react";
-import { useNavigate, useParams } from "react-router";
+import { useNavigate } from "react-router";
 import { useQuery } from "@tanstack/react-query";
 import { ClipboardList, Pencil, Trash2 } from "lucide-react";
 import { roleCan } from "@shared/domain/roles";
@@ -31,11 +31,10 @@ import { PhotoPanel } from "@/features/uploads/components/photo-panel";
 import { JobMessagesPanel } from "@/features/quotes/components/job-messages-panel";
 import { JobQuotesPanel } from "@/features/quotes/components/job-quotes-panel";
 import { InPageNotFound } from "../in-page-not-found";
+import { useIdParam } from "@/hooks/use-id-param";
 
 export default function JobRoute() {
-  const { jobId } = useParams();
-  const id = Number(jobId);
-  const valid = Number.isInteger(id) && id > 0;
+  const { id, valid } = useIdParam("jobId");
   const { data: job, error, isPending } = useQuery({ ...jobQueries.detail(id), enabled: valid });
 
   if (!valid || (isApiError(error) && (error.status === 404 || error.status === 400)))

@@ -1,6 +1,6 @@
 import { formatMinutes } from "@shared/domain/duration";
 import { useState, type ReactNode } from "react";
-import { useNavigate, useParams } from "react-router";
+import { useNavigate } from "react-router";
 import { useQuery } from "@tanstack/react-query";
 import { Pencil, Trash2 } from "lucide-react";
 import { roleCan } from "@shared/domain/roles";
@@ -26,11 +26,10 @@ import { LotsPanel } from "@/features/materials/components/lots-panel";
 import { MaterialForm } from "@/features/materials/components/material-form";
 import { HazardIcons } from "@/features/materials/components/materials-catalogue";
 import { InPageNotFound } from "../in-page-not-found";
+import { useIdParam } from "@/hooks/use-id-param";
 
 export default function MaterialRoute() {
-  const { materialId } = useParams();
-  const id = Number(materialId);
-  const valid = Number.isInteger(id) && id > 0;
+  const { id, valid } = useIdParam("materialId");
   const { data, error, isPending } = useQuery({ ...materialQueries.detail(id), enabled: valid });
   if (!valid || (isApiError(error) && (error.status === 404 || error.status === 400)))
     return <InPageNotFound what="Material" backTo={paths.materials} backLabel="Back to materials" />;

@@ -1,5 +1,5 @@
 import { useState } from "react";
-import { Link, useNavigate, useParams } from "react-router";
+import { Link, useNavigate } from "react-router";
 import { useQuery } from "@tanstack/react-query";
 import { Copy, Lock, Pencil, Trash2 } from "lucide-react";
 import { roleCan } from "@shared/domain/roles";
@@ -19,11 +19,10 @@ import { useCurrentUser } from "@/features/auth/hooks/use-current-user";
 import { planQueries, useCopyAsTemplate, useDeletePlan } from "@/features/plans/api/plans.queries";
 import { PlanLayersView } from "@/features/plans/components/plan-layers-view";
 import { InPageNotFound } from "../in-page-not-found";
+import { useIdParam } from "@/hooks/use-id-param";
 
 export default function PlanRoute() {
-  const { planId } = useParams();
-  const id = Number(planId);
-  const valid = Number.isInteger(id) && id > 0;
+  const { id, valid } = useIdParam("planId");
   const { data, error, isPending } = useQuery({ ...planQueries.detail(id), enabled: valid });
   if (!valid || (isApiError(error) && (error.status === 404 || error.status === 400))) return <InPageNotFound what="Plan" backTo={paths.plans} backLabel="Back to plans" />;
   if (isPending || !data) return <Spinner label="Loading the plan…" />;
