@@ -292,7 +292,7 @@ export const QUOTE_LINE_KIND_HINT: Record<QuoteLineKind, string> = {
   labour: "Hours × rate",
   materials: "Cost plus markup",
   supplies: "Percent of labour, or a fixed amount",
-  sublet: "Work bought in (plating, upholstery…)",
+  sublet: "Work done for the job by another shop (plating, upholstery…)",
   discount: "Percent of the charges, or a fixed amount",
 };
 

@@ -149,7 +149,7 @@ export function createMaterial(deps: AppDeps, ctx: RequestContext, input: Create
       })
       .returning()
       .get();
-    recordAudit(tx, ctx, { kind: "money", entity: "material", entityId: row.id, action: "created", after: { code: row.code, costCents: row.costCents, purchaseUnit: row.purchaseUnit } }, now);
+    recordAudit(tx, ctx, { kind: "money", entity: "material", entityId: row.id, action: "created", after: { code: row.code, name: row.name, costCents: row.costCents, purchaseUnit: row.purchaseUnit } }, now);
     return row.id;
   });
   return getMaterial(deps, ctx.actor, id);
@@ -176,8 +176,9 @@ export function updateMaterial(deps: AppDeps, ctx: RequestContext, id: number, i
           entity: "material",
           entityId: id,
           action: "cost_changed",
-          before: { costCents: before.costCents, purchaseUnit: before.purchaseUnit },
-          after: { costCents: set.costCents ?? before.costCents, purchaseUnit: set.purchaseUnit ?? before.purchaseUnit },
+          before: { code: before.code, name: before.name, costCents: before.costCents, purchaseUnit: before.purchaseUnit },
+          after: { code: set.code ?? before.code, name: set.name ?? before.name, costCents: set.costCents ?? before.costCents, purchaseUnit: set.purchaseUnit ?? before.purchaseUnit },
+          keep: ["code", "name"],
         },
         now,
       );
@@ -206,7 +207,7 @@ export function deleteMaterial(deps: AppDeps, ctx: RequestContext, id: number) {
   deps.db.transaction((tx) => {
     tx.delete(uploads).where(and(eq(uploads.ownerType, "material"), eq(uploads.ownerId, id))).run();
     tx.delete(materials).where(eq(materials.id, id)).run();
-    recordAudit(tx, ctx, { kind: "money", entity: "material", entityId: id, action: "deleted", before: { code: row.code, costCents: row.costCents } }, now);
+    recordAudit(tx, ctx, { kind: "money", entity: "material", entityId: id, action: "deleted", before: { code: row.code, name: row.name, costCents: row.costCents } }, now);
   });
   removeStored(deps.uploadsDir, ...files.flatMap((f) => [f.s, f.t]));
 }

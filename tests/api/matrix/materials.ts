@@ -13,7 +13,7 @@ async function withFile(s: Shop) {
 }
 const fileId = (s: Shop) => (s as Shop & { fileId?: number }).fileId;
 
-const newMaterial = () => ({ code: "T-SL-05", name: "Test sealer, grey", category: "sealer", purchaseUnit: "quart", costCents: 5400, volumeSolidsPct: 48 });
+const newMaterial = () => ({ code: "S9-B12", name: "Test sealer, grey", category: "sealer", purchaseUnit: "quart", costCents: 5400, volumeSolidsPct: 48 });
 
 export const rows: MatrixRows = {
   "GET /api/materials": { prepare: fx, path: () => "/api/materials", expect: staff(200) },

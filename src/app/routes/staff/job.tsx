@@ -111,13 +111,8 @@ function JobPage({ job }: { job: JobDetailDto }) {
 }
 
 function EditJobDialog({ job, onClose }: { job: JobDetailDto; onClose: () => void }) {
-  const customers = useQuery(customerQueries.options());
   const painters = useQuery(userQueries.painters());
   const update = useUpdateJob(job.id);
-  const customerOptions = customers.data?.options ?? [];
-  const withCurrent = customerOptions.some((c) => c.id === job.customerId)
-    ? customerOptions
-    : [{ id: job.customerId, name: job.customerName }, ...customerOptions];
   const painterOptions = painters.data ?? [];
   const painterList =
     job.assignedPainterId && !painterOptions.some((p) => p.id === job.assignedPainterId)
@@ -126,11 +121,12 @@ function EditJobDialog({ job, onClose }: { job: JobDetailDto; onClose: () => voi
 
   return (
     <Dialog title={`Edit job #${job.id}`} onClose={onClose} size="lg">
-      {customers.isPending || painters.isPending ? (
+      {painters.isPending ? (
         <Spinner />
       ) : (
         <JobForm
-          customers={withCurrent}
+          customerSearch={customerQueries.search}
+          customerName={job.customerName}
           painters={painterList}
           defaultValues={{
             customerId: String(job.customerId),
