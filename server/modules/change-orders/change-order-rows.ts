@@ -172,7 +172,7 @@ export function changeDue(db: Db, changeOrderId: number) {
     .from(payments)
     .where(and(eq(payments.changeOrderId, changeOrderId), or(eq(payments.flagged, false), isNotNull(payments.reviewedAt))))
     .get();
-  return { status: c.status, depositCents: Math.max(0, t.depositCents), paidCents: Number(row?.n ?? 0) };
+  return { status: c.status, totalCents: t.totalCents, depositCents: Math.max(0, t.depositCents), paidCents: Number(row?.n ?? 0) };
 }
 
 export const totalsOfChange = (c: Pick<ChangeOrderRow, "lines" | "taxPercent" | "taxedKinds" | "depositPercent" | "taxRounding">) =>
