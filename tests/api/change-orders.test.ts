@@ -63,7 +63,7 @@ describe("change orders: the shop's side", () => {
     expect(sent.status).toBe(200);
     expect(sent.body).toMatchObject({ status: "sent", sentTo: "avery.stone@example.test" });
     expect(s.sent.at(-1)!.subject).toBe("A change to your job needs your answer: Helmet in candy teal");
-    expect(s.sent.at(-1)!.text).toContain(`/portal/change-orders/${change.id}?token=`);
+    expect(s.sent.at(-1)!.text).toMatch(new RegExp(`/portal/link/[^\\s]+\\?change=${change.id}`));
     expect(s.sent.at(-1)!.text).toContain("adds $190.00 to the price");
     expect(s.db.select().from(jobMessages).where(eq(jobMessages.kind, "change_order")).all()).toHaveLength(1);
     // A sent change order is the customer's to answer.

@@ -9,6 +9,7 @@ import type { PortalViewer } from "../portal/portal.service";
 import { awaitsReview } from "../payments/payment-review";
 import { closeOpenCheckouts, queueOf } from "../payments/checkout.service";
 import { requirePayments, upstream } from "../payments/provider-calls";
+import { portalLinkPath } from "../portal/portal-link";
 import { approvedQuoteOf, onTimeline, type ChangeOrderRow } from "./change-order-rows";
 import { toChangeOrderDto } from "./change-orders.service";
 import { formatCents } from "../../../shared/quote/index";
@@ -143,8 +144,7 @@ async function openCheckout(deps: AppDeps, viewer: PortalViewer, id: number): Pr
   await closeOpenCheckouts(deps, c.quoteId, id);
   const dto = payable(deps, viewer, id);
   const amount = dto.money!.depositCents - dto.money!.paidCents;
-  const page = `/portal/change-orders/${id}`;
-  const back = viewer.via === "link" ? `${deps.publicUrl}${page}?token=${encodeURIComponent(viewer.token)}&` : `${deps.publicUrl}${page}?`;
+  const back = viewer.via === "link" ? `${deps.publicUrl}${portalLinkPath(viewer.token)}?change=${id}&` : `${deps.publicUrl}/portal/change-orders/${id}?`;
   const email = deps.db.select({ email: customers.email }).from(customers).where(eq(customers.id, viewer.customerId)).get()?.email;
   const shop = getSettings(deps);
   let session: Stripe.Checkout.Session;

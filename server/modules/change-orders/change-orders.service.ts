@@ -173,8 +173,8 @@ export async function sendChangeOrder(deps: AppDeps, ctx: RequestContext, id: nu
   const to = input.to ?? customer.email;
   if (!to) throw badRequest("The customer has no e-mail address on file; enter one to send to", { to: "Enter an e-mail address" });
   const approved = approvedQuoteOf(deps.db, job.id);
-  const token = approved ? quoteLink(deps, approved.quoteId, approved.validUntil).token : null;
-  const link = `${deps.publicUrl}/portal/change-orders/${id}${token ? `?token=${encodeURIComponent(token)}` : ""}`;
+  // The signed quote link opens the change order too (no sign-in needed); a signed-in customer finds it in the portal.
+  const link = approved ? `${quoteLink(deps, approved.quoteId, approved.validUntil).url}?change=${id}` : `${deps.publicUrl}/portal/change-orders/${id}`;
   const t = totalsOfChange(c);
   const mail = composeChangeOrderMail({ shop: getSettings(deps), customerName: customer.name, jobTitle: job.title, changeOrderId: id, summary: c.summary, totalCents: t.totalCents, depositCents: Math.max(0, t.depositCents), colourChanged: c.colourChanged, link, message: input.message ?? null });
   await sendAndLog(deps, { jobId: job.id, kind: "change_order", sentBy: ctx.actor.id }, { to, ...mail });
