@@ -29,7 +29,7 @@ export function JobChangeOrdersPanel({ jobId, canEdit, labourRateCents }: { jobI
                 {co.decisionNote ? `: “${co.decisionNote}”` : ""}
               </p>
             ) : null}
-            {canEdit && co.status === "draft" ? <ChangeOrderDraftForm co={co} labourRateCents={labourRateCents} /> : null}
+            {canEdit && co.status === "draft" ? <ChangeOrderDraftForm key={labourRateCents} co={co} labourRateCents={labourRateCents} /> : null}
           </li>
         ))}
       </ul>
