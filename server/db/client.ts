@@ -6,6 +6,9 @@ import * as schema from "./schema";
 
 export type Db = BetterSQLite3Database<typeof schema> & { $client: Database.Database };
 
+/** The database or a transaction on it: what a helper that reads and writes inside someone's transaction takes. */
+export type Tx = Pick<Db, "select" | "insert" | "update" | "delete">;
+
 export const MIGRATIONS_FOLDER = fileURLToPath(new URL("../../drizzle", import.meta.url));
 
 /** Opens (or creates) the SQLite file with WAL and foreign keys on. Pass ":memory:" for a throwaway db, or a

@@ -1,6 +1,6 @@
 import Stripe from "stripe";
 
-/** How to reach the card-payment provider: the real service, or the local stand-in (server/stand-ins/payments.ts). */
+/** How to reach the card-payment provider: the real service, or the local stand-in (server/stand-ins/payments/). */
 export type PaymentsConfig = {
   secretKey: string;
   webhookSecret: string;

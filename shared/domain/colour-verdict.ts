@@ -1,13 +1,15 @@
 /**
- * Plain-words reading of a CIEDE2000 difference between a panel and the approved one. The thresholds are the
- * shop's own (settings deltaEMatch / deltaEClose): below `match` reads "match", below `close` reads "close".
+ * Plain-words reading of a CIEDE2000 difference between a panel and the approved one, against the shop's own
+ * colour tolerance (settings deltaEMatch) and its outer limit (settings deltaEClose): under the tolerance reads
+ * "within tolerance", under the outer limit "borderline", otherwise "out of tolerance". The stored keys stay
+ * match / close / different; only what people read is worded here.
  */
 export type ColourVerdict = "match" | "close" | "different";
 
 export const COLOUR_VERDICT_LABELS: Record<ColourVerdict, string> = {
-  match: "Match",
-  close: "Close",
-  different: "Different",
+  match: "Within tolerance",
+  close: "Borderline",
+  different: "Out of tolerance",
 };
 
 export function colourVerdict(deltaE: number, thresholds: { deltaEMatch: number; deltaEClose: number }): ColourVerdict {
@@ -16,11 +18,16 @@ export function colourVerdict(deltaE: number, thresholds: { deltaEMatch: number;
   return "different";
 }
 
-/** One sentence for the screen, e.g. "Close: ΔE00 1.26 (under 2.0, at or over 1.0)". */
+/** The short badge text, e.g. "Within tolerance (ΔE00 0.91)". */
+function colourVerdictLabel(deltaE: number, verdict: ColourVerdict): string {
+  return `${COLOUR_VERDICT_LABELS[verdict]} (ΔE00 ${deltaE.toFixed(2)})`;
+}
+
+/** One sentence for the screen, e.g. "Borderline (ΔE00 1.26): over the shop's tolerance of 1, under its outer limit of 2". */
 export function colourVerdictText(deltaE: number, thresholds: { deltaEMatch: number; deltaEClose: number }): string {
   const v = colourVerdict(deltaE, thresholds);
-  const d = deltaE.toFixed(2);
-  if (v === "match") return `Match: ΔE00 ${d}, under the shop's match limit of ${thresholds.deltaEMatch}`;
-  if (v === "close") return `Close: ΔE00 ${d}, under the shop's close limit of ${thresholds.deltaEClose} but not a match`;
-  return `Different: ΔE00 ${d}, at or over the shop's close limit of ${thresholds.deltaEClose}`;
+  const head = colourVerdictLabel(deltaE, v);
+  if (v === "match") return `${head}: under the shop's tolerance of ${thresholds.deltaEMatch}`;
+  if (v === "close") return `${head}: over the shop's tolerance of ${thresholds.deltaEMatch}, under its outer limit of ${thresholds.deltaEClose}`;
+  return `${head}: at or over the shop's outer limit of ${thresholds.deltaEClose}`;
 }

@@ -13,9 +13,9 @@ export type WordedComponent = {
 
 export type ComponentWords = {
   label: string;
-  /** "CL-20 Intercoat clear": components are named by material, since a label such as "clear" can mean two products. */
+  /** "S5-B02 Intercoat clear": components are named by material, since a label such as "clear" can mean two products. */
   material: string;
-  /** "2 parts", or "10 % of CL-20 Intercoat clear" (what the percent is of, by material, exactly as the plan gives it). */
+  /** "2 parts", or "10 % of S5-B02 Intercoat clear" (what the percent is of, by material, exactly as the plan gives it). */
   amount: string;
   /** Share of the ready-to-spray mix, in % (null when the mix does not resolve). */
   readyPct: number | null;
@@ -46,7 +46,7 @@ export function mixComponentWords(components: readonly WordedComponent[]): Compo
 
 /**
  * The whole mix in one line, e.g.
- * "IC-10 Intercoat clear 1 part, RD-2 Reducer 1 part, TN-4 Candy toner 10 % of IC-10 Intercoat clear
+ * "S5-B01 Intercoat clear 1 part, S6-B02 Reducer 1 part, S4-B04 Candy toner 10 % of S5-B01 Intercoat clear
  *  (ready to spray: 47.62 % / 47.62 % / 4.76 %)".
  */
 export function mixSentence(components: readonly WordedComponent[]): string {

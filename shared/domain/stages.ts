@@ -69,5 +69,12 @@ export function nextStagesFor(role: Role, from: Stage): Stage[] {
   return [];
 }
 
-/** Stages that count as open work (shown on the board and in "due" lists). */
-export const OPEN_STAGES: readonly Stage[] = STAGES.filter((s) => s !== "delivered" && s !== "cancelled");
+/** Stages where a job's life is over: collected, or not going ahead. */
+export const CLOSED_STAGES: readonly Stage[] = ["delivered", "cancelled"];
+export const isClosedStage = (stage: Stage) => CLOSED_STAGES.includes(stage);
+
+/** Stages that count as open work: the board's open columns, the jobs table's default filter, the portal's current jobs. */
+export const OPEN_STAGES: readonly Stage[] = STAGES.filter((s) => !isClosedStage(s));
+
+/** Open stages where a due date still means work to do (a ready job waits for its customer): the overdue and this-week lists. */
+export const DUE_STAGES: readonly Stage[] = OPEN_STAGES.filter((s) => s !== "ready");

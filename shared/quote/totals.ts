@@ -11,7 +11,7 @@ import { mulDivRoundHalfUp, percentOfCents, toUnits } from "./money";
  *
  * Order of work:
  *  1. line amounts: labour = hours × rate; materials = cost + markup % of cost; supplies = fixed, or percent of
- *     the labour total; sublet = amount; discount = fixed, or percent of everything above (the gross);
+ *     the labour total; sublet (shown as "Outside work") = amount; discount = fixed, or percent of everything above (the gross);
  *  2. subtotal = gross − discounts;
  *  3. the discount lowers the taxed base in proportion: taxed share = discount × taxed gross / gross (rounded);
  *  4. tax = tax % of the taxed base (invoice) or the sum of tax % of each taxed line less tax % of the taxed share
@@ -30,7 +30,7 @@ export const QUOTE_LINE_KIND_LABELS: Record<QuoteLineKind, string> = {
   labour: "Labour",
   materials: "Materials",
   supplies: "Shop supplies",
-  sublet: "Sublet",
+  sublet: "Outside work",
   discount: "Discount",
 };
 

@@ -38,7 +38,7 @@ export const MAX_MATERIAL_COST_CENTS = 10_000_000;
 export const materialCategorySchema = z.enum(MATERIAL_CATEGORIES, { error: `Category must be one of: ${MATERIAL_CATEGORIES.join(", ")}` });
 export const purchaseUnitSchema = z.enum(PURCHASE_UNITS, { error: `Unit must be one of: ${PURCHASE_UNITS.join(", ")}` });
 
-/** The shop's own code: letters, digits and dashes, e.g. "HC-CL-20". */
+/** The shop's own code: letters, digits and dashes, e.g. "S5-B02". */
 export const materialCodeSchema = z
   .string({ error: "Code is required" })
   .trim()

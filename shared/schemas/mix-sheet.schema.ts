@@ -76,7 +76,7 @@ export type MixSheetLineDto = {
   plannedMl: number;
   /** Fraction of the ready-to-spray batch. */
   share: number;
-  /** The amount as the plan gives it, saying what a percent is of: "1 part", "10 % of IC-10 Intercoat clear". */
+  /** The amount as the plan gives it, saying what a percent is of: "1 part", "10 % of S5-B01 Intercoat clear". */
   asPlanned: string | null;
   /** Weight on a scale (when the material has a density). */
   grams: number | null;

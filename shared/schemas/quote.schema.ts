@@ -3,6 +3,7 @@ import { fromDigits, idSchema, isoDateSchema, optionalText, requiredText, versio
 import { pageQuerySchema, sortSchema } from "../api/pagination";
 import { hasAtMostDecimals } from "../quote/money";
 import type { PortalInspectionDto } from "./inspection.schema";
+import type { Stage } from "../domain/stages";
 import { QUOTE_LINE_KINDS, TAXABLE_KINDS, type QuoteLine, type QuoteLineKind, type QuoteTotals, type TaxableKind, type TaxRounding } from "../quote/totals";
 
 /** What a quote shows as its status. `expired` is never stored: a sent quote past its valid-until date reads as expired. */
@@ -256,7 +257,7 @@ export type PortalPhotoDto = { id: number; caption: string | null; url: string; 
 export type PortalJobDto = {
   id: number;
   title: string;
-  stage: string;
+  stage: Stage;
   dueDate: string | null;
   items: { name: string; substrate: string; surfaceArea: number; areaUnit: string }[];
   finishText: string | null;
@@ -291,7 +292,7 @@ export const QUOTE_LINE_KIND_HINT: Record<QuoteLineKind, string> = {
   labour: "Hours × rate",
   materials: "Cost plus markup",
   supplies: "Percent of labour, or a fixed amount",
-  sublet: "Work bought in (plating, upholstery…)",
+  sublet: "Work done for the job by another shop (plating, upholstery…)",
   discount: "Percent of the charges, or a fixed amount",
 };
 

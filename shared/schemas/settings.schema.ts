@@ -45,7 +45,7 @@ export const shopSettingsSchema = z.object({
   pressureUnit: z.enum(PRESSURE_UNITS, { error: "Pressure unit must be psi or bar" }),
   tempUnit: z.enum(TEMP_UNITS, { error: "Temperature unit must be C or F" }),
   massUnit: z.enum(SCALE_UNITS, { error: "Scale unit must be g or oz" }),
-  /** Colour-difference verdicts for test panels: ΔE00 below `match` reads "match", below `close` "close". */
+  /** The shop's colour tolerance for test panels: ΔE00 below `deltaEMatch` is within tolerance, below `deltaEClose` borderline. */
   deltaEMatch: z.coerce.number().positive().max(20),
   deltaEClose: z.coerce.number().positive().max(50),
   vocLimits: z

@@ -13,7 +13,7 @@ import { batchShortfall, withWasteAllowance } from "../../shared/domain/batch-si
  */
 async function jobWithCandy() {
   const s = await makeShop();
-  const clear = addMaterial(s, { code: "T-IC-8", name: "Test intercoat", category: "intercoat_clear", purchaseUnit: "gallon", costCents: 10000, volumeSolidsPct: 50, vocGPerL: 600 });
+  const clear = addMaterial(s, { code: "S9-B09", name: "Test intercoat", category: "intercoat_clear", purchaseUnit: "gallon", costCents: 10000, volumeSolidsPct: 50, vocGPerL: 600 });
   const plan = (await s.as("estimator").post(`/api/jobs/${s.jobA.id}/plan`).send({})).body;
   const layer = (kind: string, name: string) => ({ kind, name, coats: 2, flashMinutes: 10, dryMinutes: 30, dryFilmPerCoat: 25, dryFilmUnit: "um", transferEfficiencyPct: 50, components: [{ materialId: clear.id, label: "clear", parts: 1 }] });
   const saved = await s.as("estimator").put(`/api/plans/${plan.id}`).send({ name: "Candy", version: plan.version, layers: [layer("candy", "Candy red"), layer("intercoat_clear", "Intercoat")] });

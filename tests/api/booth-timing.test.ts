@@ -167,8 +167,8 @@ describe("timing rules on POST /api/coat-logs", () => {
 describe("induction and recoat figures from the catalogue", () => {
   it("a plan layer takes them from its materials' data sheets unless the plan gives its own", async () => {
     const s = await makeShop();
-    const sealer = addMaterial(s, { code: "T-SL-9", name: "Test epoxy sealer", category: "sealer", purchaseUnit: "quart", costCents: 5000, inductionMinutes: 10, recoatMinMinutes: 30, recoatMaxMinutes: 4320 });
-    const activator = addMaterial(s, { code: "T-AC-9", name: "Test activator", category: "hardener", purchaseUnit: "pint", costCents: 3000, inductionMinutes: 20, recoatMinMinutes: 15, recoatMaxMinutes: 1440 });
+    const sealer = addMaterial(s, { code: "S9-B14", name: "Test epoxy sealer", category: "sealer", purchaseUnit: "quart", costCents: 5000, inductionMinutes: 10, recoatMinMinutes: 30, recoatMaxMinutes: 4320 });
+    const activator = addMaterial(s, { code: "S9-B01", name: "Test activator", category: "hardener", purchaseUnit: "pint", costCents: 3000, inductionMinutes: 20, recoatMinMinutes: 15, recoatMaxMinutes: 1440 });
     expect(sealer).toMatchObject({ inductionMinutes: 10, recoatMinMinutes: 30, recoatMaxMinutes: 4320 });
     const layer = (extra: object = {}) => ({
       kind: "sealer",

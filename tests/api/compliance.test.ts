@@ -1,5 +1,6 @@
 import { describe, expect, it } from "vitest";
 import { parse } from "csv-parse/sync";
+import { CSV_DECIMALS } from "../../server/modules/compliance/compliance.router";
 import { editAt, makeShop, type Shop } from "../support/test-app";
 import { addMixedBatch } from "../support/batches";
 import { lbPerGalToGPerL } from "../../shared/mix/index";
@@ -84,7 +85,7 @@ describe("compliance log", () => {
     expect(res.body.batches[0]).toMatchObject({ limitGPerL: null, overLimit: false });
   });
 
-  it("exports the batch log as CSV that parses back to the same numbers", async () => {
+  it("exports the batch log as CSV: each figure to the decimals it is measured to, units in the header", async () => {
     const s = await shopWithLimits();
     enamelAndThinner(s, new Date(2026, 10, 3, 9), "clear");
     addMixedBatch(s, s.jobB.id, { layerKind: "ground_coat", mixedAt: new Date(2026, 10, 4, 9), lines: [{ ml: 500, vocGPerL: 333.3, category: "ground_coat" }] });
@@ -94,12 +95,23 @@ describe("compliance log", () => {
     expect(csv.headers["content-type"]).toMatch(/text\/csv/);
     const rows: Record<string, string>[] = parse(csv.text, { columns: true });
     expect(rows).toHaveLength(2);
+    expect(csv.text.split("\n")[0]).toBe("batch,mixed_at,job,job_title,layer,coating_category,volume_l,volume_gal,voc_g_per_l,voc_lb_per_gal,voc_kg,voc_lb,limit_g_per_l,over_limit");
+    // No raw floating-point tails such as 0.47317647299999993.
+    expect(csv.text).not.toMatch(/\d\.\d{6,}/);
     rows.forEach((row, i) => {
       const b = json.batches[i];
       expect(Number(row.batch)).toBe(b.id);
-      expect(Number(row.voc_g_per_l)).toBe(b.voc.gPerL);
-      expect(Number(row.voc_kg)).toBe(b.vocMass.kg);
-      expect(Number(row.volume_l)).toBe(b.volumeL);
+      // Volumes to the mL, VOC content to 0.1 g/L, VOC mass to the gram (CSV_DECIMALS); the same figures as the screen's, rounded.
+      expect(row.voc_g_per_l).toBe(b.voc.gPerL.toFixed(1));
+      expect(row.voc_kg).toBe(b.vocMass.kg.toFixed(3));
+      expect(row.volume_l).toBe(b.volumeL.toFixed(3));
+      expect(row.volume_gal).toBe(b.volumeGal.toFixed(4));
+      expect(row.voc_lb).toBe(b.vocMass.lb.toFixed(3));
+      expect(Math.abs(Number(row.voc_kg) - b.vocMass.kg)).toBeLessThanOrEqual(0.0005);
+      for (const [column, digits] of Object.entries(CSV_DECIMALS)) {
+        if (digits == null || row[column] === "") continue;
+        expect(row[column], column).toMatch(new RegExp(`^\\d+\\.\\d{${digits}}$`));
+      }
       expect(row.over_limit).toBe(b.overLimit ? "yes" : "no");
       expect(row.job_title).toBe(b.jobTitle);
     });

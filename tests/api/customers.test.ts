@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { addJob, makeShop, editAt } from "../support/test-app";
+import { addCustomer, addJob, makeShop, editAt } from "../support/test-app";
 
 describe("customers", () => {
   it("creates, edits and reads a customer, normalising the e-mail", async () => {
@@ -27,6 +27,23 @@ describe("customers", () => {
     expect(byJobs.body.items.find((c: { name: string }) => c.name === "Casey Nobody").jobCount).toBe(0);
     const found = await s.as("owner").get("/api/customers?q=aver");
     expect(found.body.items.map((c: { name: string }) => c.name)).toEqual(["Avery Stone"]);
+  });
+
+  it("the searchable pick list finds a customer past the first 100 by name or e-mail, one page at a time", async () => {
+    const s = await makeShop();
+    for (let i = 0; i < 120; i++) addCustomer(s, `Customer ${String(i).padStart(3, "0")}`);
+    const late = await s.as("estimator").post("/api/customers").send({ name: "Zora Quill", email: "zora@quill.test" });
+    // The old pick list loaded the first 100 by name: Zora was not in it.
+    const first100 = await s.as("estimator").get("/api/customers?pageSize=100&sort=name");
+    expect(first100.body.items.some((c: { id: number }) => c.id === late.body.id)).toBe(false);
+    expect(first100.body.total).toBe(124);
+    // What the picker asks for as the user types (src/features/customers/api/customers.queries.ts, search).
+    const typed = await s.as("estimator").get("/api/customers?pageSize=20&sort=name&q=zora");
+    expect(typed.body.items.map((c: { name: string }) => c.name)).toEqual(["Zora Quill"]);
+    expect((await s.as("estimator").get("/api/customers?pageSize=20&sort=name&q=quill.test")).body.total).toBe(1);
+    const page = await s.as("estimator").get("/api/customers?pageSize=20&sort=name&q=Customer");
+    expect(page.body).toMatchObject({ total: 120, pageSize: 20 });
+    expect(page.body.items).toHaveLength(20);
   });
 
   it("will not delete a customer with jobs (409) and deletes one without", async () => {

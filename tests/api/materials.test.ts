@@ -6,14 +6,14 @@ import { finishFixtures, keysOf, MONEY_KEY, TINY_PDF } from "../support/finish-f
 import { centsPerMl, mlToPurchaseUnit, purchaseUnitToMl } from "../../shared/domain/material-units";
 import { MAX_DOCUMENT_BYTES } from "../../server/modules/uploads/storage";
 
-const sealer = { code: "t-sl-02", name: "Urethane sealer, grey", category: "sealer", purchaseUnit: "quart", costCents: 5400, volumeSolidsPct: 48, vocGPerL: 240, densityGPerMl: 1.3 };
+const sealer = { code: "s9-b11", name: "Urethane sealer, grey", category: "sealer", purchaseUnit: "quart", costCents: 5400, volumeSolidsPct: 48, vocGPerL: 240, densityGPerMl: 1.3 };
 
 describe("materials catalogue", () => {
   it("the office adds a material (code upper-cased) and painters read it without any cost field; customers get 403", async () => {
     const s = await makeShop();
     const created = await s.as("estimator").post("/api/materials").send(sealer);
     expect(created.status).toBe(201);
-    expect(created.body).toMatchObject({ code: "T-SL-02", name: "Urethane sealer, grey", costCents: 5400, stockOnHand: 0, lowStock: false, cautions: [] });
+    expect(created.body).toMatchObject({ code: "S9-B11", name: "Urethane sealer, grey", costCents: 5400, stockOnHand: 0, lowStock: false, cautions: [] });
 
     const painter = await s.as("painter").get(`/api/materials/${created.body.id}`);
     expect(painter.status).toBe(200);
@@ -49,8 +49,9 @@ describe("materials catalogue", () => {
     expect(res.status).toBe(200);
     const entry = s.db.select().from(auditLog).all().find((a) => a.action === "cost_changed")!;
     expect(entry).toMatchObject({ kind: "money", entity: "material", entityId: String(id), userId: s.estimator.id });
-    expect(entry.before).toEqual({ costCents: 5400 });
-    expect(entry.after).toEqual({ costCents: 5900 });
+    // The stock number and name are kept on both sides so the trail names the material in words.
+    expect(entry.before).toEqual({ code: "S9-B11", name: "Urethane sealer, grey", costCents: 5400 });
+    expect(entry.after).toEqual({ code: "S9-B11", name: "Urethane sealer, grey", costCents: 5900 });
   });
 
   it("shows hazard cautions from the flags and lists low stock", async () => {
@@ -63,7 +64,7 @@ describe("materials catalogue", () => {
     expect(low.body.map((m: { code: string }) => m.code)).toEqual([]);
     await editAt(s, "owner", `/api/materials/${f.clear.id}/lots/${f.clearLot.id}`, { quantityOnHand: 0.75 }, { read: `/api/materials/${f.clear.id}`, pick: (b) => (b.lots as { id: number; version: number }[]).find((l) => l.id === f.clearLot.id)! });
     low = await s.as("painter").get("/api/materials/low-stock");
-    expect(low.body.map((m: { code: string }) => m.code)).toEqual(["T-CL-01"]);
+    expect(low.body.map((m: { code: string }) => m.code)).toEqual(["S9-B04"]);
     expect(low.body[0]).toMatchObject({ stockOnHand: 0.75, lowStock: true });
     expect(low.body[0]).not.toHaveProperty("costCents");
   });
@@ -75,8 +76,8 @@ describe("materials catalogue", () => {
     expect(inUse.status).toBe(409);
     await editAt(s, "owner", `/api/materials/${f.clear.id}`, { active: false });
     const codes = (await s.as("owner").get("/api/materials")).body.map((m: { code: string }) => m.code);
-    expect(codes).not.toContain("T-CL-01");
-    expect((await s.as("owner").get("/api/materials?includeInactive=true")).body.map((m: { code: string }) => m.code)).toContain("T-CL-01");
+    expect(codes).not.toContain("S9-B04");
+    expect((await s.as("owner").get("/api/materials?includeInactive=true")).body.map((m: { code: string }) => m.code)).toContain("S9-B04");
     expect((await s.as("owner").delete(`/api/materials/${f.spare.id}`)).status).toBe(204);
     expect((await s.as("owner").get(`/api/materials/${f.spare.id}`)).status).toBe(404);
   });

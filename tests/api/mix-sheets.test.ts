@@ -100,7 +100,7 @@ describe("making a mix sheet", () => {
     await editAt(s, "owner", `/api/materials/${f.reducer.id}`, { densityGPerMl: null });
     res = await s.as("owner").post("/api/mix-sheets").send({ jobId: s.jobA.id, layerId: f.layer.id, mode: "total", amount: 100, unit: "mL", weigh: true });
     expect(res.status).toBe(400);
-    expect(res.body.error.fields.weigh).toMatch(/T-RD-01/);
+    expect(res.body.error.fields.weigh).toMatch(/S9-B10/);
     expect((await s.as("customer").post("/api/mix-sheets").send({ jobId: s.jobA.id, layerId: f.layer.id, mode: "total", amount: 100, unit: "mL" })).status).toBe(403);
   });
 

@@ -39,7 +39,8 @@ describe("colour difference of a new panel against the job's approved one", () =
     const panel = await approvedPair(s, pair);
     expect(panel.vsApproved.deltaE).toBeCloseTo(SHARMA[pair].dE, 4);
     expect(panel.vsApproved.verdict).toBe(verdict);
-    expect(panel.vsApproved.text).toMatch(new RegExp(`^${verdict[0]!.toUpperCase()}${verdict.slice(1)}: ΔE00 ${SHARMA[pair].dE.toFixed(2)}`));
+    const words = { match: "Within tolerance", close: "Borderline", different: "Out of tolerance" }[verdict];
+    expect(panel.vsApproved.text).toMatch(new RegExp(`^${words} \\(ΔE00 ${SHARMA[pair].dE.toFixed(2)}\\): `));
   });
 
   it("is symmetric (Sharma pairs 7 and 8 give the same 2.3669)", async () => {
@@ -143,7 +144,7 @@ describe("the panel library", () => {
     expect(res.body.rungs.map((r: { panel: { coats: number } }) => r.panel.coats)).toEqual([3, 4, 5, 6]);
     expect(res.body.reference.tonerFraction).toBeCloseTo(1 / 9, 12); // 8:1 → f = 1/9 (references.md §6)
     const eq = res.body.rungs.map((r: { equivalentCoats: number }) => r.equivalentCoats);
-    // references.md §6 (Beer–Lambert, n₂ = n₁·f₁/f₂): 3 / 4 / 5 / 6 coats at 6:1 ≙ 3.857 / 5.142857 / 6.429 / 7.714 at 8:1.
+    // references.md §6 (Beer–Lambert, n₂ = n₁·f₁/f₂): 3 / 4 / 5 / 6 coats at 6:1 are as deep as 3.857 / 5.142857 / 6.429 / 7.714 at 8:1.
     expect(eq[1]).toBeCloseTo(5.142857, 6);
     expect(eq[1]).not.toBeCloseTo(5.333333, 3); // the common mistake (toner per part clear) must not match
     expect(eq[0]).toBeCloseTo(3.857, 3);

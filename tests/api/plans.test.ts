@@ -47,7 +47,7 @@ describe("plan templates", () => {
       [1, "Sealer"],
       [2, "Clear"],
     ]);
-    expect(layers[0].components[1]).toMatchObject({ label: "reducer", percent: 10, percentOf: ["sealer"], parts: null, materialCode: "T-RD-01", flammable: true });
+    expect(layers[0].components[1]).toMatchObject({ label: "reducer", percent: 10, percentOf: ["sealer"], parts: null, materialCode: "S9-B10", flammable: true });
     expect(layers[1].components.map((c: { label: string }) => c.label)).toEqual(["clear", "hardener", "reducer"]);
     // The clear layer uses an isocyanate hardener and a solvent reducer (shared/domain/safety.ts).
     expect(layers[1].cautions.map((c: { id: string }) => c.id)).toEqual(["isocyanates", "flammable", "defer"]);
@@ -215,7 +215,7 @@ describe("estimate", () => {
   it("metric areas, a 2:1:1 VOC and layers that cannot be estimated", async () => {
     const s = await makeShop();
     const f = finishFixtures(s);
-    const base = addMaterial(s, { code: "T-BS-01", name: "Test base", category: "ground_coat", purchaseUnit: "L", costCents: 8000, volumeSolidsPct: 50, vocGPerL: 500 });
+    const base = addMaterial(s, { code: "S9-B03", name: "Test base", category: "ground_coat", purchaseUnit: "L", costCents: 8000, volumeSolidsPct: 50, vocGPerL: 500 });
     const job = addJob(s, s.customerA.id, { title: "Metric job" });
     addItem(s, job.id, "Panel");
     s.db.update(jobItems).set({ surfaceArea: 2.3, areaUnit: "m2" }).where(eq(jobItems.jobId, job.id)).run();

@@ -140,6 +140,24 @@ describe("versions", () => {
     expect((await s.as("owner").get(`/api/quotes/${q.id}/versions/3`)).status).toBe(404);
   });
 
+  it("work bought in from another shop reads \"Outside work\" to people; the stored line kind stays \"sublet\"", async () => {
+    const s = await makeShop();
+    const q = await sentQuote(s);
+    const revised = await editAt(s, "estimator", `/api/quotes/${q.id}`, {
+      lines: [...SAMPLE_LINES, { kind: "sublet", description: "Chrome plating", amountCents: 20000 }],
+      taxedKinds: ["materials", "sublet"],
+    });
+    expect(revised.status).toBe(200);
+    expect(revised.body.current.lines.at(-1)).toMatchObject({ kind: "sublet", amountCents: 20000 });
+    expect((await s.as("estimator").post(`/api/quotes/${q.id}/send`).send({})).status).toBe(200);
+    const portal = await s.as("customer").get(`/api/portal/quotes/${q.id}`);
+    expect(portal.body.taxLabel).toBe("Sales tax (7.25 % on materials and outside work)");
+    const pdf = await s.as("estimator").get(`/api/quotes/${q.id}/pdf`).buffer(true).parse(binary);
+    const text = (await pdfText(pdf.body as Buffer)).replace(/\s+/g, " ");
+    expect(text).toContain("outside work");
+    expect(text).not.toMatch(/sublet/i);
+  });
+
   it("revise makes the next version explicitly; discard throws a draft away; a sent quote cannot be discarded", async () => {
     const s = await makeShop();
     const q = await sentQuote(s);

@@ -13,9 +13,9 @@ const T0 = Date.parse("2026-10-15T10:00:00Z");
 
 async function shop() {
   const s = await makeShop({ now: () => T0 });
-  const remover = addMaterial(s, { code: "T-WG-1", name: "Test wax and grease remover", category: "cleaner", purchaseUnit: "gallon", costCents: 3600, vocGPerL: 690, flammable: true });
-  const gunWash = addMaterial(s, { code: "T-GW-1", name: "Test gun wash", category: "cleaner", purchaseUnit: "gallon", costCents: 2000, vocGPerL: 880, waterExemptPct: 25 });
-  const clear = addMaterial(s, { code: "T-CL-1", name: "Test clear", category: "clear", purchaseUnit: "quart", costCents: 9000, vocGPerL: 400 });
+  const remover = addMaterial(s, { code: "S9-B16", name: "Test wax and grease remover", category: "cleaner", purchaseUnit: "gallon", costCents: 3600, vocGPerL: 690, flammable: true });
+  const gunWash = addMaterial(s, { code: "S9-B06", name: "Test gun wash", category: "cleaner", purchaseUnit: "gallon", costCents: 2000, vocGPerL: 880, waterExemptPct: 25 });
+  const clear = addMaterial(s, { code: "S9-B05", name: "Test clear", category: "clear", purchaseUnit: "quart", costCents: 9000, vocGPerL: 400 });
   return { s, remover, gunWash, clear };
 }
 
@@ -25,7 +25,7 @@ describe("solvent use", () => {
     const prep = await s.as("painter").post("/api/solvent-uses").send({ materialId: remover.id, jobId: s.jobA.id, purpose: "surface_prep", amount: 500, unit: "mL", note: "Tank and fenders" });
     expect(prep.status).toBe(201);
     // 690 g/L × 0.5 L = 345 g.
-    expect(prep.body).toMatchObject({ materialCode: "T-WG-1", category: "cleaner", jobId: s.jobA.id, purpose: "surface_prep", volumeMl: 500, vocGPerL: 690, usedAt: new Date(T0).toISOString(), loggedByName: "Test painter" });
+    expect(prep.body).toMatchObject({ materialCode: "S9-B16", category: "cleaner", jobId: s.jobA.id, purpose: "surface_prep", volumeMl: 500, vocGPerL: 690, usedAt: new Date(T0).toISOString(), loggedByName: "Test painter" });
     expect(prep.body.vocKg).toBeCloseTo(0.345, 12);
     const wash = await s.as("painter").post("/api/solvent-uses").send({ materialId: gunWash.id, purpose: "gun_cleaning", amount: 1, unit: "quart" });
     expect(wash.status).toBe(201);
@@ -33,7 +33,7 @@ describe("solvent use", () => {
     expect(wash.body.volumeMl).toBeCloseTo(946.352946, 6);
     expect(wash.body.vocKg).toBeCloseTo((880 * 0.946352946 * 0.75) / 1000, 9);
     const list = await s.as("painter").get("/api/solvent-uses?from=2026-10-01&to=2026-10-31");
-    expect(list.body.map((u: { materialCode: string }) => u.materialCode)).toEqual(["T-WG-1", "T-GW-1"]);
+    expect(list.body.map((u: { materialCode: string }) => u.materialCode)).toEqual(["S9-B16", "S9-B06"]);
   });
 
   it("refuses paint that is not a solvent, a job the painter does not reach, and bad figures, naming the field", async () => {
@@ -62,6 +62,7 @@ describe("solvent use", () => {
     expect(cleaner.vocMass.kg).toBeCloseTo(1.38, 12);
     expect(log.solventUses).toHaveLength(1);
     const csv = (await s.as("owner").get("/api/compliance/export.csv?from=2026-10-01&to=2026-10-31")).text;
-    expect(csv).toMatch(/^S\d+,2026-10-15T10:00:00.000Z,,,T-WG-1 Test wax and grease remover,solvent: surface_prep,2,/m);
+    // 2 L is 0.528344 US gal (1 gal = 3.785411784 L, NIST HB44), written to the mL: 2.000 L, 0.5283 gal.
+    expect(csv).toMatch(/^S\d+,2026-10-15T10:00:00.000Z,,,S9-B16 Test wax and grease remover,solvent: surface_prep,2.000,0.5283,/m);
   });
 });

@@ -45,4 +45,15 @@ describe("users (owner)", () => {
     expect(res.body.map((p: { id: string }) => p.id).sort()).toEqual([s.painter.id, s.painter2.id].sort());
     expect(Object.keys(res.body[0]).sort()).toEqual(["id", "name"]);
   });
+
+  it("searches people on the server by name or e-mail for the audit trail's who filter", async () => {
+    const s = await makeShop();
+    const res = await s.as("owner").post("/api/users").send({ email: "rowan.vale@shop.test", name: "Rowan Vale", role: "estimator", password: "a-long-password" });
+    expect(res.status).toBe(201);
+    const byName = await s.as("owner").get("/api/users?pageSize=20&sort=name&q=rowan");
+    expect(byName.body.items.map((u: { name: string }) => u.name)).toEqual(["Rowan Vale"]);
+    expect((await s.as("owner").get("/api/users?pageSize=20&sort=name&q=vale@shop")).body.total).toBe(1);
+    expect((await s.as("owner").get(`/api/users/${res.body.id}`)).body.name).toBe("Rowan Vale");
+    expect((await s.as("estimator").get("/api/users?q=rowan")).status).toBe(403);
+  });
 });

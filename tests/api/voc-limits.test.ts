@@ -13,9 +13,9 @@ import type { JobPlanDto } from "../../shared/schemas/plan.schema";
 async function candyJob() {
   const s = await makeShop();
   await editAt(s, "owner", "/api/settings", { vocLimits: [{ layerKind: "candy", limitGPerL: 630 }] });
-  const clear = addMaterial(s, { code: "T-IC-7", name: "Test intercoat", category: "intercoat_clear", purchaseUnit: "gallon", costCents: 1000, vocGPerL: 700, volumeSolidsPct: 20 });
-  const toner = addMaterial(s, { code: "T-TN-7", name: "Test toner", category: "toner", purchaseUnit: "pint", costCents: 1000, vocGPerL: 760, volumeSolidsPct: 30 });
-  const sealer = addMaterial(s, { code: "T-SL-7", name: "Test sealer", category: "sealer", purchaseUnit: "quart", costCents: 1000, vocGPerL: 900, volumeSolidsPct: 50 });
+  const clear = addMaterial(s, { code: "S9-B08", name: "Test intercoat", category: "intercoat_clear", purchaseUnit: "gallon", costCents: 1000, vocGPerL: 700, volumeSolidsPct: 20 });
+  const toner = addMaterial(s, { code: "S9-B15", name: "Test toner", category: "toner", purchaseUnit: "pint", costCents: 1000, vocGPerL: 760, volumeSolidsPct: 30 });
+  const sealer = addMaterial(s, { code: "S9-B13", name: "Test sealer", category: "sealer", purchaseUnit: "quart", costCents: 1000, vocGPerL: 900, volumeSolidsPct: 50 });
   const plan = (await s.as("estimator").post(`/api/jobs/${s.jobA.id}/plan`).send({})).body;
   const saved = await s
     .as("estimator")

@@ -64,12 +64,18 @@ describe("nextBoothStep", () => {
 
 describe("colour verdict", () => {
   const t = { deltaEMatch: 1, deltaEClose: 2 };
-  it("below match is a match, below close is close, otherwise different (limits are exclusive)", () => {
+  it("under the tolerance is within, under the outer limit borderline, otherwise out of tolerance (limits are exclusive)", () => {
     expect(colourVerdict(0.9082, t)).toBe("match"); // Sharma et al. 2005 pair 34
     expect(colourVerdict(1, t)).toBe("close");
     expect(colourVerdict(1.8731, t)).toBe("close"); // pair 27
     expect(colourVerdict(2, t)).toBe("different");
-    expect(colourVerdictText(1.2644, t)).toBe("Close: ΔE00 1.26, under the shop's close limit of 2 but not a match");
+    expect(colourVerdictText(1.2644, t)).toBe("Borderline (ΔE00 1.26): over the shop's tolerance of 1, under its outer limit of 2");
+    expect(colourVerdictText(0.9082, t)).toBe("Within tolerance (ΔE00 0.91): under the shop's tolerance of 1");
+    expect(colourVerdictText(2.3669, t)).toBe("Out of tolerance (ΔE00 2.37): at or over the shop's outer limit of 2"); // Sharma et al. 2005 pair 7
+  });
+
+  it("never uses the old rating words Match / Close / Different", () => {
+    for (const d of [0.2, 1.5, 4]) expect(colourVerdictText(d, t)).not.toMatch(/\b(Match|Close|Different)\b/);
   });
 });
 

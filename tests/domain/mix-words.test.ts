@@ -2,16 +2,16 @@ import { describe, expect, it } from "vitest";
 import { mixComponentWords, mixSentence, type WordedComponent } from "../../shared/domain/mix-words";
 
 const candy: WordedComponent[] = [
-  { label: "clear", materialCode: "IC-10", materialName: "Intercoat clear", parts: 1, percent: null, percentOf: null },
-  { label: "reducer", materialCode: "RD-2", materialName: "Reducer", parts: 1, percent: null, percentOf: null },
-  { label: "toner", materialCode: "TN-4", materialName: "Candy toner", parts: null, percent: 10, percentOf: ["clear"] },
+  { label: "clear", materialCode: "S5-B01", materialName: "Intercoat clear", parts: 1, percent: null, percentOf: null },
+  { label: "reducer", materialCode: "S6-B02", materialName: "Reducer", parts: 1, percent: null, percentOf: null },
+  { label: "toner", materialCode: "S4-B04", materialName: "Candy toner", parts: null, percent: 10, percentOf: ["clear"] },
 ];
 
 describe("mix words say what every percentage is of", () => {
   it("names each component by material and states the percent's base as the plan gives it", () => {
     const w = mixComponentWords(candy);
-    expect(w.map((x) => x.material)).toEqual(["IC-10 Intercoat clear", "RD-2 Reducer", "TN-4 Candy toner"]);
-    expect(w[2]!.amount).toBe("10 % of IC-10 Intercoat clear");
+    expect(w.map((x) => x.material)).toEqual(["S5-B01 Intercoat clear", "S6-B02 Reducer", "S4-B04 Candy toner"]);
+    expect(w[2]!.amount).toBe("10 % of S5-B01 Intercoat clear");
     expect(w[0]!.amount).toBe("1 part");
   });
 
@@ -22,14 +22,14 @@ describe("mix words say what every percentage is of", () => {
     expect(w[2]!.readyPct).toBeCloseTo((0.1 / 2.1) * 100, 10);
     expect(w[0]!.readyPct).toBeCloseTo((1 / 2.1) * 100, 10);
     expect(mixSentence(candy)).toBe(
-      "IC-10 Intercoat clear 1 part, RD-2 Reducer 1 part, TN-4 Candy toner 10 % of IC-10 Intercoat clear (ready to spray: 47.62 % / 47.62 % / 4.76 %)",
+      "S5-B01 Intercoat clear 1 part, S6-B02 Reducer 1 part, S4-B04 Candy toner 10 % of S5-B01 Intercoat clear (ready to spray: 47.62 % / 47.62 % / 4.76 %)",
     );
   });
 
   it("tells two clears apart by their material and leaves out shares a broken mix cannot give", () => {
-    const broken: WordedComponent[] = [{ label: "toner", materialCode: "TN-4", materialName: "Candy toner", parts: null, percent: 10, percentOf: ["nothing"] }];
+    const broken: WordedComponent[] = [{ label: "toner", materialCode: "S4-B04", materialName: "Candy toner", parts: null, percent: 10, percentOf: ["nothing"] }];
     expect(mixComponentWords(broken)[0]!.readyPct).toBeNull();
-    expect(mixSentence(broken)).toBe("TN-4 Candy toner 10 % of nothing");
+    expect(mixSentence(broken)).toBe("S4-B04 Candy toner 10 % of nothing");
   });
 });
 

@@ -129,6 +129,20 @@ describe("audit trail and settings", () => {
     await expect.poll(() => table.getAttribute("aria-busy")).toBeNull();
     expect(await seriousViolations(page)).toEqual([]);
 
+    // The "who" filter is a searchable picker: type, pick from the keyboard, and the choice goes into the URL.
+    const who = page.getByRole("combobox", { name: "Who" });
+    await who.click();
+    await who.pressSequentially("dana");
+    const people = page.getByRole("listbox", { name: "Who" });
+    await expect.poll(() => people.getByRole("option").allInnerTexts()).toEqual([expect.stringMatching(/^Dana /)]);
+    await who.press("Enter");
+    await page.waitForURL((u) => Boolean(u.searchParams.get("who")));
+    await expect.poll(() => who.inputValue()).toMatch(/^Dana /);
+    const chosen = await who.inputValue();
+    await page.reload();
+    await expect.poll(() => page.getByRole("combobox", { name: "Who" }).inputValue()).toBe(chosen);
+    expect(await seriousViolations(page)).toEqual([]);
+
     await page.goto(`${baseUrl}/settings`);
     await page.getByRole("button", { name: "Save settings" }).waitFor();
     expect(await page.locator("main").innerText()).toContain("No VOC limit is built into Coatwright");

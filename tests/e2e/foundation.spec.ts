@@ -73,7 +73,19 @@ describe("jobs", () => {
     // Submitting empty shows the field errors beside the fields.
     await page.getByRole("button", { name: "Create job" }).click();
     await expect.poll(() => page.getByText("Title is required").count()).toBeGreaterThan(0);
-    await page.getByLabel("Customer").selectOption({ label: "Imogen Castellan" });
+    // The customer picker searches on the server as the user types, and works from the keyboard.
+    const customer = page.getByRole("combobox", { name: "Customer" });
+    await customer.click();
+    await customer.pressSequentially("imog");
+    const list = page.getByRole("listbox", { name: "Customer" });
+    await expect.poll(() => list.getByRole("option").allInnerTexts()).toEqual([expect.stringMatching(/^Imogen Castellan/)]);
+    expect(await customer.getAttribute("aria-expanded")).toBe("true");
+    await customer.press("ArrowDown");
+    await customer.press("ArrowUp");
+    await expect.poll(async () => (await customer.getAttribute("aria-activedescendant")) === (await list.getByRole("option").first().getAttribute("id"))).toBe(true);
+    await customer.press("Enter");
+    expect(await customer.getAttribute("aria-expanded")).toBe("false");
+    expect(await customer.inputValue()).toBe("Imogen Castellan");
     await page.getByLabel("Title").fill(title);
     await page.getByLabel("Due date").fill("2027-03-15");
     await page.getByLabel("Painter").selectOption({ label: "Marco Vell" });

@@ -32,7 +32,7 @@ describe("finish plans and mix sheets", () => {
     const customers = await (await page.request.get(`${baseUrl}/api/customers?pageSize=1`)).json();
     const job = await (await page.request.post(`${baseUrl}/api/jobs`, { data: { customerId: customers.items[0].id, title: `Plan E2E tank ${Date.now()}` } })).json();
     expect((await page.request.post(`${baseUrl}/api/jobs/${job.id}/items`, { data: { name: "Fuel tank", substrate: "steel", surfaceArea: 0.6, areaUnit: "m2" } })).status()).toBe(201);
-    const clear = (await (await page.request.get(`${baseUrl}/api/materials?q=HC-CL-20`)).json())[0];
+    const clear = (await (await page.request.get(`${baseUrl}/api/materials?q=S5-B02`)).json())[0];
     expect(clear.purchaseUnit).toBe("gallon");
     const before = await clearStock(page, clear.id);
 
@@ -83,11 +83,11 @@ describe("finish plans and mix sheets", () => {
     await page.getByLabel("New layer kind").selectOption("clear");
     await page.getByRole("button", { name: "Add layer" }).click();
     await page.getByRole("button", { name: "Add material" }).click();
-    await page.getByRole("combobox", { name: "Material 1" }).selectOption({ label: "HC-CL-20 2K urethane clear, high gloss" });
-    await expect.poll(() => page.getByRole("textbox", { name: "Label in the mix" }).first().inputValue()).toBe("clear");
+    await page.getByRole("combobox", { name: "Material 1" }).selectOption({ label: "S5-B02 2K urethane clear, high gloss" });
+    await expect.poll(() => page.getByRole("textbox", { name: "Name on the mix sheet" }).first().inputValue()).toBe("clear");
     await page.getByRole("textbox", { name: "Parts" }).first().fill("4");
     await page.getByRole("button", { name: "Add material" }).click();
-    await page.getByRole("combobox", { name: "Material 2" }).selectOption({ label: "HC-RD-02 Urethane reducer, medium" });
+    await page.getByRole("combobox", { name: "Material 2" }).selectOption({ label: "S6-B02 Urethane reducer, medium" });
     await page.getByText("Percent", { exact: true }).nth(1).click();
     await expect.poll(() => page.getByRole("radio", { name: "Percent" }).nth(1).isChecked()).toBe(true);
     await page.getByRole("textbox", { name: "Percent" }).fill("10");
@@ -111,7 +111,7 @@ describe("finish plans and mix sheets", () => {
     const layers = page.getByRole("list", { name: "Layers, bottom to top" });
     await expect.poll(() => layers.innerText()).toMatch(/1\.\s*Sealer[\s\S]*2\.\s*Clear[\s\S]*\(clear\): 4 parts · 90\.9 % of the ready-to-spray mix/);
     // The reducer says what its percentage is of, by material, and its share of what goes in the gun: 10 / 110 = 9.1 %.
-    expect(await layers.innerText()).toMatch(/\(reducer\): 10 % of HC-CL-20 2K urethane clear, high gloss · 9\.1 % of the ready-to-spray mix/);
+    expect(await layers.innerText()).toMatch(/\(reducer\): 10 % of S5-B02 2K urethane clear, high gloss · 9\.1 % of the ready-to-spray mix/);
     expect(errors).toEqual([]);
     await close();
   });
@@ -159,7 +159,7 @@ describe("finish plans and mix sheets", () => {
     await signIn(page, baseUrl, "painter");
     await page.goto(`${baseUrl}/materials`);
     const table = page.getByRole("table", { name: "Materials" });
-    await expect.poll(() => table.innerText()).toContain("HC-CL-20");
+    await expect.poll(() => table.innerText()).toContain("S5-B02");
     expect(await table.innerText()).not.toMatch(/\$/);
     expect(await table.getByRole("columnheader", { name: "Cost" }).count()).toBe(0);
     expect(errors).toEqual([]);
@@ -198,9 +198,9 @@ describe("mix calculator", () => {
     await expect.poll(() => amounts.innerText()).toMatch(/298\.5 g/);
     expect(await amounts.innerText()).toMatch(/255 g/);
 
-    // Rounding to a 25 mL cup mark lands every part on a mark (200 / 50 / 50 mL), so every ratio holds.
+    // Rounding to a 25 mL cup mark lands every part on a mark (200 / 50 / 50 mL), so every ratio is exact.
     await page.getByRole("textbox", { name: "Round to a step of" }).fill("25");
-    await expect.poll(() => page.getByText(/Rounded to 25 mL: every ratio stays within 2 %/).count()).toBe(1);
+    await expect.poll(() => page.getByText(/Rounded to 25 mL: every ratio is exact\./).count()).toBe(1);
 
     // A zero part is an error shown beside that field, and the amounts wait for a fix.
     await page.getByRole("textbox", { name: "Parts" }).nth(1).fill("0");

@@ -120,6 +120,49 @@ describe("quote, approval and deposit", () => {
     await Promise.all([office.close(), owner.close(), customer.close()]);
   });
 
+  it("the quote editor warns before unsaved edits are lost: leaving the tab, or moving to another screen", async () => {
+    const { page, errors, close } = await newPage(browser);
+    await signIn(page, baseUrl, "estimator");
+    const customers = await api<{ items: { id: number; name: string }[] }>(page, "/api/customers?q=Tobias%20Wren");
+    const customerId = customers.items.find((c) => c.name === "Tobias Wren")!.id;
+    const job = await api<{ id: number }>(page, "/api/jobs", { method: "POST", data: { customerId, title: `Leave guard E2E ${Date.now()}` } });
+    const quote = await api<{ id: number }>(page, "/api/quotes", { method: "POST", data: { jobId: job.id } });
+    await page.goto(`${baseUrl}/quotes/${quote.id}`);
+    const nav = page.getByRole("navigation", { name: "Main" });
+
+    // Nothing typed yet: moving away does not ask.
+    await page.getByLabel("Line 1 Hours").waitFor();
+    await nav.getByRole("link", { name: "Jobs" }).click();
+    await page.waitForURL((u) => u.pathname === "/jobs");
+    await page.goBack();
+    await page.getByLabel("Line 1 Hours").fill("3");
+    await page.getByRole("button", { name: "Save draft" }).waitFor();
+
+    // Closing or reloading the tab: the browser's own question.
+    const asked = new Promise<string>((resolve) => page.once("dialog", (d) => (resolve(d.type()), void d.dismiss())));
+    await page.close({ runBeforeUnload: true });
+    expect(await asked).toBe("beforeunload");
+    expect(page.isClosed()).toBe(false);
+
+    // Another screen inside the app: our own question. "Stay" keeps the edit on screen.
+    await nav.getByRole("link", { name: "Jobs" }).click();
+    const dialog = page.getByRole("dialog", { name: "Leave without saving?" });
+    await dialog.waitFor();
+    expect(new URL(page.url()).pathname).toBe(`/quotes/${quote.id}`);
+    await dialog.getByRole("button", { name: "Stay on this page" }).click();
+    await dialog.waitFor({ state: "detached" });
+    expect(await page.getByLabel("Line 1 Hours").inputValue()).toBe("3");
+
+    // "Save and leave" saves the draft, then goes.
+    await nav.getByRole("link", { name: "Jobs" }).click();
+    await dialog.getByRole("button", { name: "Save and leave" }).click();
+    await page.waitForURL((u) => u.pathname === "/jobs");
+    const saved = await api<{ current: { lines: { hours?: number }[] } }>(page, `/api/quotes/${quote.id}`);
+    expect(saved.current.lines[0]!.hours).toBe(3);
+    expect(errors).toEqual([]);
+    await close();
+  });
+
   it("a painter has no quotes in the navigation and is refused the quote screens", async () => {
     const { page, close } = await newPage(browser);
     await signIn(page, baseUrl, "painter");

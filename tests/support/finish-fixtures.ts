@@ -36,7 +36,7 @@ export function addSheet(s: Shop, input: CreateMixSheetInput) {
  */
 export function finishFixtures(s: Shop) {
   const clear = addMaterial(s, {
-    code: "T-CL-01",
+    code: "S9-B04",
     name: "Test urethane clear",
     category: "clear",
     purchaseUnit: "quart",
@@ -50,7 +50,7 @@ export function finishFixtures(s: Shop) {
     lowStockThreshold: 1,
   });
   const hardener = addMaterial(s, {
-    code: "T-HD-01",
+    code: "S9-B07",
     name: "Test hardener",
     category: "hardener",
     purchaseUnit: "pint",
@@ -63,7 +63,7 @@ export function finishFixtures(s: Shop) {
     lowStockThreshold: 0.5,
   });
   const reducer = addMaterial(s, {
-    code: "T-RD-01",
+    code: "S9-B10",
     name: "Test reducer, medium",
     category: "reducer",
     purchaseUnit: "gallon",
@@ -74,7 +74,7 @@ export function finishFixtures(s: Shop) {
     flammable: true,
     lowStockThreshold: 0.25,
   });
-  const spare = addMaterial(s, { code: "T-AD-09", name: "Spare additive", category: "additive", purchaseUnit: "floz", costCents: 1200 });
+  const spare = addMaterial(s, { code: "S9-B02", name: "Spare additive", category: "additive", purchaseUnit: "floz", costCents: 1200 });
   const deps = s.app.deps;
   const clearLot = createLot(deps, clear.id, { lotNumber: "CL-A1", quantityOnHand: 2, receivedOn: "2026-01-10", expiresOn: "2099-01-01" });
   const hardenerLot = createLot(deps, hardener.id, { lotNumber: "HD-A1", quantityOnHand: 2, receivedOn: "2026-01-10", expiresOn: "2099-01-01" });

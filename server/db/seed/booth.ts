@@ -23,18 +23,18 @@ const SPRAYED: Stage[] = ["in_booth", "curing", "finishing", "ready", "delivered
 type Rgb = [number, number, number];
 /** Invented linear-RGB reflectance of each ground, and absorbance per coat of each candy at 6:1. */
 const GROUNDS: { name: string; code: string; rgb: Rgb }[] = [
-  { name: "Fine silver", code: "HC-GC-10", rgb: [0.62, 0.63, 0.66] },
-  { name: "Bright gold", code: "HC-GC-11", rgb: [0.66, 0.5, 0.2] },
-  { name: "Bright white", code: "HC-GC-01", rgb: [0.82, 0.82, 0.8] },
-  { name: "Jet black", code: "HC-GC-02", rgb: [0.035, 0.035, 0.04] },
+  { name: "Fine silver", code: "S3-B10", rgb: [0.62, 0.63, 0.66] },
+  { name: "Bright gold", code: "S3-B11", rgb: [0.66, 0.5, 0.2] },
+  { name: "Bright white", code: "S3-B01", rgb: [0.82, 0.82, 0.8] },
+  { name: "Jet black", code: "S3-B02", rgb: [0.035, 0.035, 0.04] },
 ];
 const CANDIES: { name: string; code: string; absorb: Rgb }[] = [
-  { name: "Apple red", code: "HC-TN-21", absorb: [0.012, 0.2, 0.13] },
-  { name: "Cobalt", code: "HC-TN-22", absorb: [0.19, 0.09, 0.012] },
-  { name: "Tangerine", code: "HC-TN-23", absorb: [0.008, 0.06, 0.21] },
-  { name: "Emerald", code: "HC-TN-24", absorb: [0.17, 0.015, 0.11] },
-  { name: "Root beer", code: "HC-TN-26", absorb: [0.06, 0.11, 0.16] },
-  { name: "Violet", code: "HC-TN-25", absorb: [0.07, 0.2, 0.03] },
+  { name: "Apple red", code: "S4-B01", absorb: [0.012, 0.2, 0.13] },
+  { name: "Cobalt", code: "S4-B02", absorb: [0.19, 0.09, 0.012] },
+  { name: "Tangerine", code: "S4-B03", absorb: [0.008, 0.06, 0.21] },
+  { name: "Emerald", code: "S4-B04", absorb: [0.17, 0.015, 0.11] },
+  { name: "Root beer", code: "S4-B06", absorb: [0.06, 0.11, 0.16] },
+  { name: "Violet", code: "S4-B05", absorb: [0.07, 0.2, 0.03] },
 ];
 
 const toLab = converter("lab65");
@@ -207,10 +207,10 @@ export async function seedBooth(ctx: SeedContext) {
           substrate: item.substrate,
           scuffMedium: item.substrate === "existing_finish" ? "scuff_pad" : i % 2 ? "hand_sanding" : "da_sanding",
           scuffGrit: item.substrate === "existing_finish" ? 800 : 400 + (i % 3) * 100,
-          cleaner: complete || i === 0 ? "Wax and grease remover (HC-CN-01), then waterborne final wipe" : null,
+          cleaner: complete || i === 0 ? "Wax and grease remover (S1-B01), then waterborne final wipe" : null,
           tackCloth: complete,
           adhesionPromoter: plastic && complete,
-          adhesionPromoterProduct: plastic && complete ? "Plastic adhesion promoter, clear (HC-AP-01)" : null,
+          adhesionPromoterProduct: plastic && complete ? "Plastic adhesion promoter, clear (S1-B04)" : null,
           notes: i === 0 && prepIndex % 3 === 0 ? "Feathered two chips on the edge before the final scuff." : null,
           preparedBy: by,
           preparedAt: at,

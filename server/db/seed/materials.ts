@@ -14,49 +14,49 @@ import type { SeedContext } from "./core";
 
 /*
  * The demo catalogue, finish-plan templates, job plans and recorded batches. Every material is invented:
- * generic names and the shop's own "HC-" codes; the figures are realistic but made up (never a maker's data).
+ * generic names and the shop's own stock numbers (shelf and bin: "S4-B02" is shelf 4, bin 2); the figures are realistic but made up (never a maker's data).
  */
 
 type MaterialSeed = CreateMaterialInput & { lots: { lot: string; qty: number; receivedDaysAgo: number; expiresInDays: number | null }[] };
 
 const CATALOGUE: MaterialSeed[] = [
   // Cleaners and adhesion promoter
-  { code: "HC-CN-01", name: "Wax and grease remover", category: "cleaner", purchaseUnit: "gallon", costCents: 3600, volumeSolidsPct: 0, vocGPerL: 690, densityGPerMl: 0.76, flammable: true, lowStockThreshold: 0.5, lots: [{ lot: "WG-2611", qty: 1.6, receivedDaysAgo: 40, expiresInDays: 900 }] },
-  { code: "HC-CN-02", name: "Waterborne final wipe", category: "cleaner", purchaseUnit: "gallon", costCents: 2900, volumeSolidsPct: 0, vocGPerL: 210, waterExemptPct: 88, densityGPerMl: 1.0, lowStockThreshold: 0.5, lots: [{ lot: "FW-2609", qty: 0.4, receivedDaysAgo: 95, expiresInDays: 400 }] },
-  { code: "HC-CN-03", name: "Gun wash solvent", category: "cleaner", purchaseUnit: "gallon", costCents: 2400, volumeSolidsPct: 0, vocGPerL: 880, densityGPerMl: 0.85, flammable: true, lowStockThreshold: 1, lots: [{ lot: "GW-2610", qty: 3, receivedDaysAgo: 35, expiresInDays: null }] },
-  { code: "HC-AP-01", name: "Plastic adhesion promoter, clear", category: "adhesion_promoter", purchaseUnit: "quart", costCents: 4200, volumeSolidsPct: 6, vocGPerL: 720, densityGPerMl: 0.82, flammable: true, lowStockThreshold: 1, lots: [{ lot: "AP-2607", qty: 3, receivedDaysAgo: 120, expiresInDays: 500 }] },
+  { code: "S1-B01", name: "Wax and grease remover", category: "cleaner", purchaseUnit: "gallon", costCents: 3600, volumeSolidsPct: 0, vocGPerL: 690, densityGPerMl: 0.76, flammable: true, lowStockThreshold: 0.5, lots: [{ lot: "WG-2611", qty: 1.6, receivedDaysAgo: 40, expiresInDays: 900 }] },
+  { code: "S1-B02", name: "Waterborne final wipe", category: "cleaner", purchaseUnit: "gallon", costCents: 2900, volumeSolidsPct: 0, vocGPerL: 210, waterExemptPct: 88, densityGPerMl: 1.0, lowStockThreshold: 0.5, lots: [{ lot: "FW-2609", qty: 0.4, receivedDaysAgo: 95, expiresInDays: 400 }] },
+  { code: "S1-B03", name: "Gun wash solvent", category: "cleaner", purchaseUnit: "gallon", costCents: 2400, volumeSolidsPct: 0, vocGPerL: 880, densityGPerMl: 0.85, flammable: true, lowStockThreshold: 1, lots: [{ lot: "GW-2610", qty: 3, receivedDaysAgo: 35, expiresInDays: null }] },
+  { code: "S1-B04", name: "Plastic adhesion promoter, clear", category: "adhesion_promoter", purchaseUnit: "quart", costCents: 4200, volumeSolidsPct: 6, vocGPerL: 720, densityGPerMl: 0.82, flammable: true, lowStockThreshold: 1, lots: [{ lot: "AP-2607", qty: 3, receivedDaysAgo: 120, expiresInDays: 500 }] },
   // Sealers
-  { code: "HC-SL-01", name: "Urethane sealer, white", category: "sealer", purchaseUnit: "quart", costCents: 5600, volumeSolidsPct: 52, vocGPerL: 410, densityGPerMl: 1.42, potLifeMinutes: 60, recoatMaxMinutes: 4320, lowStockThreshold: 1, lots: [{ lot: "SW-2608", qty: 4, receivedDaysAgo: 110, expiresInDays: 600 }] },
-  { code: "HC-SL-02", name: "Urethane sealer, grey", category: "sealer", purchaseUnit: "quart", costCents: 5400, volumeSolidsPct: 50, vocGPerL: 415, densityGPerMl: 1.38, potLifeMinutes: 60, recoatMaxMinutes: 4320, lowStockThreshold: 1, lots: [{ lot: "SG-2605", qty: 2, receivedDaysAgo: 180, expiresInDays: 360 }, { lot: "SG-2610", qty: 4, receivedDaysAgo: 50, expiresInDays: 700 }] },
-  { code: "HC-SL-03", name: "Urethane sealer, black", category: "sealer", purchaseUnit: "quart", costCents: 5400, volumeSolidsPct: 50, vocGPerL: 418, densityGPerMl: 1.3, potLifeMinutes: 60, recoatMaxMinutes: 4320, lowStockThreshold: 1, lots: [{ lot: "SB-2606", qty: 3, receivedDaysAgo: 150, expiresInDays: 550 }] },
+  { code: "S2-B01", name: "Urethane sealer, white", category: "sealer", purchaseUnit: "quart", costCents: 5600, volumeSolidsPct: 52, vocGPerL: 410, densityGPerMl: 1.42, potLifeMinutes: 60, recoatMaxMinutes: 4320, lowStockThreshold: 1, lots: [{ lot: "SW-2608", qty: 4, receivedDaysAgo: 110, expiresInDays: 600 }] },
+  { code: "S2-B02", name: "Urethane sealer, grey", category: "sealer", purchaseUnit: "quart", costCents: 5400, volumeSolidsPct: 50, vocGPerL: 415, densityGPerMl: 1.38, potLifeMinutes: 60, recoatMaxMinutes: 4320, lowStockThreshold: 1, lots: [{ lot: "SG-2605", qty: 2, receivedDaysAgo: 180, expiresInDays: 360 }, { lot: "SG-2610", qty: 4, receivedDaysAgo: 50, expiresInDays: 700 }] },
+  { code: "S2-B03", name: "Urethane sealer, black", category: "sealer", purchaseUnit: "quart", costCents: 5400, volumeSolidsPct: 50, vocGPerL: 418, densityGPerMl: 1.3, potLifeMinutes: 60, recoatMaxMinutes: 4320, lowStockThreshold: 1, lots: [{ lot: "SB-2606", qty: 3, receivedDaysAgo: 150, expiresInDays: 550 }] },
   // Ground coats
-  { code: "HC-GC-01", name: "Solid ground, bright white", category: "ground_coat", purchaseUnit: "quart", costCents: 6800, volumeSolidsPct: 24, vocGPerL: 580, densityGPerMl: 1.12, recoatMaxMinutes: 1440, lowStockThreshold: 1, lots: [{ lot: "GW-2608", qty: 4, receivedDaysAgo: 100, expiresInDays: 730 }] },
-  { code: "HC-GC-02", name: "Solid ground, jet black", category: "ground_coat", purchaseUnit: "quart", costCents: 6200, volumeSolidsPct: 22, vocGPerL: 590, densityGPerMl: 0.98, recoatMaxMinutes: 1440, lowStockThreshold: 1, lots: [{ lot: "GB-2609", qty: 3, receivedDaysAgo: 90, expiresInDays: 730 }] },
-  { code: "HC-GC-10", name: "Metallic ground, fine silver", category: "ground_coat", purchaseUnit: "quart", costCents: 8900, volumeSolidsPct: 18, vocGPerL: 610, densityGPerMl: 0.96, recoatMaxMinutes: 1440, lowStockThreshold: 1, lots: [{ lot: "MS-2606", qty: 3, receivedDaysAgo: 160, expiresInDays: 540 }, { lot: "MS-2611", qty: 4, receivedDaysAgo: 30, expiresInDays: 730 }] },
-  { code: "HC-GC-11", name: "Metallic ground, bright gold", category: "ground_coat", purchaseUnit: "quart", costCents: 9400, volumeSolidsPct: 18, vocGPerL: 612, densityGPerMl: 0.97, recoatMaxMinutes: 1440, lowStockThreshold: 1, lots: [{ lot: "MG-2607", qty: 4, receivedDaysAgo: 130, expiresInDays: 600 }] },
-  { code: "HC-GC-20", name: "Solid colour, teal", category: "ground_coat", purchaseUnit: "quart", costCents: 7400, volumeSolidsPct: 26, vocGPerL: 575, densityGPerMl: 1.05, recoatMaxMinutes: 1440, lowStockThreshold: 0.5, lots: [{ lot: "ST-2610", qty: 2, receivedDaysAgo: 60, expiresInDays: 700 }] },
+  { code: "S3-B01", name: "Solid ground, bright white", category: "ground_coat", purchaseUnit: "quart", costCents: 6800, volumeSolidsPct: 24, vocGPerL: 580, densityGPerMl: 1.12, recoatMaxMinutes: 1440, lowStockThreshold: 1, lots: [{ lot: "GW-2608", qty: 4, receivedDaysAgo: 100, expiresInDays: 730 }] },
+  { code: "S3-B02", name: "Solid ground, jet black", category: "ground_coat", purchaseUnit: "quart", costCents: 6200, volumeSolidsPct: 22, vocGPerL: 590, densityGPerMl: 0.98, recoatMaxMinutes: 1440, lowStockThreshold: 1, lots: [{ lot: "GB-2609", qty: 3, receivedDaysAgo: 90, expiresInDays: 730 }] },
+  { code: "S3-B10", name: "Metallic ground, fine silver", category: "ground_coat", purchaseUnit: "quart", costCents: 8900, volumeSolidsPct: 18, vocGPerL: 610, densityGPerMl: 0.96, recoatMaxMinutes: 1440, lowStockThreshold: 1, lots: [{ lot: "MS-2606", qty: 3, receivedDaysAgo: 160, expiresInDays: 540 }, { lot: "MS-2611", qty: 4, receivedDaysAgo: 30, expiresInDays: 730 }] },
+  { code: "S3-B11", name: "Metallic ground, bright gold", category: "ground_coat", purchaseUnit: "quart", costCents: 9400, volumeSolidsPct: 18, vocGPerL: 612, densityGPerMl: 0.97, recoatMaxMinutes: 1440, lowStockThreshold: 1, lots: [{ lot: "MG-2607", qty: 4, receivedDaysAgo: 130, expiresInDays: 600 }] },
+  { code: "S3-B20", name: "Solid colour, teal", category: "ground_coat", purchaseUnit: "quart", costCents: 7400, volumeSolidsPct: 26, vocGPerL: 575, densityGPerMl: 1.05, recoatMaxMinutes: 1440, lowStockThreshold: 0.5, lots: [{ lot: "ST-2610", qty: 2, receivedDaysAgo: 60, expiresInDays: 700 }] },
   // Candy toners (concentrates let down in intercoat clear)
-  { code: "HC-TN-21", name: "Candy toner, apple red", category: "toner", purchaseUnit: "pint", costCents: 7800, volumeSolidsPct: 32, vocGPerL: 560, densityGPerMl: 0.95, lowStockThreshold: 1, lots: [{ lot: "TR-2606", qty: 3, receivedDaysAgo: 170, expiresInDays: 500 }] },
-  { code: "HC-TN-22", name: "Candy toner, cobalt", category: "toner", purchaseUnit: "pint", costCents: 8200, volumeSolidsPct: 30, vocGPerL: 565, densityGPerMl: 0.94, lowStockThreshold: 1, lots: [{ lot: "TC-2608", qty: 3, receivedDaysAgo: 100, expiresInDays: 500 }] },
-  { code: "HC-TN-23", name: "Candy toner, tangerine", category: "toner", purchaseUnit: "pint", costCents: 7800, volumeSolidsPct: 31, vocGPerL: 560, densityGPerMl: 0.95, lowStockThreshold: 1, lots: [{ lot: "TT-2607", qty: 2, receivedDaysAgo: 140, expiresInDays: 480 }] },
-  { code: "HC-TN-24", name: "Candy toner, emerald", category: "toner", purchaseUnit: "pint", costCents: 8200, volumeSolidsPct: 30, vocGPerL: 568, densityGPerMl: 0.94, lowStockThreshold: 1, lots: [{ lot: "TE-2609", qty: 3, receivedDaysAgo: 80, expiresInDays: 520 }] },
-  { code: "HC-TN-25", name: "Candy toner, violet", category: "toner", purchaseUnit: "pint", costCents: 8400, volumeSolidsPct: 30, vocGPerL: 566, densityGPerMl: 0.94, lowStockThreshold: 1, lots: [{ lot: "TV-2609", qty: 2, receivedDaysAgo: 85, expiresInDays: 520 }] },
-  { code: "HC-TN-26", name: "Candy toner, root beer", category: "toner", purchaseUnit: "pint", costCents: 7900, volumeSolidsPct: 31, vocGPerL: 562, densityGPerMl: 0.95, lowStockThreshold: 1, lots: [{ lot: "TB-2604", qty: 0.5, receivedDaysAgo: 220, expiresInDays: -10 }, { lot: "TB-2610", qty: 3, receivedDaysAgo: 45, expiresInDays: 600 }] },
+  { code: "S4-B01", name: "Candy toner, apple red", category: "toner", purchaseUnit: "pint", costCents: 7800, volumeSolidsPct: 32, vocGPerL: 560, densityGPerMl: 0.95, lowStockThreshold: 1, lots: [{ lot: "TR-2606", qty: 3, receivedDaysAgo: 170, expiresInDays: 500 }] },
+  { code: "S4-B02", name: "Candy toner, cobalt", category: "toner", purchaseUnit: "pint", costCents: 8200, volumeSolidsPct: 30, vocGPerL: 565, densityGPerMl: 0.94, lowStockThreshold: 1, lots: [{ lot: "TC-2608", qty: 3, receivedDaysAgo: 100, expiresInDays: 500 }] },
+  { code: "S4-B03", name: "Candy toner, tangerine", category: "toner", purchaseUnit: "pint", costCents: 7800, volumeSolidsPct: 31, vocGPerL: 560, densityGPerMl: 0.95, lowStockThreshold: 1, lots: [{ lot: "TT-2607", qty: 2, receivedDaysAgo: 140, expiresInDays: 480 }] },
+  { code: "S4-B04", name: "Candy toner, emerald", category: "toner", purchaseUnit: "pint", costCents: 8200, volumeSolidsPct: 30, vocGPerL: 568, densityGPerMl: 0.94, lowStockThreshold: 1, lots: [{ lot: "TE-2609", qty: 3, receivedDaysAgo: 80, expiresInDays: 520 }] },
+  { code: "S4-B05", name: "Candy toner, violet", category: "toner", purchaseUnit: "pint", costCents: 8400, volumeSolidsPct: 30, vocGPerL: 566, densityGPerMl: 0.94, lowStockThreshold: 1, lots: [{ lot: "TV-2609", qty: 2, receivedDaysAgo: 85, expiresInDays: 520 }] },
+  { code: "S4-B06", name: "Candy toner, root beer", category: "toner", purchaseUnit: "pint", costCents: 7900, volumeSolidsPct: 31, vocGPerL: 562, densityGPerMl: 0.95, lowStockThreshold: 1, lots: [{ lot: "TB-2604", qty: 0.5, receivedDaysAgo: 220, expiresInDays: -10 }, { lot: "TB-2610", qty: 3, receivedDaysAgo: 45, expiresInDays: 600 }] },
   // Intercoat clear
-  { code: "HC-IC-01", name: "Intercoat clear", category: "intercoat_clear", purchaseUnit: "gallon", costCents: 11800, volumeSolidsPct: 22, vocGPerL: 600, densityGPerMl: 0.93, recoatMaxMinutes: 1440, lowStockThreshold: 0.5, lots: [{ lot: "IC-2606", qty: 1, receivedDaysAgo: 170, expiresInDays: 500 }, { lot: "IC-2611", qty: 2, receivedDaysAgo: 25, expiresInDays: 730 }] },
+  { code: "S5-B01", name: "Intercoat clear", category: "intercoat_clear", purchaseUnit: "gallon", costCents: 11800, volumeSolidsPct: 22, vocGPerL: 600, densityGPerMl: 0.93, recoatMaxMinutes: 1440, lowStockThreshold: 0.5, lots: [{ lot: "IC-2606", qty: 1, receivedDaysAgo: 170, expiresInDays: 500 }, { lot: "IC-2611", qty: 2, receivedDaysAgo: 25, expiresInDays: 730 }] },
   // Reducers
-  { code: "HC-RD-01", name: "Urethane reducer, fast", category: "reducer", purchaseUnit: "gallon", costCents: 4200, volumeSolidsPct: 0, vocGPerL: 870, densityGPerMl: 0.86, flammable: true, lowStockThreshold: 0.5, lots: [{ lot: "RF-2609", qty: 1.5, receivedDaysAgo: 90, expiresInDays: null }] },
-  { code: "HC-RD-02", name: "Urethane reducer, medium", category: "reducer", purchaseUnit: "gallon", costCents: 4000, volumeSolidsPct: 0, vocGPerL: 875, densityGPerMl: 0.87, flammable: true, lowStockThreshold: 1, lots: [{ lot: "RM-2605", qty: 2, receivedDaysAgo: 190, expiresInDays: null }, { lot: "RM-2611", qty: 3, receivedDaysAgo: 20, expiresInDays: null }] },
-  { code: "HC-RD-03", name: "Urethane reducer, slow", category: "reducer", purchaseUnit: "gallon", costCents: 4300, volumeSolidsPct: 0, vocGPerL: 880, densityGPerMl: 0.88, flammable: true, lowStockThreshold: 0.5, lots: [{ lot: "RS-2608", qty: 0.45, receivedDaysAgo: 110, expiresInDays: null }] },
+  { code: "S6-B01", name: "Urethane reducer, fast", category: "reducer", purchaseUnit: "gallon", costCents: 4200, volumeSolidsPct: 0, vocGPerL: 870, densityGPerMl: 0.86, flammable: true, lowStockThreshold: 0.5, lots: [{ lot: "RF-2609", qty: 1.5, receivedDaysAgo: 90, expiresInDays: null }] },
+  { code: "S6-B02", name: "Urethane reducer, medium", category: "reducer", purchaseUnit: "gallon", costCents: 4000, volumeSolidsPct: 0, vocGPerL: 875, densityGPerMl: 0.87, flammable: true, lowStockThreshold: 1, lots: [{ lot: "RM-2605", qty: 2, receivedDaysAgo: 190, expiresInDays: null }, { lot: "RM-2611", qty: 3, receivedDaysAgo: 20, expiresInDays: null }] },
+  { code: "S6-B03", name: "Urethane reducer, slow", category: "reducer", purchaseUnit: "gallon", costCents: 4300, volumeSolidsPct: 0, vocGPerL: 880, densityGPerMl: 0.88, flammable: true, lowStockThreshold: 0.5, lots: [{ lot: "RS-2608", qty: 0.45, receivedDaysAgo: 110, expiresInDays: null }] },
   // Hardeners (isocyanates)
-  { code: "HC-HD-01", name: "Sealer hardener", category: "hardener", purchaseUnit: "pint", costCents: 4600, volumeSolidsPct: 62, vocGPerL: 310, densityGPerMl: 1.06, potLifeMinutes: 60, containsIsocyanates: true, flammable: true, lowStockThreshold: 1, lots: [{ lot: "HS-2607", qty: 4, receivedDaysAgo: 120, expiresInDays: 300 }] },
-  { code: "HC-HD-02", name: "Urethane hardener, standard", category: "hardener", purchaseUnit: "quart", costCents: 8800, volumeSolidsPct: 66, vocGPerL: 290, densityGPerMl: 1.08, potLifeMinutes: 150, containsIsocyanates: true, flammable: true, lowStockThreshold: 1, lots: [{ lot: "HU-2608", qty: 2, receivedDaysAgo: 100, expiresInDays: 330 }, { lot: "HU-2611", qty: 3, receivedDaysAgo: 28, expiresInDays: 360 }] },
+  { code: "S6-B11", name: "Sealer hardener", category: "hardener", purchaseUnit: "pint", costCents: 4600, volumeSolidsPct: 62, vocGPerL: 310, densityGPerMl: 1.06, potLifeMinutes: 60, containsIsocyanates: true, flammable: true, lowStockThreshold: 1, lots: [{ lot: "HS-2607", qty: 4, receivedDaysAgo: 120, expiresInDays: 300 }] },
+  { code: "S6-B12", name: "Urethane hardener, standard", category: "hardener", purchaseUnit: "quart", costCents: 8800, volumeSolidsPct: 66, vocGPerL: 290, densityGPerMl: 1.08, potLifeMinutes: 150, containsIsocyanates: true, flammable: true, lowStockThreshold: 1, lots: [{ lot: "HU-2608", qty: 2, receivedDaysAgo: 100, expiresInDays: 330 }, { lot: "HU-2611", qty: 3, receivedDaysAgo: 28, expiresInDays: 360 }] },
   // Clears (2K urethane: activated with the hardener)
-  { code: "HC-CL-20", name: "2K urethane clear, high gloss", category: "clear", purchaseUnit: "gallon", costCents: 24500, volumeSolidsPct: 56, vocGPerL: 395, densityGPerMl: 1.01, potLifeMinutes: 180, containsIsocyanates: true, flammable: true, lowStockThreshold: 1, lots: [{ lot: "CG-2607", qty: 1.5, receivedDaysAgo: 130, expiresInDays: 400 }, { lot: "CG-2611", qty: 3, receivedDaysAgo: 22, expiresInDays: 540 }] },
-  { code: "HC-CL-21", name: "2K urethane clear, satin", category: "clear", purchaseUnit: "quart", costCents: 7400, volumeSolidsPct: 52, vocGPerL: 410, densityGPerMl: 1.04, potLifeMinutes: 150, containsIsocyanates: true, flammable: true, lowStockThreshold: 1, lots: [{ lot: "CS-2609", qty: 2, receivedDaysAgo: 75, expiresInDays: 450 }] },
+  { code: "S5-B02", name: "2K urethane clear, high gloss", category: "clear", purchaseUnit: "gallon", costCents: 24500, volumeSolidsPct: 56, vocGPerL: 395, densityGPerMl: 1.01, potLifeMinutes: 180, containsIsocyanates: true, flammable: true, lowStockThreshold: 1, lots: [{ lot: "CG-2607", qty: 1.5, receivedDaysAgo: 130, expiresInDays: 400 }, { lot: "CG-2611", qty: 3, receivedDaysAgo: 22, expiresInDays: 540 }] },
+  { code: "S5-B03", name: "2K urethane clear, satin", category: "clear", purchaseUnit: "quart", costCents: 7400, volumeSolidsPct: 52, vocGPerL: 410, densityGPerMl: 1.04, potLifeMinutes: 150, containsIsocyanates: true, flammable: true, lowStockThreshold: 1, lots: [{ lot: "CS-2609", qty: 2, receivedDaysAgo: 75, expiresInDays: 450 }] },
   // Additives
-  { code: "HC-AD-01", name: "Flex additive for plastics", category: "additive", purchaseUnit: "quart", costCents: 5200, volumeSolidsPct: 45, vocGPerL: 380, densityGPerMl: 1.0, lowStockThreshold: 0.5, lots: [{ lot: "FX-2608", qty: 2, receivedDaysAgo: 110, expiresInDays: 500 }] },
-  { code: "HC-AD-05", name: "Metal flake, fine silver", category: "additive", purchaseUnit: "oz", costCents: 1400, volumeSolidsPct: 100, vocGPerL: 0, densityGPerMl: 2.6, lowStockThreshold: 4, notes: "Sold by weight; mixed by volume through its density.", lots: [{ lot: "FL-2610", qty: 12, receivedDaysAgo: 55, expiresInDays: null }] },
+  { code: "S7-B01", name: "Flex additive for plastics", category: "additive", purchaseUnit: "quart", costCents: 5200, volumeSolidsPct: 45, vocGPerL: 380, densityGPerMl: 1.0, lowStockThreshold: 0.5, lots: [{ lot: "FX-2608", qty: 2, receivedDaysAgo: 110, expiresInDays: 500 }] },
+  { code: "S7-B05", name: "Metal flake, fine silver", category: "additive", purchaseUnit: "oz", costCents: 1400, volumeSolidsPct: 100, vocGPerL: 0, densityGPerMl: 2.6, lowStockThreshold: 4, notes: "Sold by weight; mixed by volume through its density.", lots: [{ lot: "FL-2610", qty: 12, receivedDaysAgo: 55, expiresInDays: null }] },
 ];
 
 const DAY = 86_400_000;
@@ -82,7 +82,7 @@ function sealerLayer(m: Codes, code: string): PlanLayerInput {
     dryFilmPerCoat: 38,
     dryFilmUnit: "um",
     transferEfficiencyPct: 65,
-    components: [comp(m[code]!, "sealer", { parts: 4 }), comp(m["HC-HD-01"]!, "hardener", { parts: 1 }), comp(m["HC-RD-02"]!, "reducer", { parts: 1 })],
+    components: [comp(m[code]!, "sealer", { parts: 4 }), comp(m["S6-B11"]!, "hardener", { parts: 1 }), comp(m["S6-B02"]!, "reducer", { parts: 1 })],
   };
 }
 
@@ -99,7 +99,7 @@ function groundLayer(m: Codes, code: string, name: string): PlanLayerInput {
     dryFilmPerCoat: 6,
     dryFilmUnit: "um",
     transferEfficiencyPct: 60,
-    components: [comp(m[code]!, "ground", { parts: 1 }), comp(m["HC-RD-02"]!, "reducer", { parts: 1 })],
+    components: [comp(m[code]!, "basecoat", { parts: 1 }), comp(m["S6-B02"]!, "reducer", { parts: 1 })],
   };
 }
 
@@ -118,17 +118,17 @@ function candyLayer(m: Codes, toner: string, coats = 5): PlanLayerInput {
     transferEfficiencyPct: 60,
     notes: "Same gun distance and speed every coat; count the coats, the depth depends on them.",
     components: [
-      comp(m["HC-IC-01"]!, "clear", { parts: 6 }),
+      comp(m["S5-B01"]!, "clear", { parts: 6 }),
       comp(m[toner]!, "toner", { parts: 1 }),
-      comp(m["HC-RD-02"]!, "reducer", { percent: 5, percentOf: ["clear", "toner"] }),
+      comp(m["S6-B02"]!, "reducer", { percent: 5, percentOf: ["clear", "toner"] }),
     ],
   };
 }
 
-function clearLayer(m: Codes, code = "HC-CL-20", coats = 3): PlanLayerInput {
+function clearLayer(m: Codes, code = "S5-B02", coats = 3): PlanLayerInput {
   return {
     kind: "clear",
-    name: code === "HC-CL-21" ? "Satin clear" : "Clear",
+    name: code === "S5-B03" ? "Satin clear" : "Clear",
     coats,
     flashMinutes: 12,
     dryMinutes: 720,
@@ -138,7 +138,7 @@ function clearLayer(m: Codes, code = "HC-CL-20", coats = 3): PlanLayerInput {
     dryFilmPerCoat: 1.8,
     dryFilmUnit: "mil",
     transferEfficiencyPct: 65,
-    components: [comp(m[code]!, "clear", { parts: 4 }), comp(m["HC-HD-02"]!, "hardener", { parts: 1 }), comp(m["HC-RD-02"]!, "reducer", { parts: 1 })],
+    components: [comp(m[code]!, "clear", { parts: 4 }), comp(m["S6-B12"]!, "hardener", { parts: 1 }), comp(m["S6-B02"]!, "reducer", { parts: 1 })],
   };
 }
 
@@ -155,7 +155,7 @@ function promoterLayer(m: Codes): PlanLayerInput {
     dryFilmUnit: "um",
     transferEfficiencyPct: 55,
     notes: "Bare plastic only: one wet coat, do not sand after.",
-    components: [comp(m["HC-AP-01"]!, "promoter", { parts: 1 })],
+    components: [comp(m["S1-B04"]!, "promoter", { parts: 1 })],
   };
 }
 
@@ -164,12 +164,12 @@ function templates(m: Codes): PlanDocumentInput[] {
     {
       name: "Candy over metallic ground",
       description: "Grey sealer, fine silver ground, five coats of apple-red candy, three coats of 2K clear.",
-      layers: [prepLayer(), sealerLayer(m, "HC-SL-02"), groundLayer(m, "HC-GC-10", "Metallic ground"), candyLayer(m, "HC-TN-21"), clearLayer(m)],
+      layers: [prepLayer(), sealerLayer(m, "S2-B02"), groundLayer(m, "S3-B10", "Metallic ground"), candyLayer(m, "S4-B01"), clearLayer(m)],
     },
     {
       name: "Solid colour, 2K clear",
       description: "Sealer, a solid ground colour, 2K clear. The everyday recipe.",
-      layers: [prepLayer(), sealerLayer(m, "HC-SL-02"), groundLayer(m, "HC-GC-20", "Solid colour"), clearLayer(m)],
+      layers: [prepLayer(), sealerLayer(m, "S2-B02"), groundLayer(m, "S3-B20", "Solid colour"), clearLayer(m)],
     },
     {
       name: "Candy over white ground, bare plastic",
@@ -177,16 +177,16 @@ function templates(m: Codes): PlanDocumentInput[] {
       layers: [
         prepLayer(),
         promoterLayer(m),
-        sealerLayer(m, "HC-SL-01"),
-        groundLayer(m, "HC-GC-01", "White ground"),
-        candyLayer(m, "HC-TN-22", 4),
+        sealerLayer(m, "S2-B01"),
+        groundLayer(m, "S3-B01", "White ground"),
+        candyLayer(m, "S4-B02", 4),
         {
           ...clearLayer(m),
           components: [
-            comp(m["HC-CL-20"]!, "clear", { parts: 4 }),
-            comp(m["HC-HD-02"]!, "hardener", { parts: 1 }),
-            comp(m["HC-RD-02"]!, "reducer", { parts: 1 }),
-            comp(m["HC-AD-01"]!, "flex", { percent: 10, percentOf: ["clear"] }),
+            comp(m["S5-B02"]!, "clear", { parts: 4 }),
+            comp(m["S6-B12"]!, "hardener", { parts: 1 }),
+            comp(m["S6-B02"]!, "reducer", { parts: 1 }),
+            comp(m["S7-B01"]!, "flex", { percent: 10, percentOf: ["clear"] }),
           ],
         },
       ],
@@ -194,7 +194,7 @@ function templates(m: Codes): PlanDocumentInput[] {
     {
       name: "Satin clear over a scuffed finish",
       description: "Freshen an existing finish: scuff, clean, two coats of satin clear.",
-      layers: [prepLayer(), clearLayer(m, "HC-CL-21", 2)],
+      layers: [prepLayer(), clearLayer(m, "S5-B03", 2)],
     },
   ];
 }
@@ -202,9 +202,9 @@ function templates(m: Codes): PlanDocumentInput[] {
 /** Which toner and ground a demo job's finish words ask for. */
 function finishOf(title: string) {
   const t = title.toLowerCase();
-  const toner = t.includes("cobalt") ? "HC-TN-22" : t.includes("tangerine") ? "HC-TN-23" : t.includes("emerald") ? "HC-TN-24" : t.includes("violet") ? "HC-TN-25" : t.includes("root beer") ? "HC-TN-26" : "HC-TN-21";
-  const ground = t.includes("gold") ? "HC-GC-11" : t.includes("black") ? "HC-GC-02" : "HC-GC-10";
-  const solidGround = t.includes("black") ? "HC-GC-02" : t.includes("white") || t.includes("cream") ? "HC-GC-01" : "HC-GC-20";
+  const toner = t.includes("cobalt") ? "S4-B02" : t.includes("tangerine") ? "S4-B03" : t.includes("emerald") ? "S4-B04" : t.includes("violet") ? "S4-B05" : t.includes("root beer") ? "S4-B06" : "S4-B01";
+  const ground = t.includes("gold") ? "S3-B11" : t.includes("black") ? "S3-B02" : "S3-B10";
+  const solidGround = t.includes("black") ? "S3-B02" : t.includes("white") || t.includes("cream") ? "S3-B01" : "S3-B20";
   return { candy: t.includes("candy"), toner, ground, solidGround, flake: t.includes("flake"), satin: t.includes("satin") };
 }
 
@@ -214,17 +214,17 @@ function fitLayers(m: Codes, templateIndex: number, finish: ReturnType<typeof fi
   let changed = false;
   const layers = base.map((l) => {
     if (l.kind === "candy" && finish.candy && templateIndex !== 1) {
-      if (finish.toner !== (templateIndex === 2 ? "HC-TN-22" : "HC-TN-21")) {
+      if (finish.toner !== (templateIndex === 2 ? "S4-B02" : "S4-B01")) {
         changed = true;
         return candyLayer(m, finish.toner, l.coats as number);
       }
     }
     if (l.kind === "ground_coat") {
       let ground = l;
-      if (templateIndex === 0 && finish.ground !== "HC-GC-10") ground = groundLayer(m, finish.ground, finish.ground === "HC-GC-02" ? "Black ground" : "Metallic ground");
-      if (templateIndex === 1 && finish.solidGround !== "HC-GC-20") ground = groundLayer(m, finish.solidGround, "Solid colour");
+      if (templateIndex === 0 && finish.ground !== "S3-B10") ground = groundLayer(m, finish.ground, finish.ground === "S3-B02" ? "Black ground" : "Metallic ground");
+      if (templateIndex === 1 && finish.solidGround !== "S3-B20") ground = groundLayer(m, finish.solidGround, "Solid colour");
       if (finish.flake) {
-        ground = { ...ground, name: `${ground.name} with flake`, components: [...ground.components, comp(m["HC-AD-05"]!, "flake", { percent: 2, percentOf: ["ground"] })] };
+        ground = { ...ground, name: `${ground.name} with flake`, components: [...ground.components, comp(m["S7-B05"]!, "flake", { percent: 2, percentOf: ["basecoat"] })] };
       }
       if (ground !== l) changed = true;
       return ground;

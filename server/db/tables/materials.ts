@@ -7,7 +7,7 @@ export const materials = sqliteTable(
   "materials",
   {
     id: integer("id").primaryKey({ autoIncrement: true }),
-    /** The shop's own code, e.g. "HC-CL-20". */
+    /** The shop's own code, e.g. "S5-B02". */
     code: text("code").notNull(),
     name: text("name").notNull(),
     category: text("category", { enum: MATERIAL_CATEGORIES }).notNull(),

@@ -16,6 +16,8 @@ export type AuditEntry = {
   action: string;
   before?: unknown;
   after?: unknown;
+  /** Keys kept on both sides even when unchanged, to name the record in words (a material's code and name). */
+  keep?: readonly string[];
 };
 
 /**
@@ -27,7 +29,7 @@ export function recordAudit(db: Pick<AppDeps["db"], "insert">, ctx: RequestConte
   if (before && after && typeof before === "object" && typeof after === "object") {
     const b = before as Record<string, unknown>;
     const a = after as Record<string, unknown>;
-    const keys = [...new Set([...Object.keys(b), ...Object.keys(a)])].filter((k) => JSON.stringify(b[k]) !== JSON.stringify(a[k]));
+    const keys = [...new Set([...Object.keys(b), ...Object.keys(a)])].filter((k) => entry.keep?.includes(k) || JSON.stringify(b[k]) !== JSON.stringify(a[k]));
     before = Object.fromEntries(keys.map((k) => [k, b[k]]));
     after = Object.fromEntries(keys.map((k) => [k, a[k]]));
   }

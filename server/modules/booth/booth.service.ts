@@ -4,13 +4,15 @@ import type { z } from "zod";
 import type { AppDeps } from "../../deps";
 import type { Actor } from "../../auth/session";
 import type { RequestContext } from "../../http/context";
-import { coatLogs, customers, guns, jobItems, jobs, jobStageEvents, planVersions, plans, prepRecords, testPanels, uploads, users } from "../../db/schema";
+import { coatLogs, customers, guns, jobItems, jobs, planVersions, plans, prepRecords, testPanels, uploads, users } from "../../db/schema";
 import { conflict, forbidden, notFound } from "../../http/http-error";
 import { iso } from "../../http/dates";
 import { madeAt } from "../../http/made-at";
 import { checkGun, gunNames } from "../guns/guns.service";
 import { setupColumns, setupOf } from "../guns/spray-setup";
 import { findJobFor } from "../jobs/jobs.access";
+import { recordStageMove } from "../jobs/stage-move";
+import type { Tx } from "../../db/client";
 import { preparedQuery } from "../../db/prepared";
 import { freezePlanVersion, jobPlanRow, loadPlanVersion, type LoadedPlanVersion } from "../plans/plans.service";
 import { panelLabel } from "../panels/panels.service";
@@ -293,9 +295,8 @@ function assertCanLog(deps: AppDeps, actor: Actor, jobId: number): JobRow {
   return job;
 }
 
-function moveStage(tx: Pick<AppDeps["db"], "update" | "insert">, job: JobRow, to: Stage, note: string, actor: Actor, now: number) {
-  tx.update(jobs).set({ stage: to, stageChangedAt: now, updatedAt: now }).where(eq(jobs.id, job.id)).run();
-  tx.insert(jobStageEvents).values({ jobId: job.id, fromStage: job.stage, toStage: to, note, userId: actor.id, at: now }).run();
+function moveStage(tx: Tx, job: JobRow, to: Stage, note: string, actor: Actor, now: number) {
+  recordStageMove(tx, { jobId: job.id, from: job.stage, to, note, userId: actor.id, at: now });
 }
 
 /**

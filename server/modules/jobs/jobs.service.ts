@@ -1,5 +1,5 @@
 import { updateAtVersion } from "../../db/edit-version";
-import { aliasedTable, and, asc, count, desc, eq, gte, inArray, like, lt, lte, notInArray, or, sql, type SQL } from "drizzle-orm";
+import { aliasedTable, and, asc, count, desc, eq, gte, inArray, like, lt, lte, or, sql, type SQL } from "drizzle-orm";
 import type { z } from "zod";
 import type { AppDeps } from "../../deps";
 import { nextSlots } from "../schedule/schedule.service";
@@ -10,7 +10,8 @@ import { preparedQuery } from "../../db/prepared";
 import type { Db } from "../../db/client";
 import { iso } from "../../http/dates";
 import { parseSort, type Page } from "../../../shared/api/pagination";
-import { nextStagesFor, OPEN_STAGES, STAGES, type Stage, STAGE_LABELS } from "../../../shared/domain/stages";
+import { DUE_STAGES, isClosedStage, nextStagesFor, OPEN_STAGES, STAGES, type Stage, STAGE_LABELS } from "../../../shared/domain/stages";
+import { recordStageMove } from "./stage-move";
 import type {
   BoardDto,
   JobDetailDto,
@@ -112,7 +113,7 @@ function listFilters(s: ListShape): SQL | undefined {
   if (s.customer) filters.push(eq(jobs.customerId, p("customerId")));
   if (s.painter) filters.push(eq(jobs.assignedPainterId, p("painterId")));
   if (s.due) {
-    filters.push(notInArray(jobs.stage, ["ready", "delivered", "cancelled"]));
+    filters.push(inArray(jobs.stage, [...DUE_STAGES]));
     filters.push(s.due === "overdue" ? lt(jobs.dueDate, p("today")) : and(gte(jobs.dueDate, p("today")), lte(jobs.dueDate, p("weekEnd"))));
   }
   if (s.text) filters.push(or(like(jobs.title, p("text")), like(customers.name, p("text")), s.number ? eq(jobs.id, p("number")) : undefined));
@@ -195,7 +196,7 @@ export function jobBoard(deps: AppDeps, actor: Actor): BoardDto {
       .map((r) => [r.stage, r.n]),
   );
   const columns = STAGES.map((stage) => {
-    const recentFirst = stage === "delivered" || stage === "cancelled";
+    const recentFirst = isClosedStage(stage);
     const rows = selectJobs(deps.db)
       .where(and(eq(jobs.stage, stage), scope))
       .orderBy(...(recentFirst ? [desc(jobs.stageChangedAt)] : [sql`${jobs.dueDate} is null`, asc(jobs.dueDate)]), desc(jobs.id))
@@ -306,10 +307,7 @@ export function changeStage(deps: AppDeps, actor: Actor, id: number, input: z.ou
   }
   const now = deps.now();
   deps.db.transaction((tx) => {
-    tx.update(jobs).set({ stage: input.stage, stageChangedAt: now, updatedAt: now }).where(eq(jobs.id, id)).run();
-    tx.insert(jobStageEvents)
-      .values({ jobId: id, fromStage: job.stage, toStage: input.stage, note: input.note ?? null, userId: actor.id, at: now })
-      .run();
+    recordStageMove(tx, { jobId: id, from: job.stage, to: input.stage, note: input.note ?? null, userId: actor.id, at: now });
   });
   afterStageChange(deps, actor, id, input.stage);
   return getJob(deps, actor, id);

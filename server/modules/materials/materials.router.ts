@@ -3,7 +3,6 @@ import type { AppDeps } from "../../deps";
 import { actorOf, allow } from "../../http/guard";
 import { body, params, query } from "../../http/validate";
 import { ctxOf } from "../../http/context";
-import { notFound } from "../../http/http-error";
 import { idParamsSchema } from "../../../shared/schemas/common.schema";
 import {
   createLotInputSchema,
@@ -15,23 +14,21 @@ import {
   updateMaterialInputSchema,
   uploadMaterialFileInputSchema,
 } from "../../../shared/schemas/material.schema";
-import { MAX_DOCUMENT_BYTES, readStored, removeStored, uploadMiddleware } from "../uploads/storage";
+import { MAX_DOCUMENT_BYTES, uploadMiddleware } from "../uploads/storage";
+import { deleteFile, listFiles, readFile, uploadFile } from "./material-files.service";
 import {
   createLot,
   createMaterial,
-  deleteFile,
   deleteLot,
   deleteMaterial,
-  findFile,
   getMaterial,
-  listFiles,
   listLots,
   listMaterials,
   lowStock,
   updateLot,
   updateMaterial,
-  uploadFile,
 } from "./materials.service";
+import { sendFile } from "../../http/send-file";
 
 /**
  * The materials catalogue. Every staff member reads it (painters without any cost field); the office edits it.
@@ -55,8 +52,7 @@ export function materialsRouter(deps: AppDeps) {
     res.json(updateMaterial(deps, ctxOf(req, res), params(req, idParamsSchema).id, body(req, updateMaterialInputSchema)));
   });
   r.delete("/:id", allow("office"), (req, res) => {
-    const { storedNames } = deleteMaterial(deps, ctxOf(req, res), params(req, idParamsSchema).id);
-    removeStored(deps.uploadsDir, ...storedNames);
+    deleteMaterial(deps, ctxOf(req, res), params(req, idParamsSchema).id);
     res.status(204).end();
   });
 
@@ -86,18 +82,11 @@ export function materialsRouter(deps: AppDeps) {
   });
   r.get("/:id/files/:fileId", allow("staff"), (req, res) => {
     const p = params(req, fileParamsSchema);
-    const file = findFile(deps, p.id, p.fileId);
-    const data = readStored(deps.uploadsDir, file.storedName);
-    if (!data) throw notFound("File");
-    res.setHeader("Content-Type", file.mime);
-    res.setHeader("Content-Disposition", `inline; filename="${file.originalName.replace(/"/g, "")}"`);
-    res.setHeader("Cache-Control", "private, max-age=300");
-    res.send(data);
+    sendFile(res, { ...readFile(deps, p.id, p.fileId), disposition: "inline", kept: "stored" });
   });
   r.delete("/:id/files/:fileId", allow("office"), (req, res) => {
     const p = params(req, fileParamsSchema);
-    const file = deleteFile(deps, p.id, p.fileId);
-    removeStored(deps.uploadsDir, file.storedName, file.thumbName);
+    deleteFile(deps, p.id, p.fileId);
     res.status(204).end();
   });
   return r;

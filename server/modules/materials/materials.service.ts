@@ -1,13 +1,15 @@
 import { updateAtVersion } from "../../db/edit-version";
-import { and, asc, count, eq, inArray, like, or, sql, type SQL } from "drizzle-orm";
+import { and, asc, count, eq, like, or, sql, type SQL } from "drizzle-orm";
 import type { AppDeps } from "../../deps";
 import type { Actor } from "../../auth/session";
-import { layerComponents, materialLots, materials, mixSheetLines, uploads, users } from "../../db/schema";
-import { keepStored, storeFile } from "../uploads/storage";
+import { layerComponents, materialLots, materials, mixSheetLines, uploads } from "../../db/schema";
+import { removeStored } from "../uploads/storage";
 import { badRequest, conflict, notFound } from "../../http/http-error";
 import { iso } from "../../http/dates";
 import type { RequestContext } from "../../http/context";
 import { recordAudit } from "../audit/audit.service";
+import { findMaterial, type MaterialRow } from "./materials.access";
+import { listFiles } from "./material-files.service";
 import { cautionsFor } from "../../../shared/domain/safety";
 import { MATERIAL_CATEGORIES } from "../../../shared/domain/materials";
 import type {
@@ -16,8 +18,6 @@ import type {
   LotDto,
   MaterialDetailDto,
   MaterialDto,
-  MaterialFileDto,
-  MaterialFileKind,
   createLotInputSchema,
   updateLotInputSchema,
   updateMaterialInputSchema,
@@ -25,7 +25,6 @@ import type {
 import type { z } from "zod";
 import { roleCan } from "../../../shared/domain/roles";
 
-type MaterialRow = typeof materials.$inferSelect;
 type LotRow = typeof materialLots.$inferSelect;
 
 /** Only the office (owner, estimator) sees what materials cost. */
@@ -89,12 +88,6 @@ export function lowStock(deps: AppDeps, actor: Actor): MaterialDto[] {
     .sort((a, b) => a.stockOnHand / Math.max(a.lowStockThreshold ?? 1, 1e-9) - b.stockOnHand / Math.max(b.lowStockThreshold ?? 1, 1e-9));
 }
 
-export function findMaterial(deps: Pick<AppDeps, "db">, id: number): MaterialRow {
-  const row = deps.db.select().from(materials).where(eq(materials.id, id)).get();
-  if (!row) throw notFound("Material");
-  return row;
-}
-
 export function listLots(deps: AppDeps, materialId: number): LotDto[] {
   findMaterial(deps, materialId);
   const today = todayOf(deps.now());
@@ -105,26 +98,6 @@ export function listLots(deps: AppDeps, materialId: number): LotDto[] {
     .orderBy(sql`${materialLots.expiresOn} is null`, asc(materialLots.expiresOn), asc(materialLots.receivedOn), asc(materialLots.id))
     .all()
     .map((l) => toLotDto(l, today));
-}
-
-export function listFiles(deps: AppDeps, materialId: number): MaterialFileDto[] {
-  findMaterial(deps, materialId);
-  return deps.db
-    .select({ u: uploads, by: users.name })
-    .from(uploads)
-    .leftJoin(users, eq(uploads.uploadedBy, users.id))
-    .where(and(eq(uploads.ownerType, "material"), eq(uploads.ownerId, materialId)))
-    .orderBy(asc(uploads.kind), asc(uploads.id))
-    .all()
-    .map(({ u, by }) => ({
-      id: u.id,
-      kind: u.kind as MaterialFileKind,
-      mime: u.mime,
-      size: u.size,
-      originalName: u.originalName,
-      createdAt: iso(u.createdAt),
-      uploadedByName: by,
-    }));
 }
 
 export function getMaterial(deps: AppDeps, actor: Actor, id: number): MaterialDetailDto {
@@ -176,7 +149,7 @@ export function createMaterial(deps: AppDeps, ctx: RequestContext, input: Create
       })
       .returning()
       .get();
-    recordAudit(tx, ctx, { kind: "money", entity: "material", entityId: row.id, action: "created", after: { code: row.code, costCents: row.costCents, purchaseUnit: row.purchaseUnit } }, now);
+    recordAudit(tx, ctx, { kind: "money", entity: "material", entityId: row.id, action: "created", after: { code: row.code, name: row.name, costCents: row.costCents, purchaseUnit: row.purchaseUnit } }, now);
     return row.id;
   });
   return getMaterial(deps, ctx.actor, id);
@@ -203,8 +176,9 @@ export function updateMaterial(deps: AppDeps, ctx: RequestContext, id: number, i
           entity: "material",
           entityId: id,
           action: "cost_changed",
-          before: { costCents: before.costCents, purchaseUnit: before.purchaseUnit },
-          after: { costCents: set.costCents ?? before.costCents, purchaseUnit: set.purchaseUnit ?? before.purchaseUnit },
+          before: { code: before.code, name: before.name, costCents: before.costCents, purchaseUnit: before.purchaseUnit },
+          after: { code: set.code ?? before.code, name: set.name ?? before.name, costCents: set.costCents ?? before.costCents, purchaseUnit: set.purchaseUnit ?? before.purchaseUnit },
+          keep: ["code", "name"],
         },
         now,
       );
@@ -214,7 +188,8 @@ export function updateMaterial(deps: AppDeps, ctx: RequestContext, id: number, i
 }
 
 /** A material that a plan or a batch record uses can only be retired (active = false), never deleted. */
-export function deleteMaterial(deps: AppDeps, ctx: RequestContext, id: number): { storedNames: (string | null)[] } {
+/** Deletes a material no record uses, with its files (their rows in the transaction, the stored files after it). */
+export function deleteMaterial(deps: AppDeps, ctx: RequestContext, id: number) {
   const row = findMaterial(deps, id);
   const inPlans = deps.db.select({ n: count() }).from(layerComponents).where(eq(layerComponents.materialId, id)).get()?.n ?? 0;
   const inBatches = deps.db.select({ n: count() }).from(mixSheetLines).where(eq(mixSheetLines.materialId, id)).get()?.n ?? 0;
@@ -232,9 +207,9 @@ export function deleteMaterial(deps: AppDeps, ctx: RequestContext, id: number): 
   deps.db.transaction((tx) => {
     tx.delete(uploads).where(and(eq(uploads.ownerType, "material"), eq(uploads.ownerId, id))).run();
     tx.delete(materials).where(eq(materials.id, id)).run();
-    recordAudit(tx, ctx, { kind: "money", entity: "material", entityId: id, action: "deleted", before: { code: row.code, costCents: row.costCents } }, now);
+    recordAudit(tx, ctx, { kind: "money", entity: "material", entityId: id, action: "deleted", before: { code: row.code, name: row.name, costCents: row.costCents } }, now);
   });
-  return { storedNames: files.flatMap((f) => [f.s, f.t]) };
+  removeStored(deps.uploadsDir, ...files.flatMap((f) => [f.s, f.t]));
 }
 
 export function createLot(deps: AppDeps, materialId: number, input: z.output<typeof createLotInputSchema>): LotDto {
@@ -291,50 +266,4 @@ export function updateLot(deps: AppDeps, actorId: string, materialId: number, lo
 export function deleteLot(deps: AppDeps, materialId: number, lotId: number) {
   findLot(deps, materialId, lotId);
   deps.db.delete(materialLots).where(eq(materialLots.id, lotId)).run();
-}
-
-export function addFile(
-  deps: AppDeps,
-  actor: Actor,
-  materialId: number,
-  kind: MaterialFileKind,
-  stored: { mime: string; size: number; originalName: string; storedName: string; thumbName: string | null; width: number | null; height: number | null },
-): MaterialFileDto {
-  findMaterial(deps, materialId);
-  const row = deps.db
-    .insert(uploads)
-    .values({ ownerType: "material", ownerId: materialId, kind, ...stored, uploadedBy: actor.id, createdAt: deps.now() })
-    .returning()
-    .get();
-  return { id: row.id, kind, mime: row.mime, size: row.size, originalName: row.originalName, createdAt: iso(row.createdAt), uploadedByName: actor.name };
-}
-
-/** Checks a data sheet (or safety sheet) by its content, stores it and records it on the material: all or nothing. */
-export async function uploadFile(deps: AppDeps, actor: Actor, materialId: number, kind: MaterialFileKind, file: Express.Multer.File | undefined): Promise<MaterialFileDto> {
-  findMaterial(deps, materialId);
-  const stored = await storeFile(deps.uploadsDir, file, "document");
-  return keepStored(deps.uploadsDir, stored, () => addFile(deps, actor, materialId, kind, stored));
-}
-
-export function findFile(deps: AppDeps, materialId: number, fileId: number) {
-  findMaterial(deps, materialId);
-  const row = deps.db
-    .select()
-    .from(uploads)
-    .where(and(eq(uploads.id, fileId), eq(uploads.ownerType, "material"), eq(uploads.ownerId, materialId)))
-    .get();
-  if (!row) throw notFound("File");
-  return row;
-}
-
-export function deleteFile(deps: AppDeps, materialId: number, fileId: number) {
-  const row = findFile(deps, materialId, fileId);
-  deps.db.delete(uploads).where(eq(uploads.id, fileId)).run();
-  return row;
-}
-
-/** Materials by id (for plans and mix sheets). */
-export function materialsById(deps: Pick<AppDeps, "db">, ids: number[]): Map<number, MaterialRow> {
-  if (ids.length === 0) return new Map();
-  return new Map(deps.db.select().from(materials).where(inArray(materials.id, [...new Set(ids)])).all().map((m) => [m.id, m]));
 }

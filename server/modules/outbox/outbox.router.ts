@@ -6,6 +6,7 @@ import { notFound } from "../../http/http-error";
 import { params } from "../../http/validate";
 import { readOutbox, readOutboxAttachment } from "../../stand-ins/smtp-outbox";
 import { fromDigits } from "../../../shared/schemas/common.schema";
+import { sendFile } from "../../http/send-file";
 
 /** The local SMTP stand-in's outbox, readable by the owner in demo mode only. */
 export function outboxRouter(deps: AppDeps) {
@@ -24,8 +25,7 @@ export function outboxRouter(deps: AppDeps) {
     const meta = message?.attachments[p.index];
     const content = readOutboxAttachment(dir, p.id, p.index);
     if (!meta || !content) throw notFound("Attachment");
-    res.type(meta.contentType).setHeader("Content-Disposition", `attachment; filename="${meta.filename.replace(/"/g, "")}"`);
-    res.send(content);
+    sendFile(res, { data: content, mime: meta.contentType, name: meta.filename, disposition: "attachment", kept: "generated" });
   });
   return r;
 }

@@ -1,6 +1,7 @@
 import { and, eq, isNull } from "drizzle-orm";
 import type Stripe from "stripe";
 import type { AppDeps } from "../../deps";
+import type { Tx } from "../../db/client";
 import { checkoutSessions, customers, payments } from "../../db/schema";
 import { conflict } from "../../http/http-error";
 import { getPortalQuote, type PortalViewer } from "../portal/portal.service";
@@ -18,7 +19,6 @@ import { providerStatus, requirePayments, upstream } from "./provider-calls";
  * recorded and flagged for the owner as more than is due (payments.service).
  */
 
-type Db = AppDeps["db"];
 
 const queues = new WeakMap<AppDeps, ReturnType<typeof createKeyedQueue<number>>>();
 /** The queue of checkouts being opened: a quote's by its id, a change order's by minus its id. */
@@ -143,7 +143,7 @@ async function stateAtProvider(deps: AppDeps, id: string): Promise<"expired" | "
 }
 
 /** Records that a checkout ended (paid, or expired); a checkout already closed stays as it is. */
-export function markCheckout(db: Db | Parameters<Parameters<Db["transaction"]>[0]>[0], id: string, state: "expired" | "complete", now: number) {
+export function markCheckout(db: Tx, id: string, state: "expired" | "complete", now: number) {
   db.update(checkoutSessions)
     .set({ status: state, closedAt: now })
     .where(and(eq(checkoutSessions.id, id), eq(checkoutSessions.status, "open")))

@@ -1,10 +1,12 @@
 import { and, asc, desc, eq, inArray, or, type SQL } from "drizzle-orm";
 import type Stripe from "stripe";
 import type { AppDeps } from "../../deps";
-import { checkoutSessions, customers, jobStageEvents, jobs, payments, quoteVersions, refunds, users, webhookEvents } from "../../db/schema";
+import type { Tx } from "../../db/client";
+import { checkoutSessions, customers, jobs, payments, quoteVersions, refunds, users, webhookEvents } from "../../db/schema";
 import { badRequest, conflict, notFound } from "../../http/http-error";
 import type { RequestContext } from "../../http/context";
 import { iso, isoOrNull } from "../../http/dates";
+import { recordStageMove } from "../jobs/stage-move";
 import { recordAudit } from "../audit/audit.service";
 import { getSettings } from "../settings/settings.service";
 import { sendAndLog } from "../messages/messages.service";
@@ -88,7 +90,6 @@ export async function handleWebhook(deps: AppDeps, raw: Buffer | undefined, sign
   return { ...result, ...(receiptFor ? { receipt: true } : {}) };
 }
 
-type Tx = Parameters<Parameters<AppDeps["db"]["transaction"]>[0]>[0];
 
 function recordPayment(tx: Tx, deps: AppDeps, eventId: string, session: Stripe.Checkout.Session, now: number): { outcome: string; paymentId?: number; receipt?: boolean } {
   if (session.payment_status !== "paid") return { outcome: "checkout not paid yet" };
@@ -178,8 +179,7 @@ function bookJob(tx: Tx, jobId: number, by: string | null, now: number, note: st
       .orderBy(asc(users.createdAt))
       .get()?.id ??
     null;
-  tx.update(jobs).set({ stage: "booked", stageChangedAt: now, updatedAt: now }).where(eq(jobs.id, jobId)).run();
-  tx.insert(jobStageEvents).values({ jobId, fromStage: job.stage, toStage: "booked", userId: customerUser, via: "payment", note, at: now }).run();
+  recordStageMove(tx, { jobId, from: job.stage, to: "booked", userId: customerUser, via: "payment", note, at: now });
 }
 
 function recordRefund(tx: Tx, eventId: string, refund: Pick<Stripe.Refund, "id" | "amount" | "status" | "metadata"> & { payment_intent: Stripe.Refund["payment_intent"] }, now: number): string {

@@ -8,6 +8,7 @@ import { badRequest, conflict, notFound } from "../../http/http-error";
 import { iso, isoOrNull } from "../../http/dates";
 import type { RequestContext } from "../../http/context";
 import { recordAudit } from "../audit/audit.service";
+import { planAuditSummary } from "./plan-audit";
 import { atVersion, nextVersion, staleEdit } from "../../db/edit-version";
 import { recordPlanChange, versionHeld } from "../change-orders/change-order-rows";
 import { findJobFor, jobScope } from "../jobs/jobs.access";
@@ -424,19 +425,6 @@ function insertLayers(tx: DbOrTx, versionId: number, layers: PlanDocument["layer
   });
 }
 
-/** What the audit keeps of a version: enough to see what changed without the whole catalogue. */
-function auditSummary(name: string, version: number, layers: { kind: string; name: string; coats: number; components: { label: string; materialId: number; parts?: number | null; percent?: number | null }[] }[]) {
-  return {
-    name,
-    version,
-    layers: layers.map(
-      (l) =>
-        `${l.kind} "${l.name}" ×${l.coats}: ` +
-        l.components.map((c) => `${c.label}#${c.materialId} ${c.parts != null ? `${c.parts} parts` : `${c.percent}%`}`).join(", "),
-    ),
-  };
-}
-
 /** A loaded version as a plan document (for copies). */
 export function documentOf(name: string, description: string | null, v: LoadedPlanVersion): PlanDocument {
   return {
@@ -494,7 +482,7 @@ export function insertPlan(tx: DbOrTx, ctx: RequestContext, doc: PlanDocument, o
       entity: opts.isTemplate ? "plan_template" : "plan",
       entityId: plan.id,
       action: "created",
-      after: { ...auditSummary(doc.name, 1, doc.layers), jobId: opts.jobId, copiedFromPlanId: opts.copiedFromPlanId },
+      after: { ...planAuditSummary(tx, doc.name, 1, doc.layers), jobId: opts.jobId, copiedFromPlanId: opts.copiedFromPlanId },
     },
     opts.now,
   );
@@ -584,8 +572,8 @@ export function savePlan(deps: AppDeps, ctx: RequestContext, planId: number, doc
         entity: plan.isTemplate ? "plan_template" : "plan",
         entityId: planId,
         action: locked ? "version_created" : "updated",
-        before: auditSummary(plan.name, before.version, before.layers),
-        after: auditSummary(doc.name, version, doc.layers),
+        before: planAuditSummary(tx, plan.name, before.version, before.layers),
+        after: planAuditSummary(tx, doc.name, version, doc.layers),
       },
       now,
     );

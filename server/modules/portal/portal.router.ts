@@ -18,6 +18,7 @@ import {
   portalSession,
   portalViewer,
 } from "./portal.service";
+import { sendFile } from "../../http/send-file";
 
 const photoQuerySchema = z.object({ size: z.enum(["thumb", "full"]).optional(), token: z.string().max(200).optional() });
 
@@ -44,8 +45,7 @@ export function portalRouter(deps: AppDeps) {
     getPortalQuote(deps, viewer, id);
     const v = offeredVersion(deps.db, id)!;
     const pdf = await renderQuotePdf(pdfDataFor(deps, v));
-    res.type("application/pdf").setHeader("Content-Disposition", `inline; filename="${pdfFileName(v)}"`);
-    res.send(pdf);
+    sendFile(res, { data: pdf, mime: "application/pdf", name: pdfFileName(v), disposition: "inline", kept: "generated" });
   });
   r.post("/quotes/:id/approve", allow("public"), (req, res) => {
     const viewer = portalViewer(deps, req, res);

@@ -24,6 +24,7 @@ import {
   sendQuote,
   updateQuote,
 } from "./quotes.service";
+import { sendFile } from "../../http/send-file";
 
 /** Quotes are the office's (owner, estimator): painters never see prices, customers use the portal. */
 export function quotesRouter(deps: AppDeps) {
@@ -56,8 +57,7 @@ export function quotesRouter(deps: AppDeps) {
   r.get("/:id/pdf", allow("office"), async (req, res) => {
     const id = params(req, idParamsSchema).id;
     const pdf = await quotePdf(deps, id, query(req, quotePdfQuerySchema).version);
-    res.type("application/pdf").setHeader("Content-Disposition", `inline; filename="${pdf.filename}"`);
-    res.send(pdf.content);
+    sendFile(res, { data: pdf.content, mime: "application/pdf", name: pdf.filename, disposition: "inline", kept: "generated" });
   });
   r.post("/:id/send", allow("office"), async (req, res) => {
     res.json(await sendQuote(deps, ctxOf(req, res), params(req, idParamsSchema).id, body(req, sendQuoteInputSchema)));

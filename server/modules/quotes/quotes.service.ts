@@ -2,11 +2,12 @@ import { updateAtVersion } from "../../db/edit-version";
 import { and, asc, count, desc, eq, inArray, isNotNull, isNull, lt, or, sql, type SQL } from "drizzle-orm";
 import type { z } from "zod";
 import type { AppDeps } from "../../deps";
-import type { Db } from "../../db/client";
-import { customers, jobItems, jobStageEvents, jobs, payments, quoteVersions, quotes, users } from "../../db/schema";
+import type { Tx } from "../../db/client";
+import { customers, jobItems, jobs, payments, quoteVersions, quotes, users } from "../../db/schema";
 import { badRequest, conflict, notFound } from "../../http/http-error";
 import type { RequestContext } from "../../http/context";
 import { iso, isoOrNull } from "../../http/dates";
+import { recordStageMove } from "../jobs/stage-move";
 import { recordAudit } from "../audit/audit.service";
 import { getSettings } from "../settings/settings.service";
 import { findJobFor } from "../jobs/jobs.access";
@@ -29,7 +30,6 @@ import type {
 } from "../../../shared/schemas/quote.schema";
 
 type VersionRow = typeof quoteVersions.$inferSelect;
-type Tx = Pick<Db, "select" | "insert" | "update" | "delete">;
 
 /** Calendar date (YYYY-MM-DD) in the server's time zone, `addDays` later. */
 export function localDate(ms: number, addDays = 0): string {
@@ -563,8 +563,7 @@ export async function sendQuote(deps: AppDeps, ctx: RequestContext, id: number, 
     recordAudit(tx, ctx, { kind: "money", entity: "quote", entityId: id, action: first ? "sent" : "resent", after: { version: v.version, to, totalCents: t.totalCents, depositCents: t.depositCents } }, now);
     const job = tx.select({ stage: jobs.stage }).from(jobs).where(eq(jobs.id, q.jobId)).get();
     if (first && job?.stage === "inquiry") {
-      tx.update(jobs).set({ stage: "quoted", stageChangedAt: now, updatedAt: now }).where(eq(jobs.id, q.jobId)).run();
-      tx.insert(jobStageEvents).values({ jobId: q.jobId, fromStage: "inquiry", toStage: "quoted", userId: ctx.actor.id, note: `Quote #${id} sent`, at: now }).run();
+      recordStageMove(tx, { jobId: q.jobId, from: "inquiry", to: "quoted", userId: ctx.actor.id, note: `Quote #${id} sent`, at: now });
     }
   });
   return getQuote(deps, id);

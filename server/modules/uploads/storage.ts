@@ -8,7 +8,6 @@ import { fileTypeFromBuffer } from "file-type";
 import { HttpError, isStorageFull, storageFull } from "../../http/http-error";
 import { acceptsFiles } from "../../http/media-type";
 
-export const MAX_PHOTO_BYTES = 15 * 1024 * 1024;
 export const MAX_DOCUMENT_BYTES = 20 * 1024 * 1024;
 
 const IMAGE_TYPES = ["image/jpeg", "image/png", "image/webp"] as const;

@@ -14,6 +14,7 @@ import { uploadMiddleware } from "./storage";
 import { acceptsFiles } from "../../http/media-type";
 import { idempotent } from "../../http/idempotency";
 import { createUpload, deleteUpload, listUploads, photoTooLarge, readUpload, updateUpload } from "./uploads.service";
+import { sendFile } from "../../http/send-file";
 
 /** Multer in memory, with the size limit answered as a 413 that says what the limits are. */
 function receiveFile(): RequestHandler {
@@ -33,10 +34,10 @@ export function uploadsRouter(deps: AppDeps) {
     res.json(listUploads(deps, actorOf(res), query(req, listUploadsQuerySchema)));
   });
   r.get("/:id", allow("signedIn"), (req, res) => {
-    sendFile(res, readUpload(deps, actorOf(res), params(req, idParamsSchema).id, "file"));
+    sendFile(res, { ...readUpload(deps, actorOf(res), params(req, idParamsSchema).id, "file"), disposition: "inline", kept: "stored" });
   });
   r.get("/:id/thumb", allow("signedIn"), (req, res) => {
-    sendFile(res, readUpload(deps, actorOf(res), params(req, idParamsSchema).id, "thumb"));
+    sendFile(res, { ...readUpload(deps, actorOf(res), params(req, idParamsSchema).id, "thumb"), disposition: "inline", kept: "stored" });
   });
   r.patch("/:id", allow("staff"), (req, res) => {
     res.json(updateUpload(deps, actorOf(res), params(req, idParamsSchema).id, body(req, updateUploadInputSchema)));
@@ -48,11 +49,3 @@ export function uploadsRouter(deps: AppDeps) {
   return r;
 }
 
-function sendFile(res: import("express").Response, file: { data: Buffer; mime: string; name: string }) {
-  res.set({
-    "Content-Type": file.mime,
-    "Cache-Control": "private, max-age=3600",
-    "Content-Disposition": `inline; filename="${file.name.replace(/"/g, "")}"`,
-  });
-  res.end(file.data);
-}

@@ -1,5 +1,6 @@
 import { TriangleAlert } from "lucide-react";
-import { formatAmount, formatNumber } from "@/utils/format-quantity";
+import { formatAmount } from "@/utils/format-quantity";
+import { roundingHeadline, smallPercent } from "./rounding-words";
 
 export type RoundingNoteLine = { name: string; ratioErrorPct: number; reference: string[] };
 
@@ -13,7 +14,7 @@ export type RoundingNoteProps = {
   exactTotal?: number;
   roundedTotal?: number;
   raisedFromZero?: string[];
-  /** Display names by component name (e.g. "CL-20 Intercoat clear"). */
+  /** Display names by component name (e.g. "S5-B02 Intercoat clear"). */
   names?: Record<string, string>;
 };
 
@@ -24,10 +25,13 @@ export function RoundingNote({ step, unit, lines, moved, tolerancePct, exactTota
   const extra = exactTotal !== undefined && roundedTotal !== undefined && roundedTotal - exactTotal > step * 1e-6 ? roundedTotal - exactTotal : 0;
   const makes = extra > 0 ? ` The batch comes to ${formatAmount(roundedTotal!, unit, 4)}, ${formatAmount(extra, unit, 4)} more than asked.` : "";
   const raised = raisedFromZero.length ? ` Raised from zero to one step: ${raisedFromZero.map(label).join(", ")}.` : "";
+  const worstPct = Math.max(0, ...lines.map((l) => Math.abs(l.ratioErrorPct)));
+  const headline = roundingHeadline({ stepText, worstPct, tolerancePct, movedCount: moved.length });
   if (moved.length === 0) {
     return (
       <p role="status" className="text-sm text-primer-700">
-        Rounded to {stepText}: every ratio stays within {formatNumber(tolerancePct, 1)} %.{makes}
+        {headline}
+        {makes}
         {raised}
       </p>
     );
@@ -37,13 +41,13 @@ export function RoundingNote({ step, unit, lines, moved, tolerancePct, exactTota
     <div role="status" className="flex items-start gap-2 rounded-lg border-l-4 border-flake-600 bg-flake-50 px-3 py-2 text-sm text-flake-900">
       <TriangleAlert aria-hidden className="mt-0.5 size-4 shrink-0" />
       <div>
-        <p className="font-semibold">Rounding to {stepText} moves {moved.length === 1 ? "one ratio" : `${moved.length} ratios`} beyond {formatNumber(tolerancePct, 1)} %:</p>
+        <p className="font-semibold">{headline}</p>
         <ul className="ml-4 list-disc">
           {moved.map((n) => {
             const l = byName.get(n)!;
             return (
               <li key={n}>
-                {label(n)}: {formatNumber(l.ratioErrorPct, 1)} % off its ratio to {l.reference.map(label).join(" + ")}
+                {label(n)}: {smallPercent(Math.abs(l.ratioErrorPct))} % off its ratio to {l.reference.map(label).join(" + ")}
               </li>
             );
           })}

@@ -1,7 +1,7 @@
 import { office, staff, type MatrixRows } from "./rows";
 import { fx, TINY_PDF } from "../../support/finish-fixtures";
 import { storeFile } from "../../../server/modules/uploads/storage";
-import { addFile } from "../../../server/modules/materials/materials.service";
+import { addFile } from "../../../server/modules/materials/material-files.service";
 import type { Shop } from "../../support/test-app";
 
 /** Stores a safety data sheet on the clear, for the file read/delete rows. */
@@ -13,7 +13,7 @@ async function withFile(s: Shop) {
 }
 const fileId = (s: Shop) => (s as Shop & { fileId?: number }).fileId;
 
-const newMaterial = () => ({ code: "T-SL-05", name: "Test sealer, grey", category: "sealer", purchaseUnit: "quart", costCents: 5400, volumeSolidsPct: 48 });
+const newMaterial = () => ({ code: "S9-B12", name: "Test sealer, grey", category: "sealer", purchaseUnit: "quart", costCents: 5400, volumeSolidsPct: 48 });
 
 export const rows: MatrixRows = {
   "GET /api/materials": { prepare: fx, path: () => "/api/materials", expect: staff(200) },

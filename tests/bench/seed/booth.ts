@@ -28,7 +28,7 @@ export function insertPrep(sqlite: Database.Database, rand: Rand, jobs: SeedJob[
       const at = sprayed ? job.boothAt! - 3 * HOUR + i * 10 * MIN : now - rand.int(2, 30) * HOUR;
       const promoter = needsAdhesionPromoter(substrate) && signed;
       insert.run(job.id, itemId, substrate, rand.pick(["scuff_pad", "hand_sanding", "da_sanding"]), rand.pick([320, 400, 600]), "Wax and grease remover, then final wipe", signed ? 1 : 0,
-        promoter ? 1 : 0, promoter ? "Plastic adhesion promoter (HC-AP-01)" : null, job.painterId, at, signed ? job.painterId : null, signed ? at + 5 * MIN : null, at - HOUR, at);
+        promoter ? 1 : 0, promoter ? "Plastic adhesion promoter (S1-B04)" : null, job.painterId, at, signed ? job.painterId : null, signed ? at + 5 * MIN : null, at - HOUR, at);
     });
   }
 }

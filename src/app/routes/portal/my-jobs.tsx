@@ -1,5 +1,6 @@
 import { useQuery } from "@tanstack/react-query";
 import { PaintBucket } from "lucide-react";
+import { isClosedStage } from "@shared/domain/stages";
 import { EmptyState } from "@/components/ui/empty-state";
 import { PageHeader } from "@/components/ui/page-header";
 import { Spinner } from "@/components/ui/spinner";
@@ -7,16 +8,14 @@ import { useCurrentUser } from "@/features/auth/hooks/use-current-user";
 import { portalQueries } from "@/features/portal/api/portal.queries";
 import { PortalJobCard } from "@/features/portal/components/portal-job-card";
 
-const CLOSED = ["delivered", "cancelled"];
-
 export default function MyJobsRoute() {
   const user = useCurrentUser();
   // The portal's own API: every job of this customer with its parts, most recently changed first, in one request.
   const { data, isPending } = useQuery(portalQueries.jobs());
   const firstName = user.name.split(" ")[0];
   const jobs = data?.items ?? [];
-  const current = jobs.filter((j) => !CLOSED.includes(j.stage));
-  const past = jobs.filter((j) => CLOSED.includes(j.stage));
+  const current = jobs.filter((j) => !isClosedStage(j.stage));
+  const past = jobs.filter((j) => isClosedStage(j.stage));
 
   return (
     <>

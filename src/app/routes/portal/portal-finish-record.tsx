@@ -1,5 +1,4 @@
 import { useQuery } from "@tanstack/react-query";
-import { useParams } from "react-router";
 import { isApiError } from "@/lib/api-client";
 import { Alert } from "@/components/ui/alert";
 import { Spinner } from "@/components/ui/spinner";
@@ -7,12 +6,11 @@ import { paths } from "@/config/paths";
 import { portalFinishRecordPdfUrl, portalQueries } from "@/features/portal/api/portal.queries";
 import { FinishRecordView } from "@/features/finish-record/components/finish-record-view";
 import { InPageNotFound } from "../in-page-not-found";
+import { useIdParam } from "@/hooks/use-id-param";
 
 /** The customer's copy of the finish record of their job (no internal notes, no costs). */
 export default function PortalFinishRecordRoute() {
-  const { jobId } = useParams();
-  const id = Number(jobId);
-  const valid = Number.isInteger(id) && id > 0;
+  const { id, valid } = useIdParam("jobId");
   const record = useQuery({ ...portalQueries.finishRecord(id), enabled: valid });
   if (!valid || (isApiError(record.error) && (record.error.status === 404 || record.error.status === 400)))
     return <InPageNotFound what="Job" backTo={paths.portal} backLabel="Back to my jobs" />;

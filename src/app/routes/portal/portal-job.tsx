@@ -1,4 +1,4 @@
-import { Link, useParams } from "react-router";
+import { Link } from "react-router";
 import { useQuery } from "@tanstack/react-query";
 import type { Stage } from "@shared/domain/stages";
 import { isApiError } from "@/lib/api-client";
@@ -12,14 +12,13 @@ import { ApprovedColour } from "@/features/portal/components/approved-colour";
 import { PortalColourChoice } from "@/features/portal/components/portal-colour-choice";
 import { PortalJobChanges } from "@/features/change-orders/components/portal-job-changes";
 import { InPageNotFound } from "../in-page-not-found";
+import { useIdParam } from "@/hooks/use-id-param";
 
 /** Stages from which the job has a finish record to read. */
 const SPRAYED: readonly Stage[] = ["in_booth", "curing", "finishing", "ready", "delivered"];
 
 export default function PortalJobRoute() {
-  const { jobId } = useParams();
-  const id = Number(jobId);
-  const valid = Number.isInteger(id) && id > 0;
+  const { id, valid } = useIdParam("jobId");
   const { data, error, isPending } = useQuery({ ...portalQueries.job(id), enabled: valid });
   if (!valid || (isApiError(error) && (error.status === 404 || error.status === 400))) return <InPageNotFound what="Job" backTo={paths.portal} backLabel="Back to my jobs" />;
   if (isPending || !data) return <Spinner label="Loading your job…" />;

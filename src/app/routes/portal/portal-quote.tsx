@@ -1,4 +1,5 @@
-import { useParams, useSearchParams } from "react-router";
+import { useSearchParams } from "react-router";
+import { useIdParam } from "@/hooks/use-id-param";
 import { useQuery } from "@tanstack/react-query";
 import { isApiError } from "@/lib/api-client";
 import { Spinner } from "@/components/ui/spinner";
@@ -8,10 +9,8 @@ import { PortalQuoteView } from "@/features/portal/components/portal-quote-view"
 import { InPageNotFound } from "../in-page-not-found";
 
 export default function PortalQuoteRoute() {
-  const { quoteId } = useParams();
+  const { id, valid } = useIdParam("quoteId");
   const [search] = useSearchParams();
-  const id = Number(quoteId);
-  const valid = Number.isInteger(id) && id > 0;
   const returnState = search.get("paid") ? "paid" : search.get("cancelled") ? "cancelled" : null;
   const { data, error, isPending } = useQuery({ ...portalQueries.quote(id, null, { waitForPayment: returnState === "paid" }), enabled: valid });
   if (!valid || (isApiError(error) && (error.status === 404 || error.status === 400)))

@@ -1,4 +1,5 @@
 import { useQuery } from "@tanstack/react-query";
+import { useSearchParams } from "react-router";
 import { PageHeader } from "@/components/ui/page-header";
 import { AccessGate } from "@/features/auth/components/access-gate";
 import { AuditTable } from "@/features/audit/components/audit-table";
@@ -13,16 +14,16 @@ export default function AuditRoute() {
 }
 
 function AuditPage() {
-  // Everyone who could appear in the trail (the "who" filter); 100 is the API page limit.
-  const users = useQuery(userQueries.list({ page: 1, pageSize: 100, sort: "name" }));
-  const people = (users.data?.items ?? []).map((u) => ({ id: u.id, name: u.name }));
+  // The "who" filter searches people on the server; the chosen one's name comes from their record.
+  const who = useSearchParams()[0].get("who") ?? "";
+  const person = useQuery({ ...userQueries.detail(who), enabled: Boolean(who) });
   return (
     <>
       <PageHeader
         title="Audit trail"
         description="Every change to money, finish plans, users and roles, and settings: who, when, from which address, and what it was before. Entries cannot be edited or removed."
       />
-      <AuditTable people={people} />
+      <AuditTable peopleSearch={userQueries.search} whoName={person.data?.name ?? (person.isError ? "Unknown person" : null)} />
     </>
   );
 }

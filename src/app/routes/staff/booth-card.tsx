@@ -1,5 +1,4 @@
 import { useQuery } from "@tanstack/react-query";
-import { useParams } from "react-router";
 import { isApiError } from "@/lib/api-client";
 import { Alert } from "@/components/ui/alert";
 import { Spinner } from "@/components/ui/spinner";
@@ -9,17 +8,16 @@ import { BoothCard } from "@/features/booth/components/booth-card";
 import { useCardWithQueue } from "@/features/booth/hooks/use-card-with-queue";
 import type { RouteModule } from "@/app/router";
 import { InPageNotFound } from "../in-page-not-found";
+import { idFrom, useIdParam } from "@/hooks/use-id-param";
 
 /** The card starts loading with the screen's code. */
 export const prefetch: RouteModule["prefetch"] = (queryClient, { params }) => {
-  const id = Number(params.jobId);
-  if (Number.isInteger(id) && id > 0) void queryClient.prefetchQuery(boothQueries.card(id));
+  const { id, valid } = idFrom(params.jobId);
+  if (valid) void queryClient.prefetchQuery(boothQueries.card(id));
 };
 
 export default function BoothCardRoute() {
-  const { jobId } = useParams();
-  const id = Number(jobId);
-  const valid = Number.isInteger(id) && id > 0;
+  const { id, valid } = useIdParam("jobId");
   const card = useQuery({ ...boothQueries.card(id), enabled: valid });
   const { shown, queued } = useCardWithQueue(card.data, card.dataUpdatedAt);
   if (!valid || (isApiError(card.error) && (card.error.status === 404 || card.error.status === 400)))

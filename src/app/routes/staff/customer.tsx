@@ -1,5 +1,5 @@
 import { useState } from "react";
-import { useNavigate, useParams } from "react-router";
+import { useNavigate } from "react-router";
 import { useQuery } from "@tanstack/react-query";
 import { Pencil, Plus, Trash2 } from "lucide-react";
 import type { CustomerDto } from "@shared/schemas/customer.schema";
@@ -18,6 +18,7 @@ import { CustomerForm } from "@/features/customers/components/customer-form";
 import { DeleteCustomerDialog } from "@/features/customers/components/delete-customer-dialog";
 import { CustomerJobList } from "@/features/jobs/components/job-list-compact";
 import { InPageNotFound } from "../in-page-not-found";
+import { useIdParam } from "@/hooks/use-id-param";
 
 export default function CustomerRoute() {
   return (
@@ -28,9 +29,7 @@ export default function CustomerRoute() {
 }
 
 function CustomerLoader() {
-  const { customerId } = useParams();
-  const id = Number(customerId);
-  const valid = Number.isInteger(id) && id > 0;
+  const { id, valid } = useIdParam("customerId");
   const { data, error, isPending } = useQuery({ ...customerQueries.detail(id), enabled: valid });
   if (!valid || (isApiError(error) && (error.status === 404 || error.status === 400)))
     return <InPageNotFound what="Customer" backTo={paths.customers} backLabel="Back to customers" />;

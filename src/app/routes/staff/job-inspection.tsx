@@ -1,5 +1,4 @@
 import { useQuery } from "@tanstack/react-query";
-import { useParams } from "react-router";
 import { isApiError } from "@/lib/api-client";
 import { Alert } from "@/components/ui/alert";
 import { ButtonLink } from "@/components/ui/button";
@@ -15,12 +14,11 @@ import { PrepSuggestion } from "@/features/intake/components/prep-suggestion";
 import { PhotoPanel } from "@/features/uploads/components/photo-panel";
 import { formatDateTime } from "@/utils/format-date";
 import { InPageNotFound } from "../in-page-not-found";
+import { useIdParam } from "@/hooks/use-id-param";
 
 /** The estimator inspects each item before quoting; the inspection suggests the prep line for the quote. */
 export default function JobInspectionRoute() {
-  const { jobId } = useParams();
-  const id = Number(jobId);
-  const valid = Number.isInteger(id) && id > 0;
+  const { id, valid } = useIdParam("jobId");
   const user = useCurrentUser();
   const job = useQuery({ ...jobQueries.detail(id), enabled: valid });
   const inspection = useQuery({ ...intakeQueries.inspection(id), enabled: valid });

@@ -1,5 +1,5 @@
 import { useState } from "react";
-import { Link, useNavigate, useParams } from "react-router";
+import { Link, useNavigate } from "react-router";
 import { useQuery } from "@tanstack/react-query";
 import { Beaker, Layers, Lock, Pencil } from "lucide-react";
 import { roleCan } from "@shared/domain/roles";
@@ -26,12 +26,11 @@ import { planQueries, useStartJobPlan } from "@/features/plans/api/plans.queries
 import { MixSheetCreateDialog } from "@/features/plans/components/mix-sheet-create-dialog";
 import { EstimateTable, PlanLayersView } from "@/features/plans/components/plan-layers-view";
 import { InPageNotFound } from "../in-page-not-found";
+import { useIdParam } from "@/hooks/use-id-param";
 
 /** A job's finish plan: the layer stack, the material estimate, and the job's mix sheets. */
 export default function JobPlanRoute() {
-  const { jobId } = useParams();
-  const id = Number(jobId);
-  const valid = Number.isInteger(id) && id > 0;
+  const { id, valid } = useIdParam("jobId");
   const job = useQuery({ ...jobQueries.detail(id), enabled: valid });
   const plan = useQuery({ ...planQueries.jobPlan(id), enabled: valid });
   if (!valid || (isApiError(plan.error) && [400, 404].includes(plan.error.status))) return <InPageNotFound what="Job" backTo={paths.jobs} backLabel="Back to jobs" />;

@@ -1,5 +1,4 @@
 import { useQuery } from "@tanstack/react-query";
-import { useParams } from "react-router";
 import { SprayCan } from "lucide-react";
 import { roleCan } from "@shared/domain/roles";
 import { isApiError } from "@/lib/api-client";
@@ -15,11 +14,10 @@ import { prepQueries } from "@/features/prep/api/prep.queries";
 import { PrepItemCard } from "@/features/prep/components/prep-item-card";
 import { PhotoPanel } from "@/features/uploads/components/photo-panel";
 import { InPageNotFound } from "../in-page-not-found";
+import { useIdParam } from "@/hooks/use-id-param";
 
 export default function JobPrepRoute() {
-  const { jobId } = useParams();
-  const id = Number(jobId);
-  const valid = Number.isInteger(id) && id > 0;
+  const { id, valid } = useIdParam("jobId");
   const user = useCurrentUser();
   const job = useQuery({ ...jobQueries.detail(id), enabled: valid });
   const prep = useQuery({ ...prepQueries.job(id), enabled: valid });

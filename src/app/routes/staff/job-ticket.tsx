@@ -1,5 +1,4 @@
 import { useQuery } from "@tanstack/react-query";
-import { useParams } from "react-router";
 import { Printer, ShieldAlert } from "lucide-react";
 import { LAYER_KIND_LABELS } from "@shared/domain/layers";
 import { STAGE_LABELS } from "@shared/domain/stages";
@@ -13,6 +12,7 @@ import { paths } from "@/config/paths";
 import { boothQueries } from "@/features/booth/api/booth.queries";
 import { formatDate, formatDateTime } from "@/utils/format-date";
 import { InPageNotFound } from "../in-page-not-found";
+import { useIdParam } from "@/hooks/use-id-param";
 
 /** Hides the app frame when printing, so only the ticket goes on paper. */
 const PRINT_CSS = `@media print {
@@ -24,9 +24,7 @@ const PRINT_CSS = `@media print {
 
 /** A printable job ticket for the booth wall: the job, its layers, and a QR code that opens the booth card. */
 export default function JobTicketRoute() {
-  const { jobId } = useParams();
-  const id = Number(jobId);
-  const valid = Number.isInteger(id) && id > 0;
+  const { id, valid } = useIdParam("jobId");
   const ticket = useQuery({ ...boothQueries.ticket(id), enabled: valid });
   if (!valid || (isApiError(ticket.error) && (ticket.error.status === 404 || ticket.error.status === 400)))
     return <InPageNotFound what="Job" backTo={paths.jobs} backLabel="Back to jobs" />;

@@ -1,5 +1,5 @@
 import { useState } from "react";
-import { useNavigate, useParams } from "react-router";
+import { useNavigate } from "react-router";
 import { useQuery } from "@tanstack/react-query";
 import { ClipboardList, Pencil, Trash2 } from "lucide-react";
 import { roleCan } from "@shared/domain/roles";
@@ -33,11 +33,10 @@ import { JobQuotesPanel } from "@/features/quotes/components/job-quotes-panel";
 import { JobChangeOrdersPanel } from "@/features/change-orders/components/job-change-orders-panel";
 import { settingsQueries } from "@/features/settings/api/settings.queries";
 import { InPageNotFound } from "../in-page-not-found";
+import { useIdParam } from "@/hooks/use-id-param";
 
 export default function JobRoute() {
-  const { jobId } = useParams();
-  const id = Number(jobId);
-  const valid = Number.isInteger(id) && id > 0;
+  const { id, valid } = useIdParam("jobId");
   const { data: job, error, isPending } = useQuery({ ...jobQueries.detail(id), enabled: valid });
 
   if (!valid || (isApiError(error) && (error.status === 404 || error.status === 400)))
@@ -116,13 +115,8 @@ function JobPage({ job }: { job: JobDetailDto }) {
 }
 
 function EditJobDialog({ job, onClose }: { job: JobDetailDto; onClose: () => void }) {
-  const customers = useQuery(customerQueries.options());
   const painters = useQuery(userQueries.painters());
   const update = useUpdateJob(job.id);
-  const customerOptions = customers.data?.options ?? [];
-  const withCurrent = customerOptions.some((c) => c.id === job.customerId)
-    ? customerOptions
-    : [{ id: job.customerId, name: job.customerName }, ...customerOptions];
   const painterOptions = painters.data ?? [];
   const painterList =
     job.assignedPainterId && !painterOptions.some((p) => p.id === job.assignedPainterId)
@@ -131,11 +125,12 @@ function EditJobDialog({ job, onClose }: { job: JobDetailDto; onClose: () => voi
 
   return (
     <Dialog title={`Edit job #${job.id}`} onClose={onClose} size="lg">
-      {customers.isPending || painters.isPending ? (
+      {painters.isPending ? (
         <Spinner />
       ) : (
         <JobForm
-          customers={withCurrent}
+          customerSearch={customerQueries.search}
+          customerName={job.customerName}
           painters={painterList}
           defaultValues={{
             customerId: String(job.customerId),

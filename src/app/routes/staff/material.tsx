@@ -1,6 +1,6 @@
 import { formatMinutes } from "@shared/domain/duration";
 import { useState, type ReactNode } from "react";
-import { useNavigate, useParams } from "react-router";
+import { useNavigate } from "react-router";
 import { useQuery } from "@tanstack/react-query";
 import { Pencil, Trash2 } from "lucide-react";
 import { roleCan } from "@shared/domain/roles";
@@ -8,7 +8,6 @@ import { MATERIAL_CATEGORY_LABELS } from "@shared/domain/materials";
 import { centsToInput, formatCents } from "@shared/quote/money";
 import type { MaterialDetailDto } from "@shared/schemas/material.schema";
 import { isApiError } from "@/lib/api-client";
-import { Alert } from "@/components/ui/alert";
 import { Button } from "@/components/ui/button";
 import { Dialog } from "@/components/ui/dialog";
 import { PageHeader } from "@/components/ui/page-header";
@@ -26,11 +25,11 @@ import { LotsPanel } from "@/features/materials/components/lots-panel";
 import { MaterialForm } from "@/features/materials/components/material-form";
 import { HazardIcons } from "@/features/materials/components/materials-catalogue";
 import { InPageNotFound } from "../in-page-not-found";
+import { useIdParam } from "@/hooks/use-id-param";
+import { ConfirmDialog } from "@/components/ui/confirm-dialog";
 
 export default function MaterialRoute() {
-  const { materialId } = useParams();
-  const id = Number(materialId);
-  const valid = Number.isInteger(id) && id > 0;
+  const { id, valid } = useIdParam("materialId");
   const { data, error, isPending } = useQuery({ ...materialQueries.detail(id), enabled: valid });
   if (!valid || (isApiError(error) && (error.status === 404 || error.status === 400)))
     return <InPageNotFound what="Material" backTo={paths.materials} backLabel="Back to materials" />;
@@ -154,34 +153,21 @@ function EditMaterialDialog({ material: m, onClose }: { material: MaterialDetail
 function DeleteMaterialDialog({ material: m, onClose }: { material: MaterialDetailDto; onClose: () => void }) {
   const remove = useDeleteMaterial();
   const navigate = useNavigate();
-  const [problem, setProblem] = useState<string | null>(null);
   return (
-    <Dialog title={`Delete ${m.code}?`} onClose={onClose}>
-      <div className="flex flex-col gap-4">
-        {problem ? <Alert tone="error">{problem}</Alert> : null}
-        <p>A material used by a plan or a mix sheet cannot be deleted; retire it instead so the records keep it.</p>
-        <div className="flex flex-wrap gap-3">
-          <Button
-            variant="danger"
-            size="lg"
-            pending={remove.isPending}
-            onClick={async () => {
-              try {
-                await remove.mutateAsync(m.id);
-                toast.success(`Deleted ${m.code}`);
-                navigate(paths.materials, { replace: true });
-              } catch (error) {
-                setProblem(isApiError(error) ? error.message : "The material could not be deleted.");
-              }
-            }}
-          >
-            Delete material
-          </Button>
-          <Button variant="ghost" size="lg" onClick={onClose}>
-            Keep it
-          </Button>
-        </div>
-      </div>
-    </Dialog>
+    <ConfirmDialog
+      title={`Delete ${m.code}?`}
+      confirmLabel="Delete material"
+      keepLabel="Keep it"
+      pending={remove.isPending}
+      failure="The material could not be deleted."
+      onConfirm={async () => {
+        await remove.mutateAsync(m.id);
+        return `Deleted ${m.code}`;
+      }}
+      onDone={() => navigate(paths.materials, { replace: true })}
+      onClose={onClose}
+    >
+      A material used by a plan or a mix sheet cannot be deleted; retire it instead so the records keep it.
+    </ConfirmDialog>
   );
 }

@@ -1,5 +1,5 @@
 import { useState } from "react";
-import { Link, useNavigate, useParams } from "react-router";
+import { Link, useNavigate } from "react-router";
 import { useQuery } from "@tanstack/react-query";
 import { Ban, Printer, Trash2 } from "lucide-react";
 import { LAYER_KIND_LABELS } from "@shared/domain/layers";
@@ -22,11 +22,10 @@ import { WeighSteps } from "@/features/plans/components/weigh-steps";
 import { MIX_SHEET_PRINT_CSS, MixSheetTable, PotLife, RatioWarning, RecordMixedForm, SheetCautions } from "@/features/plans/components/mix-sheet-view";
 import { VocOverLimit } from "@/features/plans/components/layer-voc-note";
 import { InPageNotFound } from "../in-page-not-found";
+import { useIdParam } from "@/hooks/use-id-param";
 
 export default function MixSheetRoute() {
-  const { sheetId } = useParams();
-  const id = Number(sheetId);
-  const valid = Number.isInteger(id) && id > 0;
+  const { id, valid } = useIdParam("sheetId");
   const { data, error, isPending } = useQuery({ ...mixSheetQueries.detail(id), enabled: valid });
   if (!valid || (isApiError(error) && [400, 404].includes(error.status))) return <InPageNotFound what="Mix sheet" backTo={paths.jobs} backLabel="Back to jobs" />;
   if (isPending || !data) return <Spinner label="Loading the mix sheet…" />;

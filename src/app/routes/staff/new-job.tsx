@@ -23,23 +23,24 @@ export default function NewJobRoute() {
 function NewJobPage() {
   const navigate = useNavigate();
   const [searchParams] = useSearchParams();
-  const customers = useQuery(customerQueries.options());
   const painters = useQuery(userQueries.painters());
   const createJob = useCreateJob();
-  const preselected = searchParams.get("customer") ?? "";
+  const preselectedId = Number(searchParams.get("customer"));
+  const preselected = Number.isInteger(preselectedId) && preselectedId > 0 ? preselectedId : null;
+  const customer = useQuery({ ...customerQueries.detail(preselected ?? 0), enabled: preselected != null });
 
   return (
     <>
       <PageHeader title="New job" description="It starts as an inquiry. Add the parts to paint once it is created." />
       <Panel className="max-w-2xl">
-        {customers.isPending || painters.isPending ? (
-          <Spinner label="Loading customers and painters…" />
+        {painters.isPending || (preselected != null && customer.isPending) ? (
+          <Spinner label="Loading painters…" />
         ) : (
           <JobForm
-            customers={customers.data?.options ?? []}
-            customersTruncated={(customers.data?.total ?? 0) > (customers.data?.options.length ?? 0)}
+            customerSearch={customerQueries.search}
+            customerName={customer.data?.name ?? null}
             painters={painters.data ?? []}
-            defaultValues={{ customerId: preselected }}
+            defaultValues={{ customerId: customer.data ? String(customer.data.id) : "" }}
             submitLabel="Create job"
             onCancel={() => (canGoBack() ? navigate(-1) : navigate(paths.jobs))}
             onSubmit={async (values) => {

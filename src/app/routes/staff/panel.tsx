@@ -1,6 +1,6 @@
 import { useState } from "react";
 import { useQuery } from "@tanstack/react-query";
-import { Link, useNavigate, useParams } from "react-router";
+import { Link, useNavigate } from "react-router";
 import { Layers3, Pencil, Repeat2, Trash2 } from "lucide-react";
 import { roleCan } from "@shared/domain/roles";
 import { isApiError } from "@/lib/api-client";
@@ -23,11 +23,10 @@ import type { PanelDto } from "@shared/schemas/panel.schema";
 import { PANEL_LIGHT_LABELS } from "@shared/domain/spray-setup";
 import { RepeatFinishDialog } from "@/features/finish-record/components/repeat-finish-dialog";
 import { InPageNotFound } from "../in-page-not-found";
+import { useIdParam } from "@/hooks/use-id-param";
 
 export default function PanelRoute() {
-  const { panelId } = useParams();
-  const id = Number(panelId);
-  const valid = Number.isInteger(id) && id > 0;
+  const { id, valid } = useIdParam("panelId");
   const panel = useQuery({ ...panelQueries.detail(id), enabled: valid });
   if (!valid || (isApiError(panel.error) && (panel.error.status === 404 || panel.error.status === 400)))
     return <InPageNotFound what="Test panel" backTo={paths.panels} backLabel="Back to the panels" />;

@@ -48,7 +48,7 @@ export default function PanelsCompareRoute() {
   ];
   return (
     <>
-      <PageHeader title="Compare panels" description={`Verdicts use the shop's limits: under ${thresholds.deltaEMatch} is a match, under ${thresholds.deltaEClose} is close.`} />
+      <PageHeader title="Compare panels" description={`ΔE00 against the shop's colour tolerance: under ${thresholds.deltaEMatch} is within tolerance, under ${thresholds.deltaEClose} borderline, further out of tolerance.`} />
       <div className="overflow-x-auto pb-2">
         <table className="w-full min-w-[40rem] border-separate border-spacing-x-3 text-left">
           <caption className="sr-only">The compared panels, one per column</caption>

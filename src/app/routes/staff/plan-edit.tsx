@@ -10,6 +10,7 @@ import { materialQueries } from "@/features/materials/api/materials.queries";
 import { planQueries, useCreateTemplate, useSavePlan } from "@/features/plans/api/plans.queries";
 import { PlanEditor } from "@/features/plans/components/plan-editor";
 import { InPageNotFound } from "../in-page-not-found";
+import { idFrom } from "@/hooks/use-id-param";
 
 /** /plans/new (a new template) and /plans/:planId/edit. */
 export default function PlanEditRoute() {
@@ -23,8 +24,8 @@ export default function PlanEditRoute() {
 function PlanEditPage() {
   const { planId } = useParams();
   const isNew = planId === undefined;
-  const id = Number(planId);
-  const valid = isNew || (Number.isInteger(id) && id > 0);
+  const { id, valid: validId } = idFrom(planId);
+  const valid = isNew || validId;
   const plan = useQuery({ ...planQueries.detail(id), enabled: !isNew && valid });
   const materials = useQuery(materialQueries.list({}));
   if (!valid || (isApiError(plan.error) && [400, 404].includes(plan.error.status))) return <InPageNotFound what="Plan" backTo={paths.plans} backLabel="Back to plans" />;

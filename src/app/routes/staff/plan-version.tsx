@@ -1,4 +1,5 @@
-import { Link, useParams } from "react-router";
+import { Link } from "react-router";
+import { useIdParam } from "@/hooks/use-id-param";
 import { useQuery } from "@tanstack/react-query";
 import { isApiError } from "@/lib/api-client";
 import { Alert } from "@/components/ui/alert";
@@ -12,10 +13,9 @@ import { InPageNotFound } from "../in-page-not-found";
 
 /** One stored version of a plan, read-only: what was (or would be) sprayed. */
 export default function PlanVersionRoute() {
-  const { planId, versionId } = useParams();
-  const id = Number(planId);
-  const vid = Number(versionId);
-  const valid = Number.isInteger(id) && id > 0 && Number.isInteger(vid) && vid > 0;
+  const planParam = useIdParam("planId");
+  const versionParam = useIdParam("versionId");
+  const [id, vid, valid] = [planParam.id, versionParam.id, planParam.valid && versionParam.valid];
   const plan = useQuery({ ...planQueries.detail(id), enabled: valid });
   const version = useQuery({ ...planQueries.version(id, vid), enabled: valid });
   if (!valid || (isApiError(version.error) && [400, 404].includes(version.error.status))) return <InPageNotFound what="Plan version" backTo={paths.plans} backLabel="Back to plans" />;

@@ -1,5 +1,5 @@
 import { useState } from "react";
-import { Link, useNavigate, useParams } from "react-router";
+import { Link, useNavigate } from "react-router";
 import { useQuery } from "@tanstack/react-query";
 import { Copy, Lock, Pencil, Trash2 } from "lucide-react";
 import { roleCan } from "@shared/domain/roles";
@@ -19,11 +19,11 @@ import { useCurrentUser } from "@/features/auth/hooks/use-current-user";
 import { planQueries, useCopyAsTemplate, useDeletePlan } from "@/features/plans/api/plans.queries";
 import { PlanLayersView } from "@/features/plans/components/plan-layers-view";
 import { InPageNotFound } from "../in-page-not-found";
+import { useIdParam } from "@/hooks/use-id-param";
+import { ConfirmDialog } from "@/components/ui/confirm-dialog";
 
 export default function PlanRoute() {
-  const { planId } = useParams();
-  const id = Number(planId);
-  const valid = Number.isInteger(id) && id > 0;
+  const { id, valid } = useIdParam("planId");
   const { data, error, isPending } = useQuery({ ...planQueries.detail(id), enabled: valid });
   if (!valid || (isApiError(error) && (error.status === 404 || error.status === 400))) return <InPageNotFound what="Plan" backTo={paths.plans} backLabel="Back to plans" />;
   if (isPending || !data) return <Spinner label="Loading the plan…" />;
@@ -145,34 +145,21 @@ function CopyDialog({ plan, onClose }: { plan: PlanDto; onClose: () => void }) {
 function DeleteDialog({ plan, onClose }: { plan: PlanDto; onClose: () => void }) {
   const remove = useDeletePlan();
   const navigate = useNavigate();
-  const [problem, setProblem] = useState<string | null>(null);
   return (
-    <Dialog title={`Delete ${plan.name}?`} onClose={onClose}>
-      <div className="flex flex-col gap-4">
-        {problem ? <Alert tone="error">{problem}</Alert> : null}
-        <p>Only a plan that was never used at the booth can be deleted.</p>
-        <div className="flex gap-3">
-          <Button
-            variant="danger"
-            size="lg"
-            pending={remove.isPending}
-            onClick={async () => {
-              try {
-                await remove.mutateAsync(plan.id);
-                toast.success("Plan deleted");
-                navigate(plan.jobId ? paths.job(plan.jobId) : paths.plans, { replace: true });
-              } catch (error) {
-                setProblem(isApiError(error) ? error.message : "Could not delete the plan.");
-              }
-            }}
-          >
-            Delete plan
-          </Button>
-          <Button variant="ghost" size="lg" onClick={onClose}>
-            Keep it
-          </Button>
-        </div>
-      </div>
-    </Dialog>
+    <ConfirmDialog
+      title={`Delete ${plan.name}?`}
+      confirmLabel="Delete plan"
+      keepLabel="Keep it"
+      pending={remove.isPending}
+      failure="Could not delete the plan."
+      onConfirm={async () => {
+        await remove.mutateAsync(plan.id);
+        return "Plan deleted";
+      }}
+      onDone={() => navigate(plan.jobId ? paths.job(plan.jobId) : paths.plans, { replace: true })}
+      onClose={onClose}
+    >
+      Only a plan that was never used at the booth can be deleted.
+    </ConfirmDialog>
   );
 }

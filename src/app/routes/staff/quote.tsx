@@ -1,5 +1,5 @@
 import { useState } from "react";
-import { Link, useNavigate, useParams } from "react-router";
+import { Link, useNavigate } from "react-router";
 import { useQuery } from "@tanstack/react-query";
 import { FileText, Layers, PencilLine, Send, Trash2 } from "lucide-react";
 import { formatCents } from "@shared/quote/index";
@@ -24,6 +24,7 @@ import { QuoteVersionView } from "@/features/quotes/components/quote-view";
 import { SendQuoteDialog } from "@/features/quotes/components/send-quote-dialog";
 import { formatDate, formatDateTime } from "@/utils/format-date";
 import { InPageNotFound } from "../in-page-not-found";
+import { useIdParam } from "@/hooks/use-id-param";
 
 export default function QuoteRoute() {
   return (
@@ -34,9 +35,7 @@ export default function QuoteRoute() {
 }
 
 function QuoteLoader() {
-  const { quoteId } = useParams();
-  const id = Number(quoteId);
-  const valid = Number.isInteger(id) && id > 0;
+  const { id, valid } = useIdParam("quoteId");
   const { data, error, isPending } = useQuery({ ...quoteQueries.detail(id), enabled: valid });
   if (!valid || (isApiError(error) && (error.status === 404 || error.status === 400)))
     return <InPageNotFound what="Quote" backTo={paths.quotes} backLabel="Back to quotes" />;

@@ -1,6 +1,7 @@
 import { createColumnHelper } from "@tanstack/react-table";
 import { AUDIT_KIND_LABELS, type AuditEntryDto, type AuditKindName } from "@shared/schemas/audit.schema";
 import { formatDateTime } from "@/utils/format-date";
+import { auditSubject } from "../audit-words";
 import { AuditChange } from "./audit-change";
 
 const column = createColumnHelper<AuditEntryDto>();
@@ -34,10 +35,7 @@ export const auditColumns = [
       const e = row.original;
       return (
         <span className="flex flex-col">
-          <span className="font-semibold text-ink-950">
-            {e.entity}
-            {e.entityId ? ` #${e.entityId}` : ""}: {e.action}
-          </span>
+          <span className="font-semibold text-ink-950">{auditSubject(e)}</span>
           <span className="text-xs text-primer-700">{kindLabel(e.kind)}</span>
         </span>
       );

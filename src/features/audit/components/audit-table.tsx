@@ -1,11 +1,12 @@
-import { useId, useMemo } from "react";
-import { useQuery } from "@tanstack/react-query";
+import { useId, useMemo, useState } from "react";
+import { useQuery, type QueryKey } from "@tanstack/react-query";
 import { FilterX, History } from "lucide-react";
 import { AUDIT_KIND_LABELS, AUDIT_KINDS, type AuditKindName } from "@shared/schemas/audit.schema";
 import { Button } from "@/components/ui/button";
 import { DataTable } from "@/components/ui/data-table/data-table";
 import { EmptyState } from "@/components/ui/empty-state";
 import { Select } from "@/components/ui/form/select";
+import { SearchPicker, type PickerQueryFor } from "@/components/ui/form/search-picker";
 import { SearchInput } from "@/components/ui/search-input";
 import { Spinner } from "@/components/ui/spinner";
 import { controlClasses } from "@/components/ui/form/field";
@@ -17,8 +18,9 @@ import { auditColumns } from "./audit-columns";
 const DATE = /^\d{4}-\d{2}-\d{2}$/;
 
 /** The audit trail, newest first: filters and page live in the URL (?who=&kind=&from=&to=&q=&page=&pageSize=). */
-export function AuditTable({ people }: { people: { id: string; name: string }[] }) {
-  const ids = { who: useId(), kind: useId(), from: useId(), to: useId() };
+export function AuditTable<K extends QueryKey>({ peopleSearch, whoName }: { peopleSearch: PickerQueryFor<K>; whoName: string | null }) {
+  const ids = { kind: useId(), from: useId(), to: useId() };
+  const [picked, setPicked] = useState<{ id: string; name: string } | null>(null);
   const params = useListSearchParams({ sortFields: ["at"] as const, defaultSort: "-at" });
   const sp = params.searchParams;
   const kindParam = sp.get("kind") ?? "";
@@ -54,19 +56,20 @@ export function AuditTable({ people }: { people: { id: string; name: string }[] 
             placeholder="What, action, name or record number"
             className="min-w-[14rem] flex-1"
           />
-          <div className="flex min-w-[12rem] flex-col gap-1.5">
-            <label htmlFor={ids.who} className="text-sm font-semibold text-ink-950">
-              Who
-            </label>
-            <Select id={ids.who} value={who} onChange={(e) => params.update({ who: e.target.value })}>
-              <option value="">Anyone</option>
-              {people.map((p) => (
-                <option key={p.id} value={p.id}>
-                  {p.name}
-                </option>
-              ))}
-            </Select>
-          </div>
+          <SearchPicker
+            label="Who"
+            noun="people"
+            emptyLabel="Anyone"
+            placeholder="Anyone"
+            value={who}
+            valueName={who ? (picked?.id === who ? picked.name : (whoName ?? "…")) : null}
+            onChange={(id, name) => {
+              setPicked(name ? { id, name } : null);
+              params.update({ who: id });
+            }}
+            queryFor={peopleSearch}
+            className="min-w-[14rem]"
+          />
           <div className="flex min-w-[11rem] flex-col gap-1.5">
             <label htmlFor={ids.kind} className="text-sm font-semibold text-ink-950">
               Kind of change

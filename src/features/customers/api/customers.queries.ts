@@ -1,6 +1,7 @@
 import { keepPreviousData, queryOptions, useMutation, useQueryClient } from "@tanstack/react-query";
 import { api } from "@/lib/api-client";
 import type { Page } from "@shared/api/pagination";
+import type { PickerPage } from "@/components/ui/form/search-picker";
 import type { CreateCustomerInput, CustomerDto, UpdateCustomerInput } from "@shared/schemas/customer.schema";
 
 export type CustomerSortField = "name" | "email" | "createdAt" | "jobCount";
@@ -16,12 +17,15 @@ export const customerKeys = {
   lists: () => [...customerKeys.all, "list"] as const,
   list: (params: CustomerListParams) => [...customerKeys.lists(), params] as const,
   options: () => [...customerKeys.all, "options"] as const,
+  search: (q: string) => [...customerKeys.options(), "search", q] as const,
   details: () => [...customerKeys.all, "detail"] as const,
   detail: (id: number) => [...customerKeys.details(), id] as const,
 };
 
 /** The API's largest page: enough for the pick lists of a small shop. */
 const OPTIONS_PAGE_SIZE = 100;
+/** Matches shown at once in a searchable pick list; typing narrows the rest. */
+const PICKER_PAGE_SIZE = 20;
 
 export const customerQueries = {
   list: (params: CustomerListParams) =>
@@ -38,6 +42,17 @@ export const customerQueries = {
         api.get<Page<CustomerDto>>("/customers", { query: { pageSize: OPTIONS_PAGE_SIZE, sort: "name" }, signal }),
       select: (page) => ({ options: page.items.map((c) => ({ id: c.id, name: c.name })), total: page.total }),
       staleTime: 60_000,
+    }),
+  /** One page of customers whose name, e-mail or phone holds `q` (the searchable pick list), by name. */
+  search: (q: string) =>
+    queryOptions({
+      queryKey: customerKeys.search(q),
+      queryFn: async ({ signal }): Promise<PickerPage> => {
+        const page = await api.get<Page<CustomerDto>>("/customers", { query: { pageSize: PICKER_PAGE_SIZE, sort: "name", ...(q ? { q } : {}) }, signal });
+        return { options: page.items.map((c) => ({ id: String(c.id), name: c.name, ...(c.email ? { detail: c.email } : {}) })), total: page.total };
+      },
+      placeholderData: keepPreviousData,
+      staleTime: 30_000,
     }),
   detail: (id: number) =>
     queryOptions({

@@ -1,5 +1,5 @@
 import { useState } from "react";
-import { useForm } from "react-hook-form";
+import { Controller, useForm } from "react-hook-form";
 import { zodResolver } from "@hookform/resolvers/zod";
 import type { z } from "zod";
 import { createJobInputSchema } from "@shared/schemas/job.schema";
@@ -7,7 +7,9 @@ import { applyServerErrors } from "@/lib/form-errors";
 import { Alert } from "@/components/ui/alert";
 import { Button } from "@/components/ui/button";
 import { FormActions } from "@/components/ui/form/form-actions";
+import { SearchPicker, type PickerQueryFor } from "@/components/ui/form/search-picker";
 import { SelectField } from "@/components/ui/form/select-field";
+import type { QueryKey } from "@tanstack/react-query";
 import { TextField } from "@/components/ui/form/text-field";
 import { TextareaField } from "@/components/ui/form/textarea-field";
 
@@ -19,18 +21,19 @@ const FIELDS = ["customerId", "title", "dueDate", "assignedPainterId", "notes"] 
 const emptyToNull = (v: unknown) => (v === "" || v === undefined ? null : v);
 
 /** Create or edit a job's basics. The shared schema checks it here and again on the server. */
-export function JobForm({
-  customers,
-  customersTruncated = false,
+export function JobForm<K extends QueryKey>({
+  customerSearch,
+  customerName = null,
   painters,
   defaultValues,
   submitLabel,
   onSubmit,
   onCancel,
 }: {
-  customers: Option<number>[];
-  /** The pick list holds the first page only; say so. */
-  customersTruncated?: boolean;
+  /** The customer search behind the pick list (typing searches on the server). */
+  customerSearch: PickerQueryFor<K>;
+  /** The name of the customer in `defaultValues.customerId`, if any. */
+  customerName?: string | null;
   painters: Option<string>[];
   defaultValues?: Partial<JobFormInput>;
   submitLabel: string;
@@ -39,8 +42,10 @@ export function JobForm({
   onCancel?: () => void;
 }) {
   const [problem, setProblem] = useState<string | null>(null);
+  const [chosenName, setChosenName] = useState<string | null>(customerName);
   const {
     register,
+    control,
     handleSubmit,
     setError,
     watch,
@@ -65,20 +70,26 @@ export function JobForm({
   return (
     <form onSubmit={submit} noValidate className="flex flex-col gap-5">
       {problem ? <Alert tone="error">{problem}</Alert> : null}
-      <SelectField
-        label="Customer"
-        required
-        error={customerError}
-        hint={customersTruncated ? "Only the first 100 customers by name are listed." : undefined}
-        {...register("customerId")}
-      >
-        <option value="">Choose a customer…</option>
-        {customers.map((c) => (
-          <option key={c.id} value={c.id}>
-            {c.name}
-          </option>
-        ))}
-      </SelectField>
+      <Controller
+        control={control}
+        name="customerId"
+        render={({ field }) => (
+          <SearchPicker
+            label="Customer"
+            required
+            noun="customers"
+            placeholder="Type a name, e-mail or phone…"
+            value={field.value == null ? "" : String(field.value)}
+            valueName={chosenName}
+            onChange={(id, name) => {
+              setChosenName(name);
+              field.onChange(id);
+            }}
+            queryFor={customerSearch}
+            error={customerError}
+          />
+        )}
+      />
       <TextField
         label="Title"
         required

@@ -75,7 +75,7 @@ export function MaterialForm({
     <form onSubmit={submit} noValidate className="flex flex-col gap-5">
       {problem ? <Alert tone="error">{problem}</Alert> : null}
       <div className="grid gap-5 sm:grid-cols-[10rem_1fr]">
-        <TextField label="Shop code" required hint="Your own code, e.g. HC-SL-02" className="uppercase" autoComplete="off" error={errors.code?.message} {...register("code")} />
+        <TextField label="Shop code" required hint="Your own stock number, e.g. S2-B02 (shelf 2, bin 2)" className="uppercase" autoComplete="off" error={errors.code?.message} {...register("code")} />
         <TextField label="Name" required autoComplete="off" error={errors.name?.message} {...register("name")} />
       </div>
       <div className="grid gap-5 sm:grid-cols-3">

@@ -7,12 +7,12 @@ const TONE: Record<ColourVerdict, string> = {
   different: "border-red-700 bg-red-50 text-red-950",
 };
 
-/** ΔE00 with the shop's plain-words verdict. */
+/** The shop's tolerance verdict with ΔE00 beside it, e.g. "Within tolerance (ΔE00 0.91)". */
 export function VerdictBadge({ verdict, deltaE, text, className }: { verdict: ColourVerdict; deltaE: number; text?: string; className?: string }) {
   return (
     <span title={text} className={cn("inline-flex items-center gap-2 rounded-full border-2 px-3 py-1 text-sm font-semibold", TONE[verdict], className)}>
       {COLOUR_VERDICT_LABELS[verdict]}
-      <span className="font-normal tabular-nums">ΔE00 {deltaE.toFixed(2)}</span>
+      <span className="font-normal tabular-nums">(ΔE00 {deltaE.toFixed(2)})</span>
     </span>
   );
 }

@@ -163,7 +163,7 @@ function setPath(target: Record<string, unknown>, path: string, value: unknown) 
 
 const CATEGORY_LABEL: Partial<Record<MaterialCategory, string>> = {
   sealer: "sealer",
-  ground_coat: "ground",
+  ground_coat: "basecoat",
   toner: "toner",
   intercoat_clear: "clear",
   reducer: "reducer",
@@ -518,7 +518,7 @@ function ComponentsEditor({
                     ) : null;
                   })}
                 </SelectField>
-                <TextField label="Label in the mix" fieldClassName="w-40" autoComplete="off" error={errorFor(j, "label")} {...register(`${rowName}.label`)} />
+                <TextField label="Name on the mix sheet" fieldClassName="w-40" autoComplete="off" error={errorFor(j, "label")} {...register(`${rowName}.label`)} />
                 <Button variant="ghost" size="sm" className="mt-7" onClick={() => rows.remove(j)} aria-label={`Remove material ${j + 1}`} icon={<Trash2 aria-hidden className="size-4" />} />
               </div>
               <div className="grid gap-3 sm:grid-cols-[auto_minmax(0,1fr)] sm:items-start">

@@ -15,6 +15,7 @@ import {
 import { QUOTE_LINE_KIND_HINT, updateQuoteInputSchema, type QuoteDetailDto, type QuoteVersionDto } from "@shared/schemas/quote.schema";
 import { applyServerErrors } from "@/lib/form-errors";
 import { Alert } from "@/components/ui/alert";
+import { LeaveGuard } from "@/components/ui/leave-guard";
 import { Button } from "@/components/ui/button";
 import { MultiChoice, SingleChoice } from "@/components/ui/choice-group";
 import { MoneyField } from "@/components/ui/form/money-field";
@@ -182,6 +183,7 @@ export function QuoteEditor({
       className="grid gap-6 xl:grid-cols-[minmax(0,1fr)_22rem]"
     >
       <div className="flex min-w-0 flex-col gap-6">
+        <LeaveGuard when={isDirty && !isSubmitting} what="this quote" onSave={save} />
         {problem ? <Alert tone="error">{problem}</Alert> : null}
         <Panel title="Lines" titleId="quote-lines-heading">
           {errors.lines?.message || errors.lines?.root?.message ? (

@@ -1,4 +1,4 @@
-import { formatCents, formatPercent, taxLabel, type QuoteTotals, type TaxableKind } from "@shared/quote/index";
+import { formatCents, formatPercent, QUOTE_LINE_KIND_LABELS, taxLabel, type QuoteTotals, type TaxableKind } from "@shared/quote/index";
 import { cn } from "@/utils/cn";
 
 /** The totals block: what the customer pays, how the tax was reached, and the deposit that books the work. */
@@ -24,7 +24,7 @@ export function QuoteTotalsList({
     { label: "Labour", value: formatCents(totals.labourCents), muted: true },
     { label: "Materials (with markup)", value: formatCents(totals.materialsCents), muted: true },
     { label: "Shop supplies", value: formatCents(totals.suppliesCents), muted: true },
-    ...(totals.subletCents ? [{ label: "Sublet", value: formatCents(totals.subletCents), muted: true }] : []),
+    ...(totals.subletCents ? [{ label: QUOTE_LINE_KIND_LABELS.sublet, value: formatCents(totals.subletCents), muted: true }] : []),
     ...(totals.discountCents ? [{ label: "Discount", value: `-${formatCents(totals.discountCents)}`, muted: true }] : []),
     { label: "Subtotal", value: formatCents(totals.subtotalCents) },
     { label: `${taxLabel(taxPercent, taxedKinds)}${totals.taxRounding === "line" ? ", per line" : ""}`, value: formatCents(totals.taxCents) },

@@ -19,6 +19,7 @@ import { TextField } from "@/components/ui/form/text-field";
 import { TextareaField } from "@/components/ui/form/textarea-field";
 import { controlClasses } from "@/components/ui/form/field";
 import { WasteAllowanceFields } from "./waste-allowance-fields";
+import { emptyToNull } from "@/lib/form-values";
 
 type SettingsInput = z.input<typeof updateShopSettingsSchema>;
 type SettingsOutput = z.output<typeof updateShopSettingsSchema>;
@@ -27,7 +28,7 @@ const TAX_KIND_LABELS: Record<(typeof TAXABLE_LINE_KINDS)[number], string> = {
   labour: "Labour",
   materials: "Materials",
   supplies: "Shop supplies",
-  sublet: "Sublet work",
+  sublet: "Outside work",
 };
 
 const TOP_FIELDS = [
@@ -63,7 +64,6 @@ const TOP_FIELDS = [
 ] as const;
 
 /** "" → null for the optional caps (an empty box means "no cap"). */
-const emptyToNull = (v: unknown) => (v === "" || v === undefined ? null : v);
 
 function Group({ title, description, children }: { title: string; description?: ReactNode; children: ReactNode }) {
   return (
@@ -226,16 +226,16 @@ export function SettingsForm({
               ))}
             </SelectField>
             <TextField
-              label="ΔE00 for “match”"
+              label="Colour tolerance (ΔE00)"
               inputMode="decimal"
-              hint="A test panel closer than this reads as a match."
+              hint="A test panel closer than this to the approved one reads “Within tolerance”."
               error={errors.deltaEMatch?.message}
               {...register("deltaEMatch")}
             />
             <TextField
-              label="ΔE00 for “close”"
+              label="Outer colour limit (ΔE00)"
               inputMode="decimal"
-              hint="Closer than this (but not a match) reads as close."
+              hint="Over the tolerance but closer than this reads “Borderline”; this far or further reads “Out of tolerance”."
               error={errors.deltaEClose?.message}
               {...register("deltaEClose")}
             />
