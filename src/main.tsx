@@ -7,7 +7,6 @@ import { AppProvider, createQueryClient } from "@/app/provider";
 import { createAppRouter } from "@/app/router";
 import { authKeys } from "@/features/auth/api/auth.queries";
 import { cachedUserId } from "@/lib/offline/owner";
-import { startOffline } from "@/app/offline";
 import { registerServiceWorker } from "@/lib/service-worker";
 
 const root = document.getElementById("root");
@@ -23,7 +22,10 @@ onlineManager.setOnline(navigator.onLine);
  * painter signs in.
  */
 let offline: Promise<void> | null = null;
-const start = (restore: boolean) => (offline ??= startOffline(queryClient, restore).catch(() => undefined));
+const start = (restore: boolean) =>
+  (offline ??= import("@/app/offline")
+    .then((m) => m.startOffline(queryClient, restore))
+    .catch(() => undefined));
 const ready = cachedUserId() ? start(true) : Promise.resolve();
 queryClient.getQueryCache().subscribe((event) => {
   const user = event.query.queryHash === JSON.stringify(authKeys.me()) ? (event.query.state.data as { role?: string } | null | undefined) : undefined;

@@ -76,23 +76,50 @@ export function idempotent(deps: AppDeps): RequestHandler {
   };
 }
 
-/** Stores a successful answer under the claimed key as it is sent; anything else frees the key for another try. */
+type Claim = { where: ReturnType<typeof and>; stored: boolean };
+/** The key each request in hand has claimed (none without the header). */
+const claims = new WeakMap<Response, Claim>();
+
+const storeAnswer = (deps: AppDeps, claim: Claim, status: number, body: unknown) =>
+  deps.db.update(idempotencyKeys).set({ status, response: JSON.stringify(body ?? null) }).where(claim.where).run();
+
+/**
+ * Runs a route's write and, when the request claimed an `Idempotency-Key`, stores the answer (`status`, the write's
+ * result) under the key in the same transaction: the record and its key commit together or not at all, so a crash in
+ * between can never leave a record that a replay would write again. The route then sends the result with `status`.
+ */
+export function withAnswer<T>(deps: AppDeps, res: Response, status: number, write: () => T): T {
+  const claim = claims.get(res);
+  if (!claim) return write();
+  return deps.db.transaction(() => {
+    const result = write();
+    storeAnswer(deps, claim, status, result);
+    claim.stored = true;
+    return result;
+  });
+}
+
+/**
+ * As the answer is sent: a failure frees the key for another try. A success was normally stored with its write
+ * (withAnswer); a route that does not use it has its answer stored here, after the write (not crash-safe).
+ */
 function keepFirstAnswer(deps: AppDeps, res: Response, where: ReturnType<typeof and>) {
+  const claim: Claim = { where, stored: false };
+  claims.set(res, claim);
   let settled = false;
   const json = res.json.bind(res);
   res.json = (body: unknown) => {
     if (!settled) {
       settled = true;
-      if (res.statusCode >= 200 && res.statusCode < 300)
-        deps.db.update(idempotencyKeys).set({ status: res.statusCode, response: JSON.stringify(body ?? null) }).where(where).run();
-      else deps.db.delete(idempotencyKeys).where(where).run();
+      if (res.statusCode < 200 || res.statusCode >= 300) deps.db.delete(idempotencyKeys).where(where).run();
+      else if (!claim.stored) storeAnswer(deps, claim, res.statusCode, body);
     }
     return json(body);
   };
   res.on("close", () => {
     if (!settled) {
       settled = true;
-      deps.db.delete(idempotencyKeys).where(where).run();
+      if (!claim.stored) deps.db.delete(idempotencyKeys).where(where).run();
     }
   });
 }

@@ -1,5 +1,5 @@
 import { z } from "zod";
-import { idSchema, optionalText, versionSchema } from "./common.schema";
+import { idSchema, madeAtSchema, optionalText, versionSchema } from "./common.schema";
 import { PANEL_LIGHTS, type PanelLight } from "../domain/spray-setup";
 
 /** What an upload belongs to. Photos go on jobs, items, prep records, coat logs, test panels and inspected items; data sheets on materials. */
@@ -10,8 +10,7 @@ export const PHOTO_OWNER_TYPES = ["job", "job_item", "prep_record", "coat_log", 
 export const UPLOAD_KINDS = ["photo", "tds", "sds"] as const;
 export type UploadKind = (typeof UPLOAD_KINDS)[number];
 
-/** Photo upload limit; the server answers 413 with it in the message. */
-export const MAX_PHOTO_MB = 15;
+export { MAX_PHOTO_MB } from "../domain/photo-limits";
 
 /** Multipart fields arrive as strings: "true"/"false"/"on" → boolean. */
 const formBoolean = z.preprocess((v) => (v === "true" || v === "on" || v === "1" ? true : v === "false" || v === "0" || v === "" ? false : v), z.boolean({ error: "Must be true or false" }));
@@ -24,6 +23,8 @@ export const createUploadFieldsSchema = z.object({
   shareable: formBoolean.optional(),
   /** A test panel's photo: the light it was taken under. */
   light: z.preprocess((v) => (v === "" ? undefined : v), z.enum(PANEL_LIGHTS, { error: `light must be one of: ${PANEL_LIGHTS.join(", ")}` }).optional()),
+  /** When the photo was taken, from a tablet that was offline (not in the future, not before the job); default: now. */
+  at: z.preprocess((v) => (v === "" ? undefined : v), madeAtSchema),
 });
 export type CreateUploadFields = z.input<typeof createUploadFieldsSchema>;
 
@@ -69,7 +70,10 @@ export type UploadDto = {
   light: PanelLight | null;
   uploadedById: string | null;
   uploadedByName: string | null;
+  /** When it was received. */
   createdAt: string;
+  /** When it was taken (a photo taken offline arrives later); the time received for anything sent straight away. */
+  takenAt: string;
   /** Same-origin addresses of the file and its thumbnail (null for documents). */
   url: string;
   thumbUrl: string | null;

@@ -5,6 +5,8 @@ import { clearOfflineCache, persistOfflineCache, restoreOfflineCache } from "@/l
 import { cachedUserId } from "@/lib/offline/owner";
 import { flushQueue, offlineQueue } from "@/lib/offline/queue";
 import { keepOnTablet } from "./offline-keys";
+import { coatIdIn } from "@/features/booth/api/waiting";
+import type { BoothDto } from "@shared/schemas/booth.schema";
 
 /** How often waiting entries are tried again while the device says it is online (a booth's Wi-Fi can be up with no route). */
 const RETRY_MS = 15_000;
@@ -37,6 +39,7 @@ export async function startOffline(queryClient: QueryClient, restore: boolean) {
           if (entry.answerKey) queryClient.setQueryData(entry.answerKey, answer);
           for (const key of entry.refresh ?? []) void queryClient.invalidateQueries({ queryKey: key });
         },
+        idFrom: (entry, answer) => (entry.kind === "coat" ? coatIdIn(answer as BoothDto, entry.body) : null),
         onRefused: (entry) => {
           for (const key of entry.refresh ?? []) void queryClient.invalidateQueries({ queryKey: key });
         },

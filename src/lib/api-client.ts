@@ -1,4 +1,5 @@
-import { apiErrorBodySchema } from "@shared/api/error";
+// The error body's schema (and zod with it) loads with the first failed request, not with every screen's first download.
+const errorBody = () => import("@shared/api/error").then((m) => m.apiErrorBodySchema);
 
 /** A failed API call: HTTP status (0 when the server could not be reached), error code, message and per-field messages. */
 export class ApiError extends Error {
@@ -75,7 +76,7 @@ async function toApiError(response: Response): Promise<ApiError> {
   } catch {
     // Not JSON (a proxy page, an empty body): fall through to a generic message.
   }
-  const parsed = apiErrorBodySchema.safeParse(body);
+  const parsed = (await errorBody()).safeParse(body);
   const requestId = response.headers.get("X-Request-Id");
   if (parsed.success) {
     const { code, message, fields, current, changedBy, changedAt } = parsed.data.error;

@@ -169,18 +169,50 @@ describe("Idempotency-Key on corrections, prep sign-offs and booth photos", () =
     expect([row.signedOffAt, row.updatedAt]).toEqual([T0 - 15 * MIN, T0]);
   });
 
-  it("a photo sent twice is one photo; another photo under the same key is a 422", async () => {
-    const { s } = await clockShop();
+  it("a photo sent twice is one photo with the same answer; another photo or other fields under the same key is a 422", async () => {
+    const { s, clock } = await clockShop();
     const png = await swatchPng();
-    const send = (file: Buffer) =>
-      request(s.app).post("/api/uploads").set("Cookie", s.cookies.painter).set("Idempotency-Key", "photo-key-01").field("ownerType", "job").field("ownerId", String(s.jobA.id)).attach("file", file, "booth.png");
+    const takenAt = new Date(T0 - 25 * MIN).toISOString();
+    const send = (file: Buffer, caption = "Booth photo") =>
+      request(s.app)
+        .post("/api/uploads")
+        .set("Cookie", s.cookies.painter)
+        .set("Idempotency-Key", "photo-key-01")
+        .field("ownerType", "job")
+        .field("ownerId", String(s.jobA.id))
+        .field("caption", caption)
+        .field("at", takenAt)
+        .attach("file", file, "booth.png");
     const a = await send(png);
+    clock.now += 5 * MIN;
     const b = await send(png);
     expect([a.status, b.status]).toEqual([201, 201]);
-    expect(b.body.id).toBe(a.body.id);
+    expect(b.headers["idempotent-replayed"]).toBe("true");
+    expect(b.body).toEqual(a.body);
+    // The time it was taken on the tablet, and the time it arrived (the first send).
+    expect(a.body).toMatchObject({ takenAt, createdAt: new Date(T0).toISOString() });
     const other = await send(await swatchPng({ r: 10, g: 200, b: 10 }));
     expect(other.status).toBe(422);
-    expect(other.body.error.fields).toHaveProperty("Idempotency-Key");
-    expect(s.db.select().from(uploads).all()).toHaveLength(1);
+    expect(other.body.error.fields).toEqual({ "Idempotency-Key": "Already used for a different request" });
+    const otherCaption = await send(png, "Another caption");
+    expect(otherCaption.status).toBe(422);
+    expect(otherCaption.body.error.code).toBe("idempotency_key_reused");
+    const rows = s.db.select().from(uploads).all();
+    expect(rows).toHaveLength(1);
+    expect(rows[0]!.takenAt).toBe(T0 - 25 * MIN);
+  });
+
+  it("a photo's time taken is refused in the future or before the job, naming at", async () => {
+    const { s } = await clockShop();
+    const png = await swatchPng();
+    const send = (at: string) =>
+      request(s.app).post("/api/uploads").set("Cookie", s.cookies.painter).field("ownerType", "job").field("ownerId", String(s.jobA.id)).field("at", at).attach("file", png, "booth.png");
+    const future = await send(new Date(T0 + 10 * MIN).toISOString());
+    expect(future.status).toBe(400);
+    expect(future.body.error.fields).toEqual({ at: "In the future" });
+    const beforeJob = await send(new Date(s.jobA.createdAt - MIN).toISOString());
+    expect(beforeJob.status).toBe(400);
+    expect(beforeJob.body.error.fields).toEqual({ at: "Before the job was created" });
+    expect(s.db.select().from(uploads).all()).toHaveLength(0);
   });
 });

@@ -30,6 +30,8 @@ export const uploads = sqliteTable(
     light: text("light", { enum: PANEL_LIGHTS }),
     uploadedBy: text("uploaded_by").references(() => users.id, { onDelete: "set null" }),
     createdAt: createdAt(),
+    /** When the photo was taken, if it was sent later from a tablet's offline queue (null: when it was received). */
+    takenAt: integer("taken_at"),
     ...editVersion(),
   },
   (t) => [index("uploads_owner_idx").on(t.ownerType, t.ownerId), index("uploads_job_idx").on(t.jobId)],

@@ -2,7 +2,7 @@ import { Router } from "express";
 import type { AppDeps } from "../../deps";
 import { actorOf, allow } from "../../http/guard";
 import { ctxOf } from "../../http/context";
-import { idempotent } from "../../http/idempotency";
+import { idempotent, withAnswer } from "../../http/idempotency";
 import { body, params, query } from "../../http/validate";
 import { idParamsSchema } from "../../../shared/schemas/common.schema";
 import { correctCoatLogInputSchema, createCoatLogInputSchema, listCoatLogsQuerySchema } from "../../../shared/schemas/booth.schema";
@@ -30,10 +30,13 @@ export function coatLogsRouter(deps: AppDeps) {
     res.json(listCoatLogs(deps, actorOf(res), query(req, listCoatLogsQuerySchema).jobId));
   });
   r.post("/", allow("staff"), idempotent(deps), (req, res) => {
-    res.status(201).json(logCoat(deps, ctxOf(req, res), body(req, createCoatLogInputSchema)));
+    const input = body(req, createCoatLogInputSchema);
+    res.status(201).json(withAnswer(deps, res, 201, () => logCoat(deps, ctxOf(req, res), input)));
   });
   r.post("/:id/corrections", allow("staff"), idempotent(deps), (req, res) => {
-    res.status(201).json(correctCoatLog(deps, ctxOf(req, res), params(req, idParamsSchema).id, body(req, correctCoatLogInputSchema)));
+    const id = params(req, idParamsSchema).id;
+    const input = body(req, correctCoatLogInputSchema);
+    res.status(201).json(withAnswer(deps, res, 201, () => correctCoatLog(deps, ctxOf(req, res), id, input)));
   });
   return r;
 }

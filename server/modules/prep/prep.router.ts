@@ -2,7 +2,7 @@ import { Router } from "express";
 import type { AppDeps } from "../../deps";
 import { actorOf, allow } from "../../http/guard";
 import { body, params, query } from "../../http/validate";
-import { idempotent } from "../../http/idempotency";
+import { idempotent, withAnswer } from "../../http/idempotency";
 import { idParamsSchema } from "../../../shared/schemas/common.schema";
 import {
   createPrepRecordInputSchema,
@@ -29,7 +29,9 @@ export function prepRouter(deps: AppDeps) {
     res.json(updatePrepRecord(deps, actorOf(res), params(req, idParamsSchema).id, body(req, updatePrepRecordInputSchema)));
   });
   r.post("/:id/sign-off", allow("staff"), idempotent(deps), (req, res) => {
-    res.json(signOffPrepRecord(deps, actorOf(res), params(req, idParamsSchema).id, body(req, signOffPrepRecordInputSchema)));
+    const id = params(req, idParamsSchema).id;
+    const input = body(req, signOffPrepRecordInputSchema);
+    res.json(withAnswer(deps, res, 200, () => signOffPrepRecord(deps, actorOf(res), id, input)));
   });
   r.post("/:id/reopen", allow("office"), (req, res) => {
     res.json(reopenPrepRecord(deps, actorOf(res), params(req, idParamsSchema).id, body(req, reopenPrepRecordInputSchema)));

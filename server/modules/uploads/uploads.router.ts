@@ -12,7 +12,7 @@ import {
 } from "../../../shared/schemas/upload.schema";
 import { uploadMiddleware } from "./storage";
 import { acceptsFiles } from "../../http/media-type";
-import { idempotent } from "../../http/idempotency";
+import { idempotent, withAnswer } from "../../http/idempotency";
 import { createUpload, deleteUpload, listUploads, photoTooLarge, readUpload, updateUpload } from "./uploads.service";
 import { sendFile } from "../../http/send-file";
 
@@ -26,9 +26,10 @@ function receiveFile(): RequestHandler {
 
 export function uploadsRouter(deps: AppDeps) {
   const r = Router();
-  /** multipart/form-data: file, ownerType, ownerId, caption, shareable. Photos only (JPEG, PNG, WebP). */
+  /** multipart/form-data: file, ownerType, ownerId, caption, shareable, light, at (when taken, from an offline tablet). Photos only (JPEG, PNG, WebP); takes an Idempotency-Key. */
   r.post("/", allow("staff"), receiveFile(), idempotent(deps), async (req, res) => {
-    res.status(201).json(await createUpload(deps, actorOf(res), body(req, createUploadFieldsSchema), req.file));
+    // The row and the key's answer are written together, once the file is on disk.
+    res.status(201).json(await createUpload(deps, actorOf(res), body(req, createUploadFieldsSchema), req.file, (write) => withAnswer(deps, res, 201, write)));
   });
   r.get("/", allow("signedIn"), (req, res) => {
     res.json(listUploads(deps, actorOf(res), query(req, listUploadsQuerySchema)));

@@ -2,9 +2,10 @@ import { atVersion, nextVersion, staleEdit } from "../../db/edit-version";
 import { and, asc, eq, inArray, type SQL } from "drizzle-orm";
 import type { AppDeps } from "../../deps";
 import type { Actor } from "../../auth/session";
-import { coatLogs, inspectionItems, jobItems, materials, prepRecords, testPanels, uploads, users } from "../../db/schema";
+import { coatLogs, inspectionItems, jobItems, jobs, materials, prepRecords, testPanels, uploads, users } from "../../db/schema";
 import { badRequest, forbidden, HttpError, notFound } from "../../http/http-error";
 import { iso } from "../../http/dates";
+import { madeAt } from "../../http/made-at";
 import { findJobFor } from "../jobs/jobs.access";
 import { keepStored, readStored, removeStored, storeFile } from "./storage";
 import {
@@ -113,6 +114,7 @@ export function toUploadDto(row: UploadRow & { uploadedByName?: string | null })
     uploadedById: row.uploadedBy,
     uploadedByName: row.uploadedByName ?? null,
     createdAt: iso(row.createdAt),
+    takenAt: iso(row.takenAt ?? row.createdAt),
     url: `/api/uploads/${row.id}`,
     thumbUrl: row.thumbName ? `/api/uploads/${row.id}/thumb` : null,
   };
@@ -144,30 +146,38 @@ export async function createUpload(
   actor: Actor,
   fields: z.output<typeof createUploadFieldsSchema>,
   file: Express.Multer.File | undefined,
+  /** Wraps the database write (the route stores an Idempotency-Key's answer in the same transaction). */
+  within: (write: () => UploadDto) => UploadDto = (write) => write(),
 ): Promise<UploadDto> {
   const jobId = ownerJob(deps, actor, fields.ownerType, fields.ownerId, "write");
   if (!file) throw badRequest("Attach a file in the 'file' field", { file: "No file attached" });
   if (file.size > MAX_PHOTO_MB * MB) throw photoTooLarge(file.size);
+  const now = deps.now();
+  const job = jobId === null ? undefined : deps.db.select({ createdAt: jobs.createdAt }).from(jobs).where(eq(jobs.id, jobId)).get();
+  const takenAt = fields.at === undefined ? null : madeAt(fields.at, now, [{ time: job?.createdAt, what: "the job was created" }]);
   const stored = await storeFile(deps.uploadsDir, file, "photo");
-  const row = keepStored(deps.uploadsDir, stored, () =>
-    deps.db
-    .insert(uploads)
-    .values({
-      ownerType: fields.ownerType,
-      ownerId: fields.ownerId,
-      jobId,
-      kind: "photo",
-      ...stored,
-      caption: fields.caption ?? null,
-      shareable: jobId !== null && (fields.shareable ?? false),
-      light: fields.ownerType === "panel" ? (fields.light ?? null) : null,
-      uploadedBy: actor.id,
-      createdAt: deps.now(),
-    })
-    .returning()
-    .get()!,
+  return keepStored(deps.uploadsDir, stored, () =>
+    within(() => {
+      const row = deps.db
+        .insert(uploads)
+        .values({
+          ownerType: fields.ownerType,
+          ownerId: fields.ownerId,
+          jobId,
+          kind: "photo",
+          ...stored,
+          caption: fields.caption ?? null,
+          shareable: jobId !== null && (fields.shareable ?? false),
+          light: fields.ownerType === "panel" ? (fields.light ?? null) : null,
+          uploadedBy: actor.id,
+          createdAt: now,
+          takenAt,
+        })
+        .returning()
+        .get()!;
+      return toUploadDto({ ...row, uploadedByName: actor.name });
+    }),
   );
-  return toUploadDto({ ...row, uploadedByName: actor.name });
 }
 
 export function photoTooLarge(size?: number) {

@@ -1,10 +1,12 @@
 import { createStore, get, set, del, type UseStore } from "idb-keyval";
 // The API client (and the zod it reads error bodies with) loads with the first send, not with the app's entry.
 const client = () => import("@/lib/api-client");
+const uploader = () => import("@/lib/upload-with-progress");
 import { IDEMPOTENCY_HEADER } from "@shared/api/idempotency";
+import { discarded, heldBack, replaced, withOwner, type Replacement } from "./queue-order";
 
 /**
- * The tablet's outbox for booth entries (coats, corrections, prep sign-offs): kept in IndexedDB so a reload, a flat
+ * The tablet's outbox for booth entries (coats, corrections, prep sign-offs, photos): kept in IndexedDB so a reload, a flat
  * battery or a closed tab loses nothing, and sent in the order they were made when the server can be reached. Each
  * entry has its own random key, sent as the `Idempotency-Key` header, so an entry sent twice (a reply lost on the
  * way back, two tablets, a replay) is stored once by the server.
@@ -13,11 +15,18 @@ export type QueuedEntry = {
   /** The entry's Idempotency-Key (a UUID). */
   key: string;
   userId: string;
-  kind: "coat" | "correction" | "sign-off";
+  kind: "coat" | "correction" | "sign-off" | "photo";
   jobId: number;
-  /** API path (under /api) and JSON body, `at` (when it was made) included. */
+  /** API path (under /api) and JSON body, `at` (when it was made) included; for a photo, the form's text fields. */
   path: string;
   body: Record<string, unknown>;
+  /** A photo: the picture itself (IndexedDB keeps Blobs), sent as the form's `file` field with `body` beside it. */
+  file?: { blob: Blob; name: string };
+  /**
+   * The key of an earlier entry whose answer gives this one its owner (a photo of a coat still waiting to send): held
+   * back until that entry is stored, then its `ownerId` is filled in from the answer.
+   */
+  waitsFor?: string;
   madeAt: number;
   /** What the painter sees: "Coat 2 of Candy garnet". */
   label: string;
@@ -48,6 +57,8 @@ export function newEntryKey(): string {
 
 type Handlers = {
   onSent: (entry: QueuedEntry, answer: unknown) => void;
+  /** The id of the record an entry stored, read from its answer (for the entries that wait for it), or null. */
+  idFrom?: (entry: QueuedEntry, answer: unknown) => number | null;
   /** The server refused the entry: what it shows is out of date. */
   onRefused: (entry: QueuedEntry) => void;
 };
@@ -59,6 +70,21 @@ const storageKey = (userId: string) => `queue:${userId}`;
 let state: QueueState = { entries: [], reachable: true, sending: false, firstTry: null };
 /** A send that has not answered in this long is taken as no network (a booth's Wi-Fi can be up with no route). */
 const SEND_TIMEOUT_MS = 15_000;
+/** A photo (up to 15 MB on a weak booth signal) gets longer. */
+const PHOTO_TIMEOUT_MS = 120_000;
+
+/** One entry to the server with its key: JSON, or a multipart form through the same upload path as any photo. */
+async function post(entry: Pick<QueuedEntry, "key" | "path" | "body" | "file">, timeout: boolean): Promise<unknown> {
+  const headers = { [IDEMPOTENCY_HEADER]: entry.key };
+  if (!entry.file) {
+    const signal = timeout ? AbortSignal.timeout(SEND_TIMEOUT_MS) : undefined;
+    return (await client()).api.post<unknown>(entry.path, entry.body, { headers, signal });
+  }
+  const form = new FormData();
+  for (const [name, value] of Object.entries(entry.body)) if (value != null) form.set(name, String(value));
+  form.set("file", entry.file.blob, entry.file.name);
+  return (await uploader()).uploadWithProgress<unknown>(entry.path, form, undefined, timeout ? AbortSignal.timeout(PHOTO_TIMEOUT_MS) : undefined, headers);
+}
 let userId: string | null = null;
 let handlers: Handlers = { onSent: () => undefined, onRefused: () => undefined };
 const listeners = new Set<() => void>();
@@ -77,10 +103,6 @@ async function change(entries: QueuedEntry[]) {
   await save();
 }
 
-/** Entries of a job after one the server refused stay back until that one is fixed or discarded. */
-function heldBack(entry: QueuedEntry, entries: QueuedEntry[]) {
-  return entries.some((e) => e.jobId === entry.jobId && e.state === "refused" && entries.indexOf(e) < entries.indexOf(entry));
-}
 
 let flushing: Promise<void> | null = null;
 /** Answers to entries just sent, for the submit that is waiting on them. */
@@ -101,13 +123,14 @@ async function sendWaiting() {
     for (;;) {
       const entry = state.entries.find((e) => e.state === "waiting" && !heldBack(e, state.entries));
       if (!entry) break;
-      const { api, isApiError } = await client();
+      const { isApiError } = await client();
       try {
-        const answer = await api.post<unknown>(entry.path, entry.body, { headers: { [IDEMPOTENCY_HEADER]: entry.key }, signal: AbortSignal.timeout(SEND_TIMEOUT_MS) });
+        const answer = await post(entry, true);
         answers.set(entry.key, answer);
         // The answer goes on screen before the entry leaves the queue, so the card never steps back in between.
         handlers.onSent(entry, answer);
-        await change(state.entries.filter((e) => e.key !== entry.key));
+        const rest = state.entries.filter((e) => e.key !== entry.key);
+        await change(rest.some((e) => e.waitsFor === entry.key) ? withOwner(rest, entry, handlers.idFrom?.(entry, answer) ?? null) : rest);
         setState({ reachable: true });
       } catch (error) {
         const refused = isApiError(error) && error.isClientError && error.status !== 401 && error.status !== 429;
@@ -149,7 +172,7 @@ export const offlineQueue = {
    * anyone else (the owner at the booth) the entry is sent straight away, with its key, and not kept.
    */
   async submit(entry: Omit<QueuedEntry, "userId" | "state">): Promise<{ queued: true } | { queued: false; answer: unknown }> {
-    if (!userId) return { queued: false, answer: await (await client()).api.post<unknown>(entry.path, entry.body, { headers: { [IDEMPOTENCY_HEADER]: entry.key } }) };
+    if (!userId) return { queued: false, answer: await post(entry, false) };
     setState({ firstTry: entry.key });
     const mine = () => state.entries.find((e) => e.key === entry.key);
     try {
@@ -175,11 +198,11 @@ export const offlineQueue = {
   /** Sends a refused entry again as it is (the office fixed what was in the way). */
   retry: (key: string) => change(state.entries.map((e) => (e.key === key ? { ...e, state: "waiting" as const, problem: undefined } : e))).then(flushQueue),
 
-  /** Replaces a refused entry by a changed one (a new key: it is a different request). */
-  replace: (key: string, changed: Pick<QueuedEntry, "key" | "body" | "label">) =>
-    change(state.entries.map((e) => (e.key === key ? { ...e, ...changed, state: "waiting" as const, problem: undefined } : e))).then(flushQueue),
+  /** Replaces a refused entry by a changed one (a new key: it is a different request); entries waiting for it follow. */
+  replace: (key: string, changed: Replacement) => change(replaced(state.entries, key, changed)).then(flushQueue),
 
-  discard: (key: string) => change(state.entries.filter((e) => e.key !== key)),
+  /** Drops an entry; any waiting for it (a photo of that coat) is shown as refused, to go on the job or be discarded. */
+  discard: (key: string) => change(discarded(state.entries, key)),
 
   /** Forgets every entry on this tablet (sign-out). */
   async clear() {

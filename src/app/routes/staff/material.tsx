@@ -8,7 +8,6 @@ import { MATERIAL_CATEGORY_LABELS } from "@shared/domain/materials";
 import { centsToInput, formatCents } from "@shared/quote/money";
 import type { MaterialDetailDto } from "@shared/schemas/material.schema";
 import { isApiError } from "@/lib/api-client";
-import { Alert } from "@/components/ui/alert";
 import { Button } from "@/components/ui/button";
 import { Dialog } from "@/components/ui/dialog";
 import { PageHeader } from "@/components/ui/page-header";
@@ -27,6 +26,7 @@ import { MaterialForm } from "@/features/materials/components/material-form";
 import { HazardIcons } from "@/features/materials/components/materials-catalogue";
 import { InPageNotFound } from "../in-page-not-found";
 import { useIdParam } from "@/hooks/use-id-param";
+import { ConfirmDialog } from "@/components/ui/confirm-dialog";
 
 export default function MaterialRoute() {
   const { id, valid } = useIdParam("materialId");
@@ -153,34 +153,21 @@ function EditMaterialDialog({ material: m, onClose }: { material: MaterialDetail
 function DeleteMaterialDialog({ material: m, onClose }: { material: MaterialDetailDto; onClose: () => void }) {
   const remove = useDeleteMaterial();
   const navigate = useNavigate();
-  const [problem, setProblem] = useState<string | null>(null);
   return (
-    <Dialog title={`Delete ${m.code}?`} onClose={onClose}>
-      <div className="flex flex-col gap-4">
-        {problem ? <Alert tone="error">{problem}</Alert> : null}
-        <p>A material used by a plan or a mix sheet cannot be deleted; retire it instead so the records keep it.</p>
-        <div className="flex flex-wrap gap-3">
-          <Button
-            variant="danger"
-            size="lg"
-            pending={remove.isPending}
-            onClick={async () => {
-              try {
-                await remove.mutateAsync(m.id);
-                toast.success(`Deleted ${m.code}`);
-                navigate(paths.materials, { replace: true });
-              } catch (error) {
-                setProblem(isApiError(error) ? error.message : "The material could not be deleted.");
-              }
-            }}
-          >
-            Delete material
-          </Button>
-          <Button variant="ghost" size="lg" onClick={onClose}>
-            Keep it
-          </Button>
-        </div>
-      </div>
-    </Dialog>
+    <ConfirmDialog
+      title={`Delete ${m.code}?`}
+      confirmLabel="Delete material"
+      keepLabel="Keep it"
+      pending={remove.isPending}
+      failure="The material could not be deleted."
+      onConfirm={async () => {
+        await remove.mutateAsync(m.id);
+        return `Deleted ${m.code}`;
+      }}
+      onDone={() => navigate(paths.materials, { replace: true })}
+      onClose={onClose}
+    >
+      A material used by a plan or a mix sheet cannot be deleted; retire it instead so the records keep it.
+    </ConfirmDialog>
   );
 }

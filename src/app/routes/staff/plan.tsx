@@ -20,6 +20,7 @@ import { planQueries, useCopyAsTemplate, useDeletePlan } from "@/features/plans/
 import { PlanLayersView } from "@/features/plans/components/plan-layers-view";
 import { InPageNotFound } from "../in-page-not-found";
 import { useIdParam } from "@/hooks/use-id-param";
+import { ConfirmDialog } from "@/components/ui/confirm-dialog";
 
 export default function PlanRoute() {
   const { id, valid } = useIdParam("planId");
@@ -144,34 +145,21 @@ function CopyDialog({ plan, onClose }: { plan: PlanDto; onClose: () => void }) {
 function DeleteDialog({ plan, onClose }: { plan: PlanDto; onClose: () => void }) {
   const remove = useDeletePlan();
   const navigate = useNavigate();
-  const [problem, setProblem] = useState<string | null>(null);
   return (
-    <Dialog title={`Delete ${plan.name}?`} onClose={onClose}>
-      <div className="flex flex-col gap-4">
-        {problem ? <Alert tone="error">{problem}</Alert> : null}
-        <p>Only a plan that was never used at the booth can be deleted.</p>
-        <div className="flex gap-3">
-          <Button
-            variant="danger"
-            size="lg"
-            pending={remove.isPending}
-            onClick={async () => {
-              try {
-                await remove.mutateAsync(plan.id);
-                toast.success("Plan deleted");
-                navigate(plan.jobId ? paths.job(plan.jobId) : paths.plans, { replace: true });
-              } catch (error) {
-                setProblem(isApiError(error) ? error.message : "Could not delete the plan.");
-              }
-            }}
-          >
-            Delete plan
-          </Button>
-          <Button variant="ghost" size="lg" onClick={onClose}>
-            Keep it
-          </Button>
-        </div>
-      </div>
-    </Dialog>
+    <ConfirmDialog
+      title={`Delete ${plan.name}?`}
+      confirmLabel="Delete plan"
+      keepLabel="Keep it"
+      pending={remove.isPending}
+      failure="Could not delete the plan."
+      onConfirm={async () => {
+        await remove.mutateAsync(plan.id);
+        return "Plan deleted";
+      }}
+      onDone={() => navigate(plan.jobId ? paths.job(plan.jobId) : paths.plans, { replace: true })}
+      onClose={onClose}
+    >
+      Only a plan that was never used at the booth can be deleted.
+    </ConfirmDialog>
   );
 }

@@ -3,6 +3,7 @@ import { boothNext, openBatchFor } from "@shared/domain/booth-next";
 import { EMPTY_SETUP } from "@shared/domain/spray-setup";
 import type { BoothDto, CoatLogDto } from "@shared/schemas/booth.schema";
 import type { QueuedEntry } from "@/lib/offline/queue";
+import { waitingCoats } from "./waiting";
 
 const num = (v: unknown) => (typeof v === "number" ? v : null);
 
@@ -12,7 +13,7 @@ const num = (v: unknown) => (typeof v === "number" ? v : null);
  * rules as the server's (shared/domain/booth-next.ts). Times are the stored ones, so a reload shows the same.
  */
 export function withWaitingCoats(card: BoothDto, queue: readonly QueuedEntry[], now: number): BoothDto {
-  const waiting = queue.filter((e) => e.kind === "coat" && e.jobId === card.job.id && e.state === "waiting");
+  const waiting = waitingCoats(queue, card.job.id);
   if (!waiting.length) return card;
   const layerName = new Map(card.layers.map((l) => [l.id, l.name]));
   const extra: CoatLogDto[] = waiting.map((e, i) => {

@@ -14,7 +14,8 @@ import { SafetyCautions } from "@/components/ui/safety-cautions";
 import { cn } from "@/utils/cn";
 import { PhotoUploadButton } from "@/features/uploads/components/photo-upload-button";
 import { useLogCoat } from "../api/booth.queries";
-import { isWaiting } from "../api/waiting";
+import { isWaiting, waitingCoats } from "../api/waiting";
+import { useOfflineQueue } from "@/lib/offline/use-offline";
 import { useLogCoatForm, type LogFields } from "../hooks/use-log-coat-form";
 import { formatMinutes } from "@shared/domain/duration";
 import { useShopUnits } from "@/lib/shop-settings.queries";
@@ -184,16 +185,17 @@ function LogCoatForm({ card, now, clockOffset, prepPath }: { card: BoothDto; now
     event.preventDefault();
     if (submitting || guarded) return;
     setProblem(null);
-    const parsed = form.validate();
-    if (!parsed) return;
-    // Offline there is no server to refuse the tap: the tablet asks for the reason against a timing rule itself.
-    if (!navigator.onLine && breaches.length && !(overridingTiming && parsed.timingOverrideReason)) {
-      setOverridingTiming(true);
-      setProblem(`Not logged: ${breaches.map((b) => b.message).join(" ")} Give a reason to go ahead.`);
-      return;
-    }
+    // Held from the tap itself (checking the form may wait for its schema to load): a second tap is not a second coat.
     setSubmitting(true);
     try {
+      const parsed = await form.validate();
+      if (!parsed) return;
+      // Offline there is no server to refuse the tap: the tablet asks for the reason against a timing rule itself.
+      if (!navigator.onLine && breaches.length && !(overridingTiming && parsed.timingOverrideReason)) {
+        setOverridingTiming(true);
+        setProblem(`Not logged: ${breaches.map((b) => b.message).join(" ")} Give a reason to go ahead.`);
+        return;
+      }
       const { jobId: _jobId, ...rest } = parsed;
       // No toast here: it would cover the log button. The "last logged" line below the button confirms it.
       await log.mutateAsync({
@@ -330,14 +332,18 @@ function LogCoatForm({ card, now, clockOffset, prepPath }: { card: BoothDto; now
       >
         Log coat {next.coat} of {next.of}
       </Button>
-      <LastLogged card={card} />
+      <LastLogged card={card} clockOffset={clockOffset} />
     </form>
   );
 }
 
 /** Confirms the latest tap from the stored log (so it is still there after a reload). */
-function LastLogged({ card }: { card: BoothDto }) {
+function LastLogged({ card, clockOffset }: { card: BoothDto; clockOffset: number }) {
   const last = card.coatLogs.filter((c) => c.status === "counts" || c.status === "corrected").at(-1);
+  const queue = useOfflineQueue();
+  // A coat still waiting on this tablet has no id yet: its photo waits for it in the queue (the card shows the entries
+  // on their first try as not yet logged, so they are left out here as there).
+  const waitsFor = last && isWaiting(last) ? waitingCoats(queue.entries.filter((e) => e.key !== queue.firstTry), card.job.id)[-last.id - 1]?.key : undefined;
   return (
     <div className="flex flex-col items-center gap-2">
     <p role="status" className="text-center text-base text-ink-950">
@@ -351,7 +357,13 @@ function LastLogged({ card }: { card: BoothDto }) {
         "The time and your name are recorded by the server when you tap."
       )}
     </p>
-    {last && !isWaiting(last) ? <PhotoUploadButton owner={{ ownerType: "coat_log", ownerId: last.id }} label="Photo of this coat" /> : null}
+    {last && (!isWaiting(last) || waitsFor) ? (
+      <PhotoUploadButton
+        owner={{ ownerType: "coat_log", ownerId: last.id }}
+        label="Photo of this coat"
+        queue={{ jobId: card.job.id, label: `Photo of coat ${last.coatNumber} of ${last.layerName}`, clockOffsetMs: clockOffset, waitsFor }}
+      />
+    ) : null}
     </div>
   );
 }

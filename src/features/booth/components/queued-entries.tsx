@@ -41,6 +41,8 @@ function Refused({ entry, card }: { entry: QueuedEntry; card: BoothDto }) {
   const wantsReason = entry.problem?.fields.prepOverrideReason !== undefined;
   const asNextCoat =
     entry.kind === "coat" && next.state === "spray" && (next.layerId !== entry.body.layerId || next.coat !== entry.body.coatNumber) ? next : null;
+  // A photo whose coat is gone (voided or removed in the office) can still go on the job.
+  const onJob = entry.kind === "photo" && entry.problem?.status === 404 && entry.body.ownerType !== "job";
   const discard = () => {
     if (window.confirm(`Discard "${entry.label}"? It will not be on the job's record.`)) void offlineQueue.discard(entry.key);
   };
@@ -70,6 +72,11 @@ function Refused({ entry, card }: { entry: QueuedEntry; card: BoothDto }) {
             }
           >
             Send as coat {asNextCoat.coat} of {asNextCoat.layerName}
+          </Button>
+        ) : null}
+        {onJob ? (
+          <Button size="lg" onClick={() => void offlineQueue.replace(entry.key, { key: newEntryKey(), label: `${entry.label} (on the job)`, body: { ...entry.body, ownerType: "job", ownerId: entry.jobId }, waitsFor: undefined })}>
+            Add it to the job instead
           </Button>
         ) : null}
         <Button variant="secondary" size="lg" onClick={() => void offlineQueue.retry(entry.key)}>

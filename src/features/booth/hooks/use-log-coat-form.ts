@@ -1,7 +1,7 @@
 import { useRef, useState } from "react";
 import type { UseFormSetError } from "react-hook-form";
 import type { z } from "zod";
-import { createCoatLogInputSchema } from "@shared/schemas/booth.schema";
+import type { createCoatLogInputSchema } from "@shared/schemas/booth.schema";
 import { applyServerErrors } from "@/lib/form-errors";
 import { SETUP_FIELD_NAMES, type SetupFields } from "../components/spray-setup-fields";
 
@@ -16,6 +16,7 @@ const FIELDS = ["boothTemp", "tempUnit", "humidityPct", "note", "prepOverrideRea
  * State for the booth's log-a-coat form, checked with the same zod schema as the server. Plain React state instead
  * of react-hook-form: this form is on the first screen of the booth card, and leaving the form library out keeps the
  * tablet's first download small (see the client-weight figure in the README). Other forms use react-hook-form.
+ * For the same reason the schema (and zod) load at the first tap, from the service worker's cache when offline.
  */
 export function useLogCoatForm(card: { jobId: number; layerId: number; coatNumber: number }, initial: LogFields) {
   const [values, setValues] = useState(initial);
@@ -31,7 +32,8 @@ export function useLogCoatForm(card: { jobId: number; layerId: number; coatNumbe
   };
 
   /** The parsed values, or null with every field's first problem shown and the first bad field focused. */
-  const validate = (): LogValues | null => {
+  const validate = async (): Promise<LogValues | null> => {
+    const { createCoatLogInputSchema } = await import("@shared/schemas/booth.schema");
     const parsed = createCoatLogInputSchema.safeParse({ ...card, ...values });
     if (parsed.success) return parsed.data;
     const found: Partial<Record<FieldName, string>> = {};

@@ -81,8 +81,12 @@ export function useDeleteJob() {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: (id: number) => api.delete(`/jobs/${id}`),
+    // Gone from the cached pages at once, so the table shown next never offers it (or prefetches it) while it
+    // refreshes. Its own query is left alone: the screen that showed it stays mounted until the next screen's code
+    // has loaded, and removing the query under it would fetch the deleted job again (a 404). Unused, it is
+    // garbage-collected like any other.
     onSuccess: (_data, id) => {
-      queryClient.removeQueries({ queryKey: jobKeys.detail(id) });
+      queryClient.setQueriesData<Page<JobDto>>({ queryKey: jobKeys.lists() }, (page) => (page ? { ...page, items: page.items.filter((j) => j.id !== id), total: page.total - (page.items.some((j) => j.id === id) ? 1 : 0) } : page));
       return afterJobWrite(queryClient);
     },
   });

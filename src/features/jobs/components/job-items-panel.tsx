@@ -2,8 +2,6 @@ import { useState } from "react";
 import { Layers, Pencil, Plus, Trash2 } from "lucide-react";
 import { needsAdhesionPromoter, SUBSTRATE_LABELS, type Substrate } from "@shared/domain/substrates";
 import type { JobItemDto } from "@shared/schemas/job.schema";
-import { isApiError } from "@/lib/api-client";
-import { Alert } from "@/components/ui/alert";
 import { Button } from "@/components/ui/button";
 import { Dialog } from "@/components/ui/dialog";
 import { EmptyState } from "@/components/ui/empty-state";
@@ -12,6 +10,7 @@ import { toast } from "@/components/ui/toast/toast-store";
 import { useCreateJobItem, useDeleteJobItem, useUpdateJobItem } from "../api/job-items.queries";
 import { formatArea } from "./item-area";
 import { JobItemForm } from "./job-item-form";
+import { ConfirmDialog } from "@/components/ui/confirm-dialog";
 
 const substrateLabel = (s: string) => SUBSTRATE_LABELS[s as Substrate] ?? s;
 
@@ -152,35 +151,20 @@ function EditItemDialog({ jobId, item, onClose }: { jobId: number; item: JobItem
 
 function DeleteItemDialog({ jobId, item, onClose }: { jobId: number; item: JobItemDto; onClose: () => void }) {
   const remove = useDeleteJobItem(jobId);
-  const [problem, setProblem] = useState<string | null>(null);
   return (
-    <Dialog title={`Delete ${item.name}?`} onClose={onClose}>
-      <div className="flex flex-col gap-4">
-        {problem ? <Alert tone="error">{problem}</Alert> : null}
-        <p>The item and its notes are removed from this job.</p>
-        <div className="flex flex-wrap gap-3">
-          <Button
-            variant="danger"
-            size="lg"
-            pending={remove.isPending}
-            onClick={async () => {
-              setProblem(null);
-              try {
-                await remove.mutateAsync(item.id);
-                toast.success(`Deleted ${item.name}`);
-                onClose();
-              } catch (error) {
-                setProblem(isApiError(error) ? error.message : "The item could not be deleted.");
-              }
-            }}
-          >
-            Delete item
-          </Button>
-          <Button variant="ghost" size="lg" onClick={onClose}>
-            Keep it
-          </Button>
-        </div>
-      </div>
-    </Dialog>
+    <ConfirmDialog
+      title={`Delete ${item.name}?`}
+      confirmLabel="Delete item"
+      keepLabel="Keep it"
+      pending={remove.isPending}
+      failure="The item could not be deleted."
+      onConfirm={async () => {
+        await remove.mutateAsync(item.id);
+        return `Deleted ${item.name}`;
+      }}
+      onClose={onClose}
+    >
+      The item and its notes are removed from this job.
+    </ConfirmDialog>
   );
 }

@@ -5,7 +5,6 @@ import { Boxes, Pencil, Plus, Trash2 } from "lucide-react";
 import { createLotInputSchema, type CreateLotInput, type LotDto } from "@shared/schemas/material.schema";
 import type { PurchaseUnit } from "@shared/domain/materials";
 import type { z } from "zod";
-import { isApiError } from "@/lib/api-client";
 import { applyServerErrors } from "@/lib/form-errors";
 import { Alert } from "@/components/ui/alert";
 import { Button } from "@/components/ui/button";
@@ -18,6 +17,7 @@ import { toast } from "@/components/ui/toast/toast-store";
 import { formatDate } from "@/utils/format-date";
 import { formatAmount, unitSymbol } from "@/utils/format-quantity";
 import { useCreateLot, useDeleteLot, useUpdateLot } from "../api/materials.queries";
+import { ConfirmDialog } from "@/components/ui/confirm-dialog";
 
 type Editing = { mode: "add" } | { mode: "edit"; lot: LotDto } | { mode: "delete"; lot: LotDto } | null;
 
@@ -156,34 +156,20 @@ function LotDialog({ materialId, unit, lot, onClose }: { materialId: number; uni
 
 function RemoveLotDialog({ materialId, lot, onClose }: { materialId: number; lot: LotDto; onClose: () => void }) {
   const remove = useDeleteLot(materialId);
-  const [problem, setProblem] = useState<string | null>(null);
   return (
-    <Dialog title={`Remove lot ${lot.lotNumber}?`} onClose={onClose}>
-      <div className="flex flex-col gap-4">
-        {problem ? <Alert tone="error">{problem}</Alert> : null}
-        <p>Batches already mixed from this lot keep its number on their records.</p>
-        <div className="flex flex-wrap gap-3">
-          <Button
-            variant="danger"
-            size="lg"
-            pending={remove.isPending}
-            onClick={async () => {
-              try {
-                await remove.mutateAsync(lot.id);
-                toast.success(`Removed lot ${lot.lotNumber}`);
-                onClose();
-              } catch (error) {
-                setProblem(isApiError(error) ? error.message : "The lot could not be removed.");
-              }
-            }}
-          >
-            Remove lot
-          </Button>
-          <Button variant="ghost" size="lg" onClick={onClose}>
-            Keep it
-          </Button>
-        </div>
-      </div>
-    </Dialog>
+    <ConfirmDialog
+      title={`Remove lot ${lot.lotNumber}?`}
+      confirmLabel="Remove lot"
+      keepLabel="Keep it"
+      pending={remove.isPending}
+      failure="The lot could not be removed."
+      onConfirm={async () => {
+        await remove.mutateAsync(lot.id);
+        return `Removed lot ${lot.lotNumber}`;
+      }}
+      onClose={onClose}
+    >
+      Batches already mixed from this lot keep its number on their records.
+    </ConfirmDialog>
   );
 }

@@ -19,6 +19,7 @@ import { TextField } from "@/components/ui/form/text-field";
 import { TextareaField } from "@/components/ui/form/textarea-field";
 import { controlClasses } from "@/components/ui/form/field";
 import { WasteAllowanceFields } from "./waste-allowance-fields";
+import { emptyToNull } from "@/lib/form-values";
 
 type SettingsInput = z.input<typeof updateShopSettingsSchema>;
 type SettingsOutput = z.output<typeof updateShopSettingsSchema>;
@@ -63,7 +64,6 @@ const TOP_FIELDS = [
 ] as const;
 
 /** "" → null for the optional caps (an empty box means "no cap"). */
-const emptyToNull = (v: unknown) => (v === "" || v === undefined ? null : v);
 
 function Group({ title, description, children }: { title: string; description?: ReactNode; children: ReactNode }) {
   return (

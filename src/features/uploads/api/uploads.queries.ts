@@ -1,6 +1,7 @@
 import { useState } from "react";
 import { queryOptions, useMutation, useQueryClient } from "@tanstack/react-query";
 import { api } from "@/lib/api-client";
+import { newEntryKey, offlineQueue } from "@/lib/offline/queue";
 import { uploadWithProgress } from "@/lib/upload-with-progress";
 import type { UpdateUploadInput, UploadDto, UploadOwnerType } from "@shared/schemas/upload.schema";
 
@@ -47,6 +48,39 @@ export function useUploadPhoto(owner: UploadOwner) {
     onSettled: () => setProgress(null),
   });
   return { ...mutation, progress };
+}
+
+/** A booth photo's queue details; `waitsFor` is the queue key of its coat when that coat is itself still waiting to send. */
+export type QueuedPhoto = { jobId: number; label: string; clockOffsetMs: number; waitsFor?: string };
+
+/**
+ * A booth photo: kept in the tablet's queue (src/lib/offline/queue.ts) with its own Idempotency-Key and the time it
+ * was taken (on the server's clock), and sent through the same upload route, at once or when the connection is back.
+ * Resolves `queued` when it waits on the tablet.
+ */
+export function useQueuedPhoto(owner: UploadOwner, queue: QueuedPhoto | undefined) {
+  const after = useAfterUpload();
+  return useMutation({
+    networkMode: "always",
+    mutationFn: ({ file }: { file: File }) => {
+      if (!queue) throw new Error("Not a queued photo");
+      const madeAt = Date.now() + queue.clockOffsetMs;
+      return offlineQueue.submit({
+        key: newEntryKey(),
+        kind: "photo",
+        jobId: queue.jobId,
+        path: "/uploads",
+        // A photo of a coat still waiting gets its owner's id when the coat is stored (src/lib/offline/queue.ts).
+        body: { ownerType: owner.ownerType, ...(queue.waitsFor ? {} : { ownerId: owner.ownerId }), at: new Date(madeAt).toISOString() },
+        file: { blob: file, name: file.name },
+        waitsFor: queue.waitsFor,
+        madeAt,
+        label: queue.label,
+        refresh: [uploadKeys.all, ["booth", "card", queue.jobId]],
+      });
+    },
+    onSuccess: (sent) => (sent.queued ? undefined : after()),
+  });
 }
 
 export function useUpdateUpload() {

@@ -12,12 +12,12 @@ import { FormActions } from "@/components/ui/form/form-actions";
 import { PasswordField } from "@/components/ui/form/password-field";
 import { SelectField } from "@/components/ui/form/select-field";
 import { TextField } from "@/components/ui/form/text-field";
+import { emptyToNull } from "@/lib/form-values";
 
 type UserFormInput = z.input<typeof createUserInputSchema>;
 export type CreateUserValues = z.output<typeof createUserInputSchema>;
 
 const FIELDS = ["email", "name", "role", "password", "customerId"] as const;
-const emptyToNull = (v: unknown) => (v === "" || v === undefined ? null : v);
 
 export const ROLE_HINTS: Record<(typeof ROLES)[number], string> = {
   owner: "Everything, including users and shop settings.",

@@ -11,12 +11,12 @@ import { FormActions } from "@/components/ui/form/form-actions";
 import { SelectField } from "@/components/ui/form/select-field";
 import { TextField } from "@/components/ui/form/text-field";
 import { ROLE_HINTS } from "./create-user-form";
+import { emptyToNull } from "@/lib/form-values";
 
 type EditUserInput = z.input<typeof updateUserInputSchema>;
 export type EditUserValues = z.output<typeof updateUserInputSchema>;
 
 const FIELDS = ["name", "role", "customerId"] as const;
-const emptyToNull = (v: unknown) => (v === "" || v === undefined ? null : v);
 
 /** Name, role and (for customer accounts) the customer record. Changing a role signs that user out everywhere. */
 export function EditUserForm({

@@ -4,9 +4,6 @@ import type { SortingState, Updater } from "@tanstack/react-table";
 import { Users } from "lucide-react";
 import { ROLE_LABELS, ROLES, type Role } from "@shared/domain/roles";
 import type { UserDto } from "@shared/schemas/user.schema";
-import { isApiError } from "@/lib/api-client";
-import { Alert } from "@/components/ui/alert";
-import { Button } from "@/components/ui/button";
 import { DataTable } from "@/components/ui/data-table/data-table";
 import { Dialog } from "@/components/ui/dialog";
 import { EmptyState } from "@/components/ui/empty-state";
@@ -18,6 +15,7 @@ import { sortingToSort, sortToSorting, useListSearchParams } from "@/hooks/use-l
 import { userQueries, useUpdateUser, type UserSortField } from "../api/users.queries";
 import { EditUserForm } from "./edit-user-form";
 import { usersColumns } from "./users-columns";
+import { ConfirmDialog } from "@/components/ui/confirm-dialog";
 
 const SORT_FIELDS: readonly UserSortField[] = ["name", "email", "role", "createdAt"];
 
@@ -131,40 +129,23 @@ function EditUserDialog({
 
 function ToggleActiveDialog({ user, onClose }: { user: UserDto; onClose: () => void }) {
   const update = useUpdateUser();
-  const [problem, setProblem] = useState<string | null>(null);
   const switchingOff = user.active;
   return (
-    <Dialog title={switchingOff ? `Deactivate ${user.name}?` : `Reactivate ${user.name}?`} description={user.email} onClose={onClose}>
-      <div className="flex flex-col gap-4">
-        {problem ? <Alert tone="error">{problem}</Alert> : null}
-        <p>
-          {switchingOff
-            ? "They are signed out everywhere and cannot sign in until reactivated. Their history stays."
-            : "They can sign in again with their existing password."}
-        </p>
-        <div className="flex flex-wrap gap-3">
-          <Button
-            variant={switchingOff ? "danger" : "primary"}
-            size="lg"
-            pending={update.isPending}
-            onClick={async () => {
-              setProblem(null);
-              try {
-                await update.mutateAsync({ id: user.id, active: !switchingOff, version: user.version });
-                toast.success(switchingOff ? `${user.name} is switched off` : `${user.name} can sign in again`);
-                onClose();
-              } catch (error) {
-                setProblem(isApiError(error) ? error.message : "That did not work. Try again.");
-              }
-            }}
-          >
-            {switchingOff ? "Deactivate" : "Reactivate"}
-          </Button>
-          <Button variant="ghost" size="lg" onClick={onClose}>
-            Cancel
-          </Button>
-        </div>
-      </div>
-    </Dialog>
+    <ConfirmDialog
+      title={switchingOff ? `Deactivate ${user.name}?` : `Reactivate ${user.name}?`}
+      description={user.email}
+      confirmLabel={switchingOff ? "Deactivate" : "Reactivate"}
+      keepLabel="Cancel"
+      tone={switchingOff ? "danger" : "primary"}
+      pending={update.isPending}
+      failure="That did not work. Try again."
+      onConfirm={async () => {
+        await update.mutateAsync({ id: user.id, active: !switchingOff, version: user.version });
+        return switchingOff ? `${user.name} is switched off` : `${user.name} can sign in again`;
+      }}
+      onClose={onClose}
+    >
+      {switchingOff ? "They are signed out everywhere and cannot sign in until reactivated. Their history stays." : "They can sign in again with their existing password."}
+    </ConfirmDialog>
   );
 }

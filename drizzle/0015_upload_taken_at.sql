@@ -1,0 +1,1 @@
+ALTER TABLE `uploads` ADD `taken_at` integer;
