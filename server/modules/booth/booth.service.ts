@@ -1,5 +1,4 @@
 import { and, asc, desc, eq, isNotNull, sql } from "drizzle-orm";
-import QRCode from "qrcode";
 import type { z } from "zod";
 import type { AppDeps } from "../../deps";
 import type { Actor } from "../../auth/session";
@@ -36,7 +35,6 @@ import type {
   CoatLogDto,
   correctCoatLogInputSchema,
   createCoatLogInputSchema,
-  JobTicketDto,
 } from "../../../shared/schemas/booth.schema";
 
 type JobRow = typeof jobs.$inferSelect;
@@ -428,21 +426,4 @@ export function correctCoatLog(deps: AppDeps, ctx: RequestContext, id: number, i
     })
     .run();
   return getBooth(deps, actor, job.id);
-}
-
-/** The printable ticket: the job, its items and layers, and a QR code that opens the booth card. */
-export async function jobTicket(deps: AppDeps, actor: Actor, jobId: number): Promise<JobTicketDto> {
-  const booth = getBooth(deps, actor, jobId);
-  const items = deps.db.select().from(jobItems).where(eq(jobItems.jobId, jobId)).orderBy(asc(jobItems.id)).all();
-  const boothUrl = `${deps.publicUrl}/booth/${jobId}`;
-  const qrDataUrl = await QRCode.toDataURL(boothUrl, { errorCorrectionLevel: "M", margin: 2, width: 320 });
-  const { approvedPanel: _panel, ...job } = booth.job;
-  return {
-    job,
-    items: items.map((i) => ({ name: i.name, substrate: i.substrate, surfaceArea: i.surfaceArea, areaUnit: i.areaUnit })),
-    layers: booth.layers.map((l) => ({ position: l.position, kind: l.kind, name: l.name, coats: l.coats, flashMinutes: l.flashMinutes, dryMinutes: l.dryMinutes, cautions: l.cautions.filter((c) => c.id !== "defer").map((c) => c.title) })),
-    boothUrl,
-    qrDataUrl,
-    printedAt: iso(deps.now()),
-  };
 }
