@@ -47,6 +47,7 @@ import { gunsRouter } from "./modules/guns/guns.router";
 import { finishRecordRouter } from "./modules/finish-record/finish-record.router";
 import { inspectionRouter } from "./modules/intake/inspection.router";
 import { panelSendRouter, portalColourRouter } from "./modules/intake/colour-sign-off.router";
+import { changeOrdersRouter, jobChangeOrdersRouter, portalChangeOrdersRouter } from "./modules/change-orders/change-orders.router";
 
 export type CreateAppOptions = {
   db: Db;
@@ -176,6 +177,9 @@ export function createApp(options: CreateAppOptions) {
     ["/jobs", inspectionRouter(deps)],
     ["/panels", panelSendRouter(deps)],
     ["/portal", portalColourRouter(deps)],
+    ["/jobs", jobChangeOrdersRouter(deps)],
+    ["/change-orders", changeOrdersRouter(deps)],
+    ["/portal", portalChangeOrdersRouter(deps)],
   ];
   for (const [prefix, router] of mounts) api.use(prefix, router);
   api.use(notFoundHandler);

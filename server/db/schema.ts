@@ -10,6 +10,7 @@ export * from "./tables/plans";
 export * from "./tables/mix-sheets";
 export * from "./tables/uploads";
 export * from "./tables/quotes";
+export * from "./tables/change-orders";
 export * from "./tables/payments";
 export * from "./tables/equipment";
 export * from "./tables/booth";

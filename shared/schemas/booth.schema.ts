@@ -33,6 +33,8 @@ export const createCoatLogInputSchema = z
     prepOverrideReason: optionalText(500, "Reason"),
     /** Needed only when the coat goes on against a timing rule (flash, dry, recoat window, induction, no batch). */
     timingOverrideReason: optionalText(500, "Reason"),
+    /** The owner's reason for spraying a layer that a change waiting for the customer would alter. */
+    changeOverrideReason: optionalText(500, "Reason"),
     /** The gun set-up really used (the booth card fills in the approved panel's as a start). */
     ...spraySetupFields,
     at: madeAtSchema,
@@ -123,6 +125,8 @@ export type BoothLayerDto = Pick<
   isPrep: boolean;
   coatsDone: number;
   status: "done" | "current" | "upcoming";
+  /** A change order the customer has not approved yet would alter this layer: no coats without the owner's reason. */
+  changeWaiting: boolean;
 };
 
 export type BoothMixSheetDto = {
@@ -203,6 +207,8 @@ export type BoothDto = {
   prepReady: boolean;
   plan: { planId: number; name: string; versionId: number; version: number; frozen: boolean } | null;
   layers: BoothLayerDto[];
+  /** Change orders waiting for the customer (drafts and sent ones) that hold layers of this card. */
+  changesWaiting: number[];
   mixSheets: BoothMixSheetDto[];
   /** The latest batch recorded as mixed for the current layer, with its pot-life end. */
   openBatch: { mixSheetId: number; layerId: number; mixedAt: string; potLifeEndsAt: string | null } | null;

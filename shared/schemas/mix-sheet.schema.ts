@@ -112,6 +112,8 @@ export type MixSheetDto = {
   planVersion: number;
   /** The sheet was made from an older version than the plan's latest. */
   planChanged: boolean;
+  /** The customer approved a change order that moved the job to a later plan version: this sheet is of an older one. */
+  superseded: boolean;
   layerId: number;
   layerName: string;
   layerKind: LayerKind;

@@ -121,6 +121,7 @@ export function createAppRouter(queryClient: QueryClient) {
             { path: "jobs/:jobId", lazy: page(() => import("./routes/portal/portal-job")) },
             { path: "jobs/:jobId/colour", lazy: page(() => import("./routes/portal/portal-job")) },
             { path: "jobs/:jobId/finish-record", lazy: page(() => import("./routes/portal/portal-finish-record")) },
+            { path: "change-orders/:changeOrderId", lazy: page(() => import("./routes/portal/portal-change-order")) },
           ],
         },
         // A quote opened from the e-mail link: no sign-in, no navigation, that one quote.

@@ -53,6 +53,7 @@ export const paths = {
   portalJobColour: (id: number) => `/portal/jobs/${id}/colour`,
   portalFinishRecord: (id: number) => `/portal/jobs/${id}/finish-record`,
   portalLink: (token: string) => `/portal/link/${token}`,
+  portalChangeOrder: (id: number) => `/portal/change-orders/${id}`,
 } as const;
 
 /** Where each role lands after signing in. */

@@ -44,6 +44,10 @@ describe("customers", () => {
     const page = await s.as("estimator").get("/api/customers?pageSize=20&sort=name&q=Customer");
     expect(page.body).toMatchObject({ total: 120, pageSize: 20 });
     expect(page.body.items).toHaveLength(20);
+    // What is typed is found as typed: "%" and "_" are not wildcards.
+    await s.as("estimator").post("/api/customers").send({ name: "Shop_100 Percent" });
+    expect((await s.as("estimator").get("/api/customers?q=%25")).body.total).toBe(0);
+    expect((await s.as("estimator").get("/api/customers?q=p_1")).body.items.map((c: { name: string }) => c.name)).toEqual(["Shop_100 Percent"]);
   });
 
   it("will not delete a customer with jobs (409) and deletes one without", async () => {

@@ -77,15 +77,18 @@ async function demoIds() {
   // The demo customer's hood scoop: inspected at intake, its colour approved in the portal.
   const inspected = myJobs.find((j) => j.title.startsWith("Hot-rod hood scoop"))!;
   const inspectedQuote = myQuotes.find((q) => q.jobTitle === inspected?.title)!;
+  // The demo customer's change order that waits for their answer (seeded on the hood scoop in prep).
+  const changes = await Promise.all(myJobs.map((j) => getJson<{ items: { id: number; status: string }[] }>(cust, `/api/portal/jobs/${j.id}/change-orders`)));
+  const myChange = changes.flatMap((c) => c.items).find((c) => c.status === "sent")!;
   const delivered = (await getJson<{ items: { id: number; title: string }[] }>(owner, "/api/jobs?stage=delivered&pageSize=5")).items[0]!;
   // The signed link the quote e-mail carries (quotes.spec.ts follows one from a real e-mail), minted with the server's secret.
   const secret = loadAppSecret(process.env.APP_SECRET, path.join(dataDir, "secret"));
   const linkToken = signQuoteLink(secret, openQuote.id, Date.now() + 7 * 86_400_000);
 
-  for (const [what, v] of Object.entries({ customer, material, plan, boothJob, sheet, draft, openQuote, myJob, mySprayedJob, delivered, inspected, inspectedQuote, version: versions[0] }))
+  for (const [what, v] of Object.entries({ customer, material, plan, boothJob, sheet, draft, openQuote, myJob, mySprayedJob, delivered, inspected, inspectedQuote, myChange, version: versions[0] }))
     expect(v, `demo data has a ${what}`).toBeTruthy();
   expect(measured.length, "demo panels with meter readings").toBeGreaterThanOrEqual(2);
-  return { customer, material, plan, version: versions[0]!, panel: measured[0]!, compare: measured.slice(0, 3).map((p) => p.id), draft, boothJob, jobPlan, sheet, openQuote, myJob, mySprayedJob, delivered, inspected, inspectedQuote, linkToken };
+  return { customer, material, plan, version: versions[0]!, panel: measured[0]!, compare: measured.slice(0, 3).map((p) => p.id), draft, boothJob, jobPlan, sheet, openQuote, myJob, mySprayedJob, delivered, inspected, inspectedQuote, myChange, linkToken };
 }
 
 type Screen = {
@@ -163,6 +166,7 @@ const SCREENS: Screen[] = [
   { role: "customer", name: "job colour, approved in the portal", url: (i) => `/portal/jobs/${i.inspected.id}/colour`, heading: (i) => i.inspected.title, viewport: PHONE },
   { role: "customer", name: "quote awaiting an answer", url: (i) => `/portal/quotes/${i.openQuote.id}`, heading: (i) => i.openQuote.jobTitle },
   { role: "customer", name: "account", url: () => "/portal/account", heading: exact("Account") },
+  { role: "customer", name: "change order waiting for an answer", url: (i) => `/portal/change-orders/${i.myChange.id}`, heading: (i) => `Change order #${i.myChange.id}`, viewport: PHONE },
 ];
 
 /** Waits for the screen's heading, then until nothing is loading (spinners, busy tables) and nothing moves. */

@@ -140,4 +140,26 @@ describe("intake inspection and the customer's colour sign-off", () => {
     await office.close();
     await customer.close();
   });
+
+  it("a panel against the approved one reads in the shop's tolerance words with ΔE00 beside them", async () => {
+    const office = await newPage(browser);
+    await signIn(office.page, baseUrl, "estimator");
+    const customers = await api<{ items: { id: number; name: string }[] }>(office.page, "/api/customers?q=Tobias%20Wren");
+    const customerId = customers.items.find((c) => c.name === "Tobias Wren")!.id;
+    const job = await api<{ id: number }>(office.page, "/api/jobs", { method: "POST", data: { customerId, title: `Tolerance words E2E ${Date.now()}` } });
+    // Sharma, Wu and Dalal (2005), Color Res. Appl. 30(1), Table 1, pair 34: ΔE00 0.9082.
+    const panel = (lab: { labL: number; labA: number; labB: number }) =>
+      api<{ id: number }>(office.page, "/api/panels", { method: "POST", data: { groundName: "Fine silver", candyName: "Candy garnet", letDownClear: 6, letDownToner: 1, coats: 4, jobId: job.id, ...lab } });
+    const approved = await panel({ labL: 2.0776, labA: 0.0795, labB: -1.135 });
+    await api(office.page, `/api/jobs/${job.id}/approved-panel`, { method: "PUT", data: { panelId: approved.id } });
+    const next = await panel({ labL: 0.9033, labA: -0.0636, labB: -0.5514 });
+    const colour = await api<{ thresholds: { deltaEMatch: number; deltaEClose: number } }>(office.page, `/api/jobs/${job.id}/colour`);
+    const words = 0.9082 < colour.thresholds.deltaEMatch ? "Within tolerance" : 0.9082 < colour.thresholds.deltaEClose ? "Borderline" : "Out of tolerance";
+    await office.page.goto(`${baseUrl}/panels/${next.id}`);
+    const badge = office.page.getByText(/\(ΔE00 0\.91\)$/);
+    // The badge: the words, then ΔE00 in its own span.
+    await expect.poll(() => badge.first().locator("xpath=..").innerText()).toMatch(new RegExp(`^${words}\\s+\\(ΔE00 0\\.91\\)$`));
+    expect(await office.page.locator("main").innerText()).not.toMatch(/\b(Match|Close|Different)\b/);
+    await office.close();
+  });
 });

@@ -49,6 +49,8 @@ describe("the spray record", () => {
     await page.goto(`${baseUrl}/jobs/${source.id}`);
     await page.getByRole("button", { name: "Repeat this finish…" }).click();
     const dialog = page.getByRole("dialog", { name: "Repeat this finish" });
+    // The customer picker starts on the job's own customer (searchable, like the job form's).
+    await expect.poll(() => dialog.getByRole("combobox", { name: "Customer" }).inputValue()).toBe(source.customerName);
     await dialog.getByLabel("Title of the new job").fill(`Repeat of #${source.id} in the browser`);
     await dialog.getByRole("button", { name: "Start the new job" }).click();
     // Either straight to the new job, or first the list of lots that are used up.

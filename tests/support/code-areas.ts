@@ -2,8 +2,10 @@
  * Which source modules belong to the staff screens and which to the customer portal, for the route-splitting checks
  * (tests/e2e/a11y.spec.ts and `npm run bench`). Module paths are as dist/.vite/chunk-modules.json lists them.
  */
-export const STAFF_CODE = [/^src\/app\/routes\/staff\//, /^src\/config\/nav\.ts$/, /^src\/components\/layouts\/app-shell\./, /^src\/features\/(?!auth\/|portal\/)/];
-export const PORTAL_CODE = [/^src\/app\/routes\/portal\//, /^src\/components\/layouts\/portal-shell\./, /^src\/features\/portal\//];
+/** The customer's side of change orders lives in the change-orders feature under portal-* names. */
+const PORTAL_CHANGE_ORDERS = /^src\/features\/change-orders\/(api|components)\/portal-/;
+export const STAFF_CODE = [/^src\/app\/routes\/staff\//, /^src\/config\/nav\.ts$/, /^src\/components\/layouts\/app-shell\./, /^src\/features\/(?!auth\/|portal\/)(?!change-orders\/(api|components)\/portal-)/];
+export const PORTAL_CODE = [/^src\/app\/routes\/portal\//, /^src\/components\/layouts\/portal-shell\./, /^src\/features\/portal\//, PORTAL_CHANGE_ORDERS];
 
 /**
  * Display pieces that live beside the staff features and that the portal shows too: no queries, no mutations and
@@ -14,6 +16,7 @@ export const SHARED_DISPLAY = new Set([
   "src/features/jobs/components/item-area.ts",
   "src/features/panels/components/panel-swatch.tsx",
   "src/features/finish-record/components/finish-record-view.tsx",
+  "src/features/change-orders/components/change-order-view.tsx",
 ]);
 
 export const isStaffCode = (module: string) => STAFF_CODE.some((re) => re.test(module)) && !SHARED_DISPLAY.has(module);

@@ -16,6 +16,7 @@ import { updateLotInputSchema, updateMaterialInputSchema } from "../../shared/sc
 import { updatePanelInputSchema } from "../../shared/schemas/panel.schema";
 import { updatePrepRecordInputSchema } from "../../shared/schemas/prep.schema";
 import { updateQuoteInputSchema } from "../../shared/schemas/quote.schema";
+import { updateChangeOrderInputSchema } from "../../shared/schemas/change-order.schema";
 import { updateGunInputSchema } from "../../shared/schemas/spray-setup.schema";
 import { updateUploadInputSchema } from "../../shared/schemas/upload.schema";
 import { updateUserInputSchema } from "../../shared/schemas/user.schema";
@@ -313,6 +314,28 @@ export const PATCH_SPECS: Record<string, PatchSpec> = {
     },
     // Every figure of the quote follows from its lines, tax and deposit.
     follows: Object.fromEntries(["lines", "taxPercent", "taxedKinds", "taxRounding", "depositPercent"].map((k) => [k, ["totals", "versions", "totalCents", "depositCents"]])),
+  },
+  "PATCH /api/change-orders/:id": {
+    schema: updateChangeOrderInputSchema,
+    read: () => "/api/change-orders/1",
+    // The price lines are under `money`; lifted up so what was sent can be read back.
+    pick: (body) => ({ ...(body as object), lines: (body as { money: { lines: unknown } }).money.lines }),
+    changes: {
+      summary: one("summary", word),
+      colourChanged: one("colourChanged", bool),
+      lines: one(
+        "lines",
+        fc.array(
+          fc.oneof(
+            fc.record({ kind: fc.constant("labour"), description: word, hours: decimal(0.25, 100), rateCents: fc.integer({ min: 0, max: 100_000 }) }),
+            fc.record({ kind: fc.constant("sublet"), description: word, amountCents: fc.integer({ min: 0, max: 1_000_000 }) }),
+          ),
+          { minLength: 0, maxLength: 3 },
+        ),
+      ),
+    },
+    // The money follows from the lines.
+    follows: { lines: ["money"] },
   },
   "PATCH /api/guns/:id": {
     schema: updateGunInputSchema,

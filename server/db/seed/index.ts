@@ -6,12 +6,13 @@ import { seedBooth } from "./booth";
 import { seedQuotes } from "./quotes";
 import { seedSchedule } from "./schedule";
 import { seedIntake } from "./intake";
+import { seedChangeOrders } from "./change-orders";
 
 export { isEmpty, DEMO_PASSWORD, DEMO_USERS, DEMO_SHOP } from "./core";
 export type { SeedContext } from "./core";
 
 /** Later areas add a step here; each gets the ids made before it. Steps run in this order. */
-const STEPS: ((ctx: SeedContext) => void | Promise<void>)[] = [seedSettings, seedMaterials, seedBooth, seedIntake, seedQuotes, seedSchedule];
+const STEPS: ((ctx: SeedContext) => void | Promise<void>)[] = [seedSettings, seedMaterials, seedBooth, seedIntake, seedQuotes, seedChangeOrders, seedSchedule];
 
 /** Fills an empty database with the invented demo shop. With `uploadsDir`, demo photos are written there too. */
 export async function seedDemo(db: Db, now = Date.now(), options: { uploadsDir?: string } = {}) {

@@ -80,6 +80,8 @@ export const coatLogs = sqliteTable(
     prepOverrideReason: text("prep_override_reason"),
     /** Given when the coat went on against a timing rule (flash, dry, recoat window, induction, no batch); the rules broken beside it. */
     timingOverrideReason: text("timing_override_reason"),
+    /** The owner's reason for spraying a layer that a change order waiting for the customer would alter. */
+    changeOverrideReason: text("change_override_reason"),
     timingBreaches: text("timing_breaches", { mode: "json" }).$type<{ rule: string; message: string }[]>(),
     gunId: integer("gun_id").references(() => guns.id, { onDelete: "set null" }),
     ...spraySetupColumns(),

@@ -39,6 +39,8 @@ export const mixSheets = sqliteTable(
     voidedAt: integer("voided_at"),
     voidedBy: text("voided_by").references(() => users.id, { onDelete: "set null" }),
     voidReason: text("void_reason"),
+    /** Set when the customer approved a change order that moved the job to a later plan version. */
+    supersededAt: integer("superseded_at"),
     createdBy: text("created_by").references(() => users.id, { onDelete: "set null" }),
     createdAt: createdAt(),
   },

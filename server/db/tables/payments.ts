@@ -1,6 +1,7 @@
 import { index, integer, sqliteTable, text, uniqueIndex } from "drizzle-orm/sqlite-core";
 import { jobs, users } from "./core";
 import { quoteVersions, quotes } from "./quotes";
+import { changeOrders } from "./change-orders";
 import { createdAt } from "./columns";
 
 /**
@@ -21,6 +22,8 @@ export const checkoutSessions = sqliteTable(
       .notNull()
       .references(() => jobs.id, { onDelete: "cascade" }),
     amountCents: integer("amount_cents").notNull(),
+    /** Set when the checkout is for a change order's extra deposit (the quote is the approved one it amends). */
+    changeOrderId: integer("change_order_id").references(() => changeOrders.id, { onDelete: "restrict" }),
     currency: text("currency").notNull(),
     url: text("url").notNull(),
     /** The signed-in customer who started it, or null for a quote-link visitor. */
@@ -48,6 +51,8 @@ export const payments = sqliteTable(
     quoteVersionId: integer("quote_version_id")
       .notNull()
       .references(() => quoteVersions.id, { onDelete: "restrict" }),
+    /** Set when the payment is a change order's extra deposit. */
+    changeOrderId: integer("change_order_id").references(() => changeOrders.id, { onDelete: "restrict" }),
     sessionId: text("session_id").notNull(),
     paymentIntentId: text("payment_intent_id").notNull(),
     eventId: text("event_id").notNull(),

@@ -6,7 +6,8 @@ import { idempotent, withAnswer } from "../../http/idempotency";
 import { body, params, query } from "../../http/validate";
 import { idParamsSchema } from "../../../shared/schemas/common.schema";
 import { correctCoatLogInputSchema, createCoatLogInputSchema, listCoatLogsQuerySchema } from "../../../shared/schemas/booth.schema";
-import { correctCoatLog, getBooth, jobTicket, listCoatLogs, logCoat } from "./booth.service";
+import { correctCoatLog, getBooth, listCoatLogs, logCoat } from "./booth.service";
+import { jobTicket } from "./job-ticket";
 
 /** The booth card and the job ticket, under /api/jobs. Staff only; painters reach their assigned jobs. */
 export function boothRouter(deps: AppDeps) {

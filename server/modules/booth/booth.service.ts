@@ -1,5 +1,4 @@
 import { and, asc, desc, eq, isNotNull, sql } from "drizzle-orm";
-import QRCode from "qrcode";
 import type { z } from "zod";
 import type { AppDeps } from "../../deps";
 import type { Actor } from "../../auth/session";
@@ -24,6 +23,8 @@ import { getSettings } from "../settings/settings.service";
 import { vocAgainstLimit } from "../../../shared/domain/voc-limits";
 import { coatCount, effectiveCoats, nextBoothStep, type TempUnit } from "../../../shared/domain/booth";
 import { customerApprovedColour } from "../intake/sign-off-rows";
+import { heldLayers, workingVersionId } from "../change-orders/change-order-rows";
+import { changeHoldOverride, recordChangeOverride } from "../change-orders/booth-hold";
 import { COLOUR_LAYER_KINDS, COLOUR_SIGN_OFF_RULE } from "../../../shared/domain/colour-sign-off";
 import { needsAdhesionPromoter } from "../../../shared/domain/substrates";
 import { STAGE_LABELS, type Stage } from "../../../shared/domain/stages";
@@ -34,7 +35,6 @@ import type {
   CoatLogDto,
   correctCoatLogInputSchema,
   createCoatLogInputSchema,
-  JobTicketDto,
 } from "../../../shared/schemas/booth.schema";
 
 type JobRow = typeof jobs.$inferSelect;
@@ -61,9 +61,10 @@ const latestVersionQuery = preparedQuery((db) =>
 );
 const planNameQuery = preparedQuery((db) => db.select({ id: plans.id, name: plans.name }).from(plans).where(eq(plans.id, p("planId"))).prepare());
 
-/** The plan version the booth works from: the one already sprayed, else the latest version of the job's plan. */
+/** The plan version the booth works from: the one change orders settled on, else the one already sprayed, else the latest. */
 function boothVersion(deps: AppDeps, job: JobRow): { planId: number; planName: string; version: LoadedPlanVersion } | null {
-  let versionId = job.sprayedPlanVersionId;
+  // Change orders decide it once there is one: the version of the change approved last, else the one before the change.
+  let versionId = workingVersionId(deps.db, job) ?? job.sprayedPlanVersionId;
   if (versionId == null) {
     const plan = jobPlanRow(deps.db, job.id);
     if (!plan) return null;
@@ -196,6 +197,7 @@ export function getBooth(deps: AppDeps, actor: Actor, jobId: number): BoothDto {
         isPrep: !p,
         coatsDone: p ? p.coatsDone : prepReady ? coatCount(l.coats) : 0,
         status: p ? p.status : prepReady ? "done" : "current",
+        changeWaiting: false,
       };
     });
     const timer = (t: { kind: "flash" | "dry"; startedAt: number; endsAt: number } | null) => (t ? { kind: t.kind, startedAt: iso(t.startedAt), endsAt: iso(t.endsAt) } : null);
@@ -225,6 +227,9 @@ export function getBooth(deps: AppDeps, actor: Actor, jobId: number): BoothDto {
     }
   }
 
+  const held = heldLayers(deps.db, job, layers.map((l) => l.id));
+  for (const l of layers) l.changeWaiting = held.layerIds.has(l.id);
+
   return {
     serverNow: iso(now),
     job: {
@@ -245,6 +250,7 @@ export function getBooth(deps: AppDeps, actor: Actor, jobId: number): BoothDto {
       ? { planId: planned.planId, name: planned.planName, versionId: planned.version.id, version: planned.version.version, frozen: planned.version.frozenAt != null }
       : null,
     layers,
+    changesWaiting: held.changeOrderIds,
     mixSheets: sheets.filter((s) => s.status !== "void"),
     openBatch,
     coatLogs: coatLogsDto,
@@ -318,6 +324,7 @@ export function logCoat(deps: AppDeps, ctx: RequestContext, input: z.output<type
       { layerId: "Waiting for the customer's colour approval" },
     );
   }
+  const changeOverride = changeHoldOverride(actor, booth.layers.find((l) => l.id === next.layerId), input.changeOverrideReason);
   let override: string | null = null;
   if (next.isFirstCoatOfJob && !booth.prepReady) {
     const pending = booth.items.filter((i) => i.prepStatus !== "signed_off").map((i) => i.name);
@@ -353,9 +360,11 @@ export function logCoat(deps: AppDeps, ctx: RequestContext, input: z.output<type
         prepOverrideReason: override,
         timingOverrideReason: timingOverridden?.reason ?? null,
         timingBreaches: timingOverridden?.breaches ?? null,
+        changeOverrideReason: changeOverride,
         createdAt: now,
       })
       .run();
+    if (changeOverride) recordChangeOverride(tx, ctx, { jobId: job.id, layerId: input.layerId, coatNumber: input.coatNumber, reason: changeOverride, changeOrderIds: booth.changesWaiting }, now);
     freezePlanVersion(tx, booth.plan!.versionId, job.id, now, ctx);
     let stage = job.stage;
     if (stage === "in_prep") {
@@ -417,21 +426,4 @@ export function correctCoatLog(deps: AppDeps, ctx: RequestContext, id: number, i
     })
     .run();
   return getBooth(deps, actor, job.id);
-}
-
-/** The printable ticket: the job, its items and layers, and a QR code that opens the booth card. */
-export async function jobTicket(deps: AppDeps, actor: Actor, jobId: number): Promise<JobTicketDto> {
-  const booth = getBooth(deps, actor, jobId);
-  const items = deps.db.select().from(jobItems).where(eq(jobItems.jobId, jobId)).orderBy(asc(jobItems.id)).all();
-  const boothUrl = `${deps.publicUrl}/booth/${jobId}`;
-  const qrDataUrl = await QRCode.toDataURL(boothUrl, { errorCorrectionLevel: "M", margin: 2, width: 320 });
-  const { approvedPanel: _panel, ...job } = booth.job;
-  return {
-    job,
-    items: items.map((i) => ({ name: i.name, substrate: i.substrate, surfaceArea: i.surfaceArea, areaUnit: i.areaUnit })),
-    layers: booth.layers.map((l) => ({ position: l.position, kind: l.kind, name: l.name, coats: l.coats, flashMinutes: l.flashMinutes, dryMinutes: l.dryMinutes, cautions: l.cautions.filter((c) => c.id !== "defer").map((c) => c.title) })),
-    boothUrl,
-    qrDataUrl,
-    printedAt: iso(deps.now()),
-  };
 }

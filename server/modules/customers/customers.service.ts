@@ -1,5 +1,6 @@
 import { updateAtVersion } from "../../db/edit-version";
-import { asc, count, desc, eq, like, or, sql } from "drizzle-orm";
+import { asc, count, desc, eq, or, sql } from "drizzle-orm";
+import { contains } from "../../db/contains";
 import type { AppDeps } from "../../deps";
 import { customers, users } from "../../db/schema";
 import { conflict, notFound } from "../../http/http-error";
@@ -33,7 +34,7 @@ const SORT = { name: customers.name, email: customers.email, createdAt: customer
 
 export function listCustomers(deps: AppDeps, q: ListCustomersQuery): Page<CustomerDto> {
   const where = q.q
-    ? or(like(customers.name, `%${q.q}%`), like(customers.email, `%${q.q}%`), like(customers.phone, `%${q.q}%`))
+    ? or(contains(customers.name, q.q), contains(customers.email, q.q), contains(customers.phone, q.q))
     : undefined;
   const { field, desc: isDesc } = parseSort(q.sort);
   const col = SORT[field as keyof typeof SORT] ?? customers.name;

@@ -7,7 +7,7 @@ export type Composed = { subject: string; text: string; html: string };
 
 const esc = (s: string) => s.replace(/[&<>"']/g, (c) => ({ "&": "&amp;", "<": "&lt;", ">": "&gt;", '"': "&quot;", "'": "&#39;" })[c]!);
 
-const firstName = (name: string) => name.trim().split(/\s+/)[0] || "there";
+export const firstName = (name: string) => name.trim().split(/\s+/)[0] || "there";
 
 /** "Friday 12 March 2027" style, in English, from a YYYY-MM-DD date (no time zone games). */
 export function longDate(date: string): string {
@@ -21,11 +21,11 @@ export function mediumDate(date: string): string {
   return d.toLocaleDateString("en-US", { day: "numeric", month: "long", year: "numeric", timeZone: "UTC" });
 }
 
-function signature(shop: ShopSettings): string[] {
+export function signature(shop: ShopSettings): string[] {
   return [shop.shopName, shop.shopAddress, [shop.shopPhone, shop.shopEmail].filter(Boolean).join(" · ")].filter(Boolean);
 }
 
-function wrapHtml(paragraphs: string[], shop: ShopSettings, action?: { href: string; label: string }): string {
+export function wrapHtml(paragraphs: string[], shop: ShopSettings, action?: { href: string; label: string }): string {
   const body = paragraphs.map((p) => `<p style="margin:0 0 14px">${esc(p).replace(/\n/g, "<br>")}</p>`).join("");
   const button = action
     ? `<p style="margin:20px 0"><a href="${esc(action.href)}" style="display:inline-block;background:#9f1239;color:#fff;text-decoration:none;font-weight:600;padding:12px 20px;border-radius:8px">${esc(action.label)}</a></p>`

@@ -8,6 +8,7 @@ import { iso, isoOrNull } from "../../http/dates";
 import type { RequestContext } from "../../http/context";
 import { findJobFor, jobScope } from "../jobs/jobs.access";
 import { jobPlanRow, loadPlanVersion, freezePlanVersion, type DbOrTx } from "../plans/plans.service";
+import { workingVersionId } from "../change-orders/change-order-rows";
 import { seesCost, todayOf } from "../materials/materials.service";
 import {
   computeMix,
@@ -255,6 +256,7 @@ function sheetDto(deps: AppDeps, actor: Actor, sheet: SheetRow): MixSheetDto {
     planVersionId: sheet.planVersionId,
     planVersion: head.version,
     planChanged: latest?.id !== sheet.planVersionId,
+    superseded: sheet.supersededAt != null,
     layerId: sheet.layerId,
     layerName: head.layerName,
     layerKind: head.layerKind,
@@ -317,7 +319,8 @@ export function createMixSheet(deps: AppDeps, ctx: RequestContext, input: z.outp
   const plan = jobPlanRow(deps.db, job.id);
   if (!plan) throw badRequest("The job has no finish plan yet", { layerId: "No plan on this job" });
   const latest = deps.db.select().from(planVersions).where(eq(planVersions.planId, plan.id)).orderBy(desc(planVersions.version)).limit(1).get()!;
-  const version = loadPlanVersion(deps, latest.id);
+  // Once a change order decides the version (approved, or still waiting), new sheets follow it like the booth card.
+  const version = loadPlanVersion(deps, workingVersionId(deps.db, job) ?? latest.id);
   const layer = version.layers.find((l) => l.id === input.layerId);
   if (!layer) throw badRequest("That layer is not in the job's current plan", { layerId: "Not a layer of this job's current plan" });
   if (layer.components.length === 0) throw badRequest(`${layer.name} has no mix to make`, { layerId: "This layer has no mix" });

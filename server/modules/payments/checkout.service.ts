@@ -1,4 +1,4 @@
-import { and, eq } from "drizzle-orm";
+import { and, eq, isNull } from "drizzle-orm";
 import type Stripe from "stripe";
 import type { AppDeps } from "../../deps";
 import type { Tx } from "../../db/client";
@@ -21,7 +21,8 @@ import { providerStatus, requirePayments, upstream } from "./provider-calls";
 
 
 const queues = new WeakMap<AppDeps, ReturnType<typeof createKeyedQueue<number>>>();
-function queueOf(deps: AppDeps) {
+/** The queue of checkouts being opened: a quote's by its id, a change order's by minus its id. */
+export function queueOf(deps: AppDeps) {
   let q = queues.get(deps);
   if (!q) queues.set(deps, (q = createKeyedQueue<number>()));
   return q;
@@ -98,16 +99,17 @@ async function openCheckout(deps: AppDeps, viewer: PortalViewer, quoteId: number
 }
 
 /**
- * Expires every checkout of the quote that is still open here, at the provider. One the provider will not expire
+ * Expires every checkout of the quote (or of one of its change orders) that is still open here, at the provider. One the provider will not expire
  * because it was paid meanwhile ends this request with 409 until its payment is recorded; one that ended by itself
  * (expired at the provider) is simply marked so. Nothing new is opened while an earlier one may still be paid.
  */
-async function closeOpenCheckouts(deps: AppDeps, quoteId: number) {
+export async function closeOpenCheckouts(deps: AppDeps, quoteId: number, changeOrderId: number | null = null) {
   const pay = requirePayments(deps);
+  const forWhat = changeOrderId == null ? isNull(checkoutSessions.changeOrderId) : eq(checkoutSessions.changeOrderId, changeOrderId);
   const open = deps.db
     .select({ id: checkoutSessions.id })
     .from(checkoutSessions)
-    .where(and(eq(checkoutSessions.quoteId, quoteId), eq(checkoutSessions.status, "open")))
+    .where(and(eq(checkoutSessions.quoteId, quoteId), forWhat, eq(checkoutSessions.status, "open")))
     .all();
   for (const { id } of open) {
     let state: "expired" | "complete";

@@ -15,6 +15,8 @@ import { paidCentsFor, totalsOf } from "../quotes/quotes.service";
 import { formatCents } from "../../../shared/quote/index";
 import type { PaymentDto, PaymentStatus } from "../../../shared/schemas/payment.schema";
 import { markCheckout } from "./checkout.service";
+import { changeDue } from "../change-orders/change-order-rows";
+import { onTimeline } from "../change-orders/change-order-rows";
 import { awaitsReview, awaitsReviewFlag, needsReview } from "./payment-review";
 import { requirePayments, upstream } from "./provider-calls";
 
@@ -106,8 +108,9 @@ function recordPayment(tx: Tx, deps: AppDeps, eventId: string, session: Stripe.C
   const amount = session.amount_total ?? 0;
   const currency = (session.currency ?? "").toLowerCase();
   // What is still due now, from the payments already counted (this transaction sees every one before it).
-  const deposit = totalsOf(version).depositCents;
-  const due = Math.max(0, deposit - paidCentsFor(tx, ours.quoteId));
+  const change = ours.changeOrderId != null ? changeDue(tx, ours.changeOrderId) : null;
+  const deposit = change ? change.depositCents : totalsOf(version).depositCents;
+  const due = Math.max(0, deposit - (change ? change.paidCents : paidCentsFor(tx, ours.quoteId)));
   const reasons: string[] = [];
   if (amount > due)
     reasons.push(
@@ -117,7 +120,9 @@ function recordPayment(tx: Tx, deps: AppDeps, eventId: string, session: Stripe.C
     );
   else if (amount !== expected) reasons.push(`paid ${formatCents(amount)} but the deposit asked was ${formatCents(expected)}`);
   if (currency !== ours.currency) reasons.push(`paid in ${currency.toUpperCase() || "an unknown currency"}, expected ${ours.currency.toUpperCase()}`);
-  if (version.status !== "approved") reasons.push(`the quote version was ${version.status}, not approved, when the payment arrived`);
+  if (change) {
+    if (change.status !== "approved") reasons.push(`change order #${ours.changeOrderId} was ${change.status}, not approved, when the payment arrived`);
+  } else if (version.status !== "approved") reasons.push(`the quote version was ${version.status}, not approved, when the payment arrived`);
   const flagged = reasons.length > 0;
   tx.update(checkoutSessions).set({ status: "complete", closedAt: now }).where(eq(checkoutSessions.id, session.id)).run();
   const paymentId = tx
@@ -126,6 +131,7 @@ function recordPayment(tx: Tx, deps: AppDeps, eventId: string, session: Stripe.C
       jobId: ours.jobId,
       quoteId: ours.quoteId,
       quoteVersionId: ours.quoteVersionId,
+      changeOrderId: ours.changeOrderId,
       sessionId: session.id,
       paymentIntentId: intent,
       eventId,
@@ -147,10 +153,14 @@ function recordPayment(tx: Tx, deps: AppDeps, eventId: string, session: Stripe.C
       entity: "payment",
       entityId: paymentId,
       action: flagged ? "received_flagged" : "received",
-      after: { quoteId: ours.quoteId, version: version.version, amountCents: amount, expectedCents: expected, currency, sessionId: session.id, paymentIntentId: intent, eventId, flagReason: flagged ? reasons.join("; ") : null },
+      after: { quoteId: ours.quoteId, version: version.version, changeOrderId: ours.changeOrderId, amountCents: amount, expectedCents: expected, currency, sessionId: session.id, paymentIntentId: intent, eventId, flagReason: flagged ? reasons.join("; ") : null },
     },
     now,
   );
+  if (change) {
+    if (!flagged) onTimeline(tx, ours.jobId, `Extra deposit of ${formatCents(amount)} for change order #${ours.changeOrderId} paid online`, ours.createdBy, now, "payment");
+    return { outcome: flagged ? "change order payment recorded and flagged for the owner" : "change order payment recorded" , paymentId };
+  }
   if (!flagged) bookJob(tx, ours.jobId, ours.createdBy, now, `Deposit of ${formatCents(amount)} paid online`);
   return { outcome: flagged ? "payment recorded and flagged for the owner" : "payment recorded; job booked", paymentId, receipt: !flagged };
 }

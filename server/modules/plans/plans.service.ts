@@ -10,6 +10,7 @@ import type { RequestContext } from "../../http/context";
 import { recordAudit } from "../audit/audit.service";
 import { planAuditSummary } from "./plan-audit";
 import { atVersion, nextVersion, staleEdit } from "../../db/edit-version";
+import { recordPlanChange, versionHeld } from "../change-orders/change-order-rows";
 import { findJobFor, jobScope } from "../jobs/jobs.access";
 import { seesCost } from "../materials/materials.service";
 import { cautionsFor } from "../../../shared/domain/safety";
@@ -545,8 +546,10 @@ export function savePlan(deps: AppDeps, ctx: RequestContext, planId: number, doc
     }
     const latest = latestVersionRow(tx, planId);
     const before = loadPlanVersion({ db: tx }, latest.id);
-    const locked = versionLocked(tx, latest.id, latest.frozenAt);
+    // On an approved job the approved version is kept too: the change becomes a change order for the customer.
+    const locked = versionLocked(tx, latest.id, latest.frozenAt) || versionHeld(tx, plan.jobId, latest.id);
     let version = latest.version;
+    let savedId = latest.id;
     if (locked) {
       version = latest.version + 1;
       const v = tx
@@ -555,6 +558,7 @@ export function savePlan(deps: AppDeps, ctx: RequestContext, planId: number, doc
         .returning({ id: planVersions.id })
         .get();
       insertLayers(tx, v.id, doc.layers);
+      savedId = v.id;
     } else {
       tx.delete(planLayers).where(eq(planLayers.versionId, latest.id)).run();
       if (doc.versionNote !== undefined) tx.update(planVersions).set({ note: doc.versionNote }).where(eq(planVersions.id, latest.id)).run();
@@ -573,6 +577,7 @@ export function savePlan(deps: AppDeps, ctx: RequestContext, planId: number, doc
       },
       now,
     );
+    if (!plan.isTemplate) recordPlanChange(tx, ctx, plan.jobId, savedId, version, now);
   });
   return getPlan(deps, ctx.actor, planId);
 }

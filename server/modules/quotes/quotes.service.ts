@@ -64,12 +64,12 @@ export function offeredVersion(db: Tx, quoteId: number): VersionRow | undefined 
     .get();
 }
 
-/** Deposits that count for a quote: received, less refunds; a flagged payment counts once the owner accepts it. */
+/** Deposits that count for a quote (not a change order's extra deposit): received, less refunds; a flagged payment counts once the owner accepts it. */
 export function paidCentsFor(db: Tx, quoteId: number): number {
   const row = db
     .select({ n: sql<number>`coalesce(sum(${payments.amountCents} - ${payments.refundedCents}), 0)` })
     .from(payments)
-    .where(and(eq(payments.quoteId, quoteId), or(eq(payments.flagged, false), isNotNull(payments.reviewedAt))))
+    .where(and(eq(payments.quoteId, quoteId), isNull(payments.changeOrderId), or(eq(payments.flagged, false), isNotNull(payments.reviewedAt))))
     .get();
   return Number(row?.n ?? 0);
 }

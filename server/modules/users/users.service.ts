@@ -1,5 +1,6 @@
 import { updateAtVersion } from "../../db/edit-version";
-import { and, asc, count, desc, eq, like, ne, or, type SQL } from "drizzle-orm";
+import { and, asc, count, desc, eq, ne, or, type SQL } from "drizzle-orm";
+import { contains } from "../../db/contains";
 import { randomUUID } from "node:crypto";
 import type { AppDeps } from "../../deps";
 import { customers, users } from "../../db/schema";
@@ -37,7 +38,7 @@ const SORT_COLUMNS = { name: users.name, email: users.email, role: users.role, c
 export function listUsers(deps: AppDeps, q: ListUsersQuery): Page<UserDto> {
   const filters: SQL[] = [];
   if (q.role) filters.push(eq(users.role, q.role));
-  if (q.q) filters.push(or(like(users.name, `%${q.q}%`), like(users.email, `%${q.q}%`))!);
+  if (q.q) filters.push(or(contains(users.name, q.q), contains(users.email, q.q))!);
   const where = filters.length ? and(...filters) : undefined;
   const { field, desc: isDesc } = parseSort(q.sort);
   const col = SORT_COLUMNS[field as keyof typeof SORT_COLUMNS] ?? users.name;

@@ -27,6 +27,7 @@ export function idPools(s: DemoShop, jobIds: number[]) {
     quotes: ids(`select id from quotes where job_id in ${jobsIn} order by id`),
     payments: ids(`select id from payments where job_id in ${jobsIn} order by id`),
     inspections: ids(`select id from inspections where job_id in ${jobsIn} order by id`),
+    "change-orders": ids(`select id from change_orders where job_id in ${jobsIn} order by id`),
     "panel-sign-offs": ids(`select distinct panel_id as id from panel_sign_offs where job_id in ${jobsIn} order by panel_id`),
     outbox: ["1"],
     photos: uploadsOnJobs,

@@ -69,9 +69,23 @@ const viewers = (): Viewer[] => [
   { label: "quote link", who: "anonymous", headers: { "x-portal-token": linkToken } },
 ];
 
+/** Makes each call as the viewer; returns every one that was not refused (401/403/404) or that leaked another customer's data. */
+async function refusals(v: Viewer, calls: [string, string, object?][]): Promise<string[]> {
+  const failures: string[] = [];
+  for (const [method, url, body] of calls) {
+    let req = s.call(v.who, method, url, v.headers);
+    if (body) req = req.send(body);
+    const res = await req;
+    if (![401, 403, 404].includes(res.status)) failures.push(`${v.label}: ${method} ${url} → ${res.status}`);
+    const l = leaked(res.text ?? "");
+    if (l.length) failures.push(`${v.label}: ${method} ${url} leaked ${l.join(", ")}`);
+  }
+  return failures;
+}
+
 describe("a customer cannot reach another customer's records", () => {
   it("has records of every kind on other customers' jobs to aim at", () => {
-    for (const k of ["jobs", "customers", "quotes", "payments", "plans", "mix-sheets", "uploads", "prep-records", "panels", "coat-logs", "inspections", "panel-sign-offs"])
+    for (const k of ["jobs", "customers", "quotes", "payments", "plans", "mix-sheets", "uploads", "prep-records", "panels", "coat-logs", "inspections", "panel-sign-offs", "change-orders"])
       expect({ k, found: foreign.single[k]!.length > 0 }).toEqual({ k, found: true });
     for (const k of ["items", "versions", "quoteVersions"]) expect(foreign.nested[k]!.length).toBeGreaterThan(0);
     expect(markers.length).toBeGreaterThan(10);
@@ -155,14 +169,7 @@ describe("a customer cannot reach another customer's records", () => {
           ["GET", `/api/portal/photos/${id}`],
         ]),
       ];
-      for (const [method, url, body] of calls) {
-        let req = s.call(v.who, method, url, v.headers);
-        if (body) req = req.send(body);
-        const res = await req;
-        if (![401, 403, 404].includes(res.status)) failures.push(`${v.label}: ${method} ${url} → ${res.status}`);
-        const l = leaked(res.text ?? "");
-        if (l.length) failures.push(`${v.label}: ${method} ${url} leaked ${l.join(", ")}`);
-      }
+      failures.push(...(await refusals(v, calls)));
     }
     expect(failures).toEqual([]);
     expect(s.rows<{ n: number }>(`select count(*) as n from panel_sign_offs where status = 'waiting' and job_id in (${foreign.single.jobs!.join(",")})`)[0]!.n).toBe(waiting.length);
@@ -180,6 +187,41 @@ describe("a customer cannot reach another customer's records", () => {
     const colour = await s.call("customer", "GET", `/api/portal/jobs/${own[0]}/colour`);
     expect(colour.status).toBe(200);
     expect(colour.body.answered).toEqual([expect.objectContaining({ status: "approved", decisionName: "Tobias Wren", decidedAddress: null })]);
+  });
+
+  it("change orders: another customer's are out of reach by account and by link; the customer's own come through", async () => {
+    const theirs = s.rows<{ id: number; job_id: number }>(`select id, job_id from change_orders where status != 'draft' and job_id in (${foreign.single.jobs!.join(",")})`);
+    const mine = s.rows<{ id: number; job_id: number; status: string }>(`select id, job_id, status from change_orders where job_id in (${ownJobs().join(",")})`);
+    // Records the rightful customer could act on, so a refusal is the access check.
+    expect(theirs.length).toBeGreaterThan(0);
+    expect(mine.map((c) => c.status)).toContain("sent");
+    const statusesOf = () => s.rows<{ status: string }>(`select status from change_orders where id in (${theirs.map((c) => c.id).join(",")}) order by id`).map((r) => r.status);
+    const before = statusesOf();
+    const failures: string[] = [];
+    for (const v of viewers()) {
+      for (const c of theirs) {
+        const calls: [string, string, object?][] = [
+          ["GET", `/api/portal/change-orders/${c.id}`],
+          ["GET", `/api/portal/jobs/${c.job_id}/change-orders`],
+          ["POST", `/api/portal/change-orders/${c.id}/approve`, { name: "Tobias Wren" }],
+          ["POST", `/api/portal/change-orders/${c.id}/decline`, { reason: "No" }],
+          ["POST", `/api/portal/change-orders/${c.id}/checkout`, {}],
+          ["GET", `/api/change-orders/${c.id}`],
+          ["GET", `/api/jobs/${c.job_id}/change-orders`],
+        ];
+        failures.push(...(await refusals(v, calls)));
+      }
+    }
+    expect(failures).toEqual([]);
+    // Nothing was answered for them.
+    expect(statusesOf()).toEqual(before);
+    for (const c of mine.filter((x) => x.status !== "draft")) {
+      const res = await s.call("customer", "GET", `/api/portal/change-orders/${c.id}`);
+      expect(res.status).toBe(200);
+      expect(res.body.decidedAddress).toBeNull();
+      const list = await s.call("customer", "GET", `/api/portal/jobs/${c.job_id}/change-orders`);
+      expect(list.body.items.map((x: { id: number }) => x.id)).toContain(c.id);
+    }
   });
 
   it("lists the customer reads contain only their own jobs", async () => {

@@ -61,5 +61,8 @@ describe("a painter sees no money", () => {
     const money = found.filter((f) => !listedNotMoney(f));
     expect(money.length).toBeGreaterThan(3);
     expect(money.some((m) => /cost/i.test(m))).toBe(true);
+    // Change orders carry their price difference for the office; the painter's walk above reads the same routes.
+    expect(money).toEqual(expect.arrayContaining(["/api/change-orders/:id .money.depositCents", "/api/change-orders/:id .money.lines[].rateCents"]));
+    expect(mine.single["change-orders"]!.length).toBeGreaterThan(0);
   });
 });

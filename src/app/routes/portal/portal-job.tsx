@@ -10,6 +10,7 @@ import { portalQueries } from "@/features/portal/api/portal.queries";
 import { PortalJobDetails } from "@/features/portal/components/portal-job-details";
 import { ApprovedColour } from "@/features/portal/components/approved-colour";
 import { PortalColourChoice } from "@/features/portal/components/portal-colour-choice";
+import { PortalJobChanges } from "@/features/change-orders/components/portal-job-changes";
 import { InPageNotFound } from "../in-page-not-found";
 import { useIdParam } from "@/hooks/use-id-param";
 
@@ -25,6 +26,7 @@ export default function PortalJobRoute() {
     <>
       <PageHeader eyebrow={`Job #${data.id}`} title={data.title} actions={<StageBadge stage={data.stage as Stage} size="lg" />} />
       <div className="mb-6 flex flex-col gap-3">
+        <PortalJobChanges jobId={data.id} hrefOf={paths.portalChangeOrder} />
         <PortalColourChoice jobId={data.id} />
         <ApprovedColour jobId={data.id} />
       </div>

@@ -14,6 +14,7 @@ import { portalQueries } from "@/features/portal/api/portal.queries";
 import { PortalJobDetails } from "@/features/portal/components/portal-job-details";
 import { PortalQuoteView } from "@/features/portal/components/portal-quote-view";
 import { PortalColourChoice } from "@/features/portal/components/portal-colour-choice";
+import { PortalChangeOrder } from "@/features/change-orders/components/portal-change-order";
 
 /**
  * A quote opened from the link in the shop's e-mail: no sign-in, no navigation, just that quote and its job.
@@ -28,6 +29,8 @@ export default function QuoteLinkRoute() {
   const quote = useQuery({ ...portalQueries.quote(quoteId, token, { waitForPayment: returnState === "paid" }), enabled: quoteId > 0 });
   const job = useQuery({ ...portalQueries.job(quote.data?.jobId ?? 0, token), enabled: Boolean(quote.data) });
   const error = session.error ?? quote.error;
+  // The change-order e-mail opens the change above the quote it amends.
+  const changeId = Number(search.get("change") ?? 0);
 
   return (
     <div className="min-h-dvh">
@@ -55,6 +58,7 @@ export default function QuoteLinkRoute() {
           <div className="flex flex-col gap-8">
             <title>{`Quote #${quote.data.id} · ${quote.data.jobTitle} · Coatwright`}</title>
             <p className="text-sm text-primer-700">Hello {session.data?.customerName.split(" ")[0]}. This page is just for you; please do not share the link.</p>
+            {changeId > 0 ? <PortalChangeOrder id={changeId} token={token} returnState={returnState} /> : null}
             {search.get("colour") ? <PortalColourChoice jobId={quote.data.jobId} token={token} /> : null}
             <PortalQuoteView quote={quote.data} token={token} returnState={returnState} />
             {search.get("colour") ? null : <PortalColourChoice jobId={quote.data.jobId} token={token} />}

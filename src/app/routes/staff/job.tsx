@@ -30,6 +30,8 @@ import { JobColourPanel } from "@/features/panels/components/job-colour-panel";
 import { PhotoPanel } from "@/features/uploads/components/photo-panel";
 import { JobMessagesPanel } from "@/features/quotes/components/job-messages-panel";
 import { JobQuotesPanel } from "@/features/quotes/components/job-quotes-panel";
+import { JobChangeOrdersPanel } from "@/features/change-orders/components/job-change-orders-panel";
+import { settingsQueries } from "@/features/settings/api/settings.queries";
 import { InPageNotFound } from "../in-page-not-found";
 import { useIdParam } from "@/hooks/use-id-param";
 
@@ -48,6 +50,7 @@ function JobPage({ job }: { job: JobDetailDto }) {
   const navigate = useNavigate();
   const office = roleCan(user.role, "office");
   const [dialog, setDialog] = useState<"edit" | "delete" | null>(null);
+  const settings = useQuery({ ...settingsQueries.full(), enabled: office });
 
   return (
     <>
@@ -89,6 +92,7 @@ function JobPage({ job }: { job: JobDetailDto }) {
           </Panel>
           <JobItemsPanel jobId={job.id} items={job.items} canEdit={office} />
           {job.stage !== "inquiry" || office ? <JobPlanSummary jobId={job.id} /> : null}
+          <JobChangeOrdersPanel jobId={job.id} canEdit={office} labourRateCents={settings.data?.labourRateCents ?? 0} />
           <JobBoothSummary jobId={job.id} paths={{ booth: paths.booth(job.id), prep: paths.jobPrep(job.id), ticket: paths.jobTicket(job.id) }} />
           <JobFinishRecordPanel job={job} canRepeat={office} />
           <JobColourPanel jobId={job.id} canApprove={office} panelHref={paths.panel} newPanelHref={paths.newPanel(job.id)} />

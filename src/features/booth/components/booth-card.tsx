@@ -1,3 +1,4 @@
+import { CHANGE_WAITING } from "@shared/domain/change-orders";
 import { useEffect, useState, type ReactNode } from "react";
 import { Link } from "react-router";
 import { ClipboardCheck, Printer, SquareArrowOutUpRight } from "lucide-react";
@@ -60,6 +61,11 @@ export function BoothCard({ card, receivedAt, paths, queued }: { card: BoothDto;
       {card.job.colourWaitsForCustomer ? (
         <Alert tone="warning" title="Colour not approved by the customer yet">
           Shop rule: {COLOUR_SIGN_OFF_RULE.toLowerCase()}. Ground, candy and effect coats wait until the customer approves a test panel in the portal; ask the office.
+        </Alert>
+      ) : null}
+      {card.changesWaiting.length ? (
+        <Alert tone="warning" title={CHANGE_WAITING}>
+          Change order {card.changesWaiting.map((id) => `#${id}`).join(", ")} has not been approved by the customer. The marked layers wait; only the owner can go ahead, with a reason.
         </Alert>
       ) : null}
       {card.prepOverrides.length ? (

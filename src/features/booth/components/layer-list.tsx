@@ -1,3 +1,4 @@
+import { CHANGE_WAITING } from "@shared/domain/change-orders";
 import { useShopUnits } from "@/lib/shop-settings.queries";
 import { formatPressure } from "@/utils/format-measure";
 import { MixWordsList } from "@/components/ui/mix-words-list";
@@ -58,6 +59,7 @@ export function LayerList({ layers, prepPath }: { layers: BoothLayerDto[]; prepP
                     Prep records
                   </Link>
                 )}
+                {layer.changeWaiting ? <p className="mt-1 inline-block rounded-md bg-amber-100 px-2 py-1 text-sm font-semibold text-amber-950 ring-1 ring-amber-400">{CHANGE_WAITING}</p> : null}
                 <MixWordsList components={layer.components} className="mt-1 text-primer-800" />
                 {layer.cautions.length ? (
                   <p className="mt-1 flex items-center gap-1.5 text-sm font-semibold text-flake-800">

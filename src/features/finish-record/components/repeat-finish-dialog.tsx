@@ -7,7 +7,7 @@ import { Alert } from "@/components/ui/alert";
 import { Button } from "@/components/ui/button";
 import { Dialog } from "@/components/ui/dialog";
 import { FormActions } from "@/components/ui/form/form-actions";
-import { SelectField } from "@/components/ui/form/select-field";
+import { SearchPicker } from "@/components/ui/form/search-picker";
 import { TextField } from "@/components/ui/form/text-field";
 import { toast } from "@/components/ui/toast/toast-store";
 import { paths } from "@/config/paths";
@@ -29,10 +29,11 @@ export function RepeatFinishDialog({
   defaultTitle: string;
   onClose: () => void;
 }) {
-  const customers = useQuery(customerQueries.options());
+  const current = useQuery({ ...customerQueries.detail(defaultCustomerId ?? 0), enabled: defaultCustomerId != null });
   const repeat = useRepeatFinish(from);
   const navigate = useNavigate();
   const [customerId, setCustomerId] = useState(defaultCustomerId ? String(defaultCustomerId) : "");
+  const [customerName, setCustomerName] = useState<string | null>(null);
   const [title, setTitle] = useState(defaultTitle);
   const [problem, setProblem] = useState<{ message: string; fields: Record<string, string> } | null>(null);
   const [done, setDone] = useState<RepeatFinishDto | null>(null);
@@ -78,14 +79,20 @@ export function RepeatFinishDialog({
     <Dialog title="Repeat this finish" description="A new job with the same items and the plan as it was really sprayed." onClose={onClose}>
       <form onSubmit={submit} noValidate className="flex flex-col gap-4">
         {problem ? <Alert tone="error">{problem.message}</Alert> : null}
-        <SelectField label="Customer" required value={customerId} error={problem?.fields.customerId} onChange={(e) => setCustomerId(e.target.value)}>
-          <option value="">Choose a customer…</option>
-          {(customers.data?.options ?? []).map((c) => (
-            <option key={c.id} value={c.id}>
-              {c.name}
-            </option>
-          ))}
-        </SelectField>
+        <SearchPicker
+          label="Customer"
+          required
+          noun="customers"
+          placeholder="Type a name, e-mail or phone…"
+          value={customerId}
+          valueName={customerName ?? (customerId && customerId === String(defaultCustomerId) ? (current.data?.name ?? "…") : null)}
+          onChange={(id, name) => {
+            setCustomerId(id);
+            setCustomerName(name);
+          }}
+          queryFor={customerQueries.search}
+          error={problem?.fields.customerId}
+        />
         <TextField label="Title of the new job" value={title} error={problem?.fields.title} onChange={(e) => setTitle(e.target.value)} />
         <FormActions>
           <Button type="submit" size="lg" pending={repeat.isPending} disabled={!customerId}>
