@@ -5,7 +5,7 @@ import { changeOrders, checkoutSessions, customers, jobs, mixSheets, payments } 
 import { conflict, notFound } from "../../http/http-error";
 import { recordAudit } from "../audit/audit.service";
 import { getSettings } from "../settings/settings.service";
-import type { PortalViewer } from "../portal/portal.service";
+import type { PortalViewer } from "../portal/portal-viewer";
 import { awaitsReview } from "../payments/payment-review";
 import { closeOpenCheckouts, queueOf } from "../payments/checkout.service";
 import { requirePayments, upstream } from "../payments/provider-calls";

@@ -6,7 +6,7 @@ import { body, params } from "../../http/validate";
 import { idParamsSchema } from "../../../shared/schemas/common.schema";
 import { approveQuoteInputSchema, declineQuoteInputSchema } from "../../../shared/schemas/quote.schema";
 import { createChangeOrderInputSchema, sendChangeOrderInputSchema, updateChangeOrderInputSchema } from "../../../shared/schemas/change-order.schema";
-import { portalViewer } from "../portal/portal.service";
+import { portalViewer, viewerOf } from "../portal/portal-viewer";
 import { createChangeOrder, getChangeOrder, listJobChangeOrders, sendChangeOrder, updateChangeOrder } from "./change-orders.service";
 import { createChangeOrderCheckout, decideChangeOrder, getPortalChangeOrder, listPortalChangeOrders } from "./change-order-portal";
 
@@ -43,22 +43,23 @@ export function changeOrdersRouter(deps: AppDeps) {
  */
 export function portalChangeOrdersRouter(deps: AppDeps) {
   const r = Router();
-  r.get("/jobs/:id/change-orders", allow("public"), (req, res) => {
-    res.json(listPortalChangeOrders(deps, portalViewer(deps, req, res), params(req, idParamsSchema).id));
+  const asViewer = portalViewer(deps);
+  r.get("/jobs/:id/change-orders", allow("public"), asViewer, (req, res) => {
+    res.json(listPortalChangeOrders(deps, viewerOf(res), params(req, idParamsSchema).id));
   });
-  r.get("/change-orders/:id", allow("public"), (req, res) => {
-    res.json(getPortalChangeOrder(deps, portalViewer(deps, req, res), params(req, idParamsSchema).id));
+  r.get("/change-orders/:id", allow("public"), asViewer, (req, res) => {
+    res.json(getPortalChangeOrder(deps, viewerOf(res), params(req, idParamsSchema).id));
   });
-  r.post("/change-orders/:id/approve", allow("public"), (req, res) => {
-    const viewer = portalViewer(deps, req, res);
+  r.post("/change-orders/:id/approve", allow("public"), asViewer, (req, res) => {
+    const viewer = viewerOf(res);
     res.json(decideChangeOrder(deps, viewer, params(req, idParamsSchema).id, "approved", body(req, approveQuoteInputSchema), req.ip ?? null));
   });
-  r.post("/change-orders/:id/decline", allow("public"), (req, res) => {
-    const viewer = portalViewer(deps, req, res);
+  r.post("/change-orders/:id/decline", allow("public"), asViewer, (req, res) => {
+    const viewer = viewerOf(res);
     res.json(decideChangeOrder(deps, viewer, params(req, idParamsSchema).id, "declined", body(req, declineQuoteInputSchema), req.ip ?? null));
   });
-  r.post("/change-orders/:id/checkout", allow("public"), async (req, res) => {
-    const viewer = portalViewer(deps, req, res);
+  r.post("/change-orders/:id/checkout", allow("public"), asViewer, async (req, res) => {
+    const viewer = viewerOf(res);
     res.status(201).json(await createChangeOrderCheckout(deps, viewer, params(req, idParamsSchema).id));
   });
   return r;

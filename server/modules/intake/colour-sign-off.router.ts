@@ -6,7 +6,7 @@ import { body, params } from "../../http/validate";
 import { idParamsSchema } from "../../../shared/schemas/common.schema";
 import { sendPanelsInputSchema } from "../../../shared/schemas/colour-sign-off.schema";
 import { approveQuoteInputSchema } from "../../../shared/schemas/quote.schema";
-import { portalViewer } from "../portal/portal.service";
+import { portalViewer, viewerOf } from "../portal/portal-viewer";
 import { approvePanel, portalColour, sendPanelsToCustomer } from "./colour-sign-off.service";
 
 /** The office sends test panels to the customer (under /api/panels). */
@@ -24,12 +24,13 @@ export function panelSendRouter(deps: AppDeps) {
  */
 export function portalColourRouter(deps: AppDeps) {
   const r = Router();
-  r.get("/jobs/:id/colour", allow("public"), (req, res) => {
-    const viewer = portalViewer(deps, req, res);
+  const asViewer = portalViewer(deps);
+  r.get("/jobs/:id/colour", allow("public"), asViewer, (req, res) => {
+    const viewer = viewerOf(res);
     res.json(portalColour(deps, viewer, params(req, idParamsSchema).id));
   });
-  r.post("/panels/:id/approve", allow("public"), (req, res) => {
-    const viewer = portalViewer(deps, req, res);
+  r.post("/panels/:id/approve", allow("public"), asViewer, (req, res) => {
+    const viewer = viewerOf(res);
     res.json(approvePanel(deps, viewer, params(req, idParamsSchema).id, body(req, approveQuoteInputSchema), req.ip ?? null));
   });
   return r;

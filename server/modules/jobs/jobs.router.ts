@@ -45,16 +45,16 @@ export function jobsRouter(deps: AppDeps) {
     res.status(201).json(createItem(deps, actorOf(res), params(req, idParamsSchema).id, body(req, createJobItemInputSchema)));
   });
   r.get("/:id/items/:itemId", allow("signedIn"), (req, res) => {
-    const p = params(req, jobItemParamsSchema);
-    res.json(getItem(deps, actorOf(res), p.id, p.itemId));
+    const path = params(req, jobItemParamsSchema);
+    res.json(getItem(deps, actorOf(res), path.id, path.itemId));
   });
   r.patch("/:id/items/:itemId", allow("office"), (req, res) => {
-    const p = params(req, jobItemParamsSchema);
-    res.json(updateItem(deps, actorOf(res), p.id, p.itemId, body(req, updateJobItemInputSchema)));
+    const path = params(req, jobItemParamsSchema);
+    res.json(updateItem(deps, actorOf(res), path.id, path.itemId, body(req, updateJobItemInputSchema)));
   });
   r.delete("/:id/items/:itemId", allow("office"), (req, res) => {
-    const p = params(req, jobItemParamsSchema);
-    deleteItem(deps, actorOf(res), p.id, p.itemId);
+    const path = params(req, jobItemParamsSchema);
+    deleteItem(deps, actorOf(res), path.id, path.itemId);
     res.status(204).end();
   });
   return r;

@@ -63,12 +63,12 @@ export function materialsRouter(deps: AppDeps) {
     res.status(201).json(createLot(deps, params(req, idParamsSchema).id, body(req, createLotInputSchema)));
   });
   r.patch("/:id/lots/:lotId", allow("office"), (req, res) => {
-    const p = params(req, lotParamsSchema);
-    res.json(updateLot(deps, actorOf(res).id, p.id, p.lotId, body(req, updateLotInputSchema)));
+    const path = params(req, lotParamsSchema);
+    res.json(updateLot(deps, actorOf(res).id, path.id, path.lotId, body(req, updateLotInputSchema)));
   });
   r.delete("/:id/lots/:lotId", allow("office"), (req, res) => {
-    const p = params(req, lotParamsSchema);
-    deleteLot(deps, p.id, p.lotId);
+    const path = params(req, lotParamsSchema);
+    deleteLot(deps, path.id, path.lotId);
     res.status(204).end();
   });
 
@@ -81,12 +81,12 @@ export function materialsRouter(deps: AppDeps) {
     res.status(201).json(await uploadFile(deps, actorOf(res), id, kind, req.file));
   });
   r.get("/:id/files/:fileId", allow("staff"), (req, res) => {
-    const p = params(req, fileParamsSchema);
-    sendFile(res, { ...readFile(deps, p.id, p.fileId), disposition: "inline", kept: "stored" });
+    const path = params(req, fileParamsSchema);
+    sendFile(res, { ...readFile(deps, path.id, path.fileId), disposition: "inline", kept: "stored" });
   });
   r.delete("/:id/files/:fileId", allow("office"), (req, res) => {
-    const p = params(req, fileParamsSchema);
-    deleteFile(deps, p.id, p.fileId);
+    const path = params(req, fileParamsSchema);
+    deleteFile(deps, path.id, path.fileId);
     res.status(204).end();
   });
   return r;

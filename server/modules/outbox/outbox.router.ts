@@ -19,11 +19,11 @@ export function outboxRouter(deps: AppDeps) {
     res.json({ items: readOutbox(requireDemo()) });
   });
   r.get("/:id/attachments/:index", allow("owner"), (req, res) => {
-    const p = params(req, z.object({ id: z.string().regex(/^[a-z0-9-]+$/), index: z.preprocess(fromDigits, z.number().int().min(0)) }));
+    const path = params(req, z.object({ id: z.string().regex(/^[a-z0-9-]+$/), index: z.preprocess(fromDigits, z.number().int().min(0)) }));
     const dir = requireDemo();
-    const message = readOutbox(dir).find((m) => m.id === p.id);
-    const meta = message?.attachments[p.index];
-    const content = readOutboxAttachment(dir, p.id, p.index);
+    const message = readOutbox(dir).find((m) => m.id === path.id);
+    const meta = message?.attachments[path.index];
+    const content = readOutboxAttachment(dir, path.id, path.index);
     if (!meta || !content) throw notFound("Attachment");
     sendFile(res, { data: content, mime: meta.contentType, name: meta.filename, disposition: "attachment", kept: "generated" });
   });

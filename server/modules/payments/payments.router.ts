@@ -6,15 +6,16 @@ import { rawBodyOf } from "../../http/raw-body";
 import { body, params, query } from "../../http/validate";
 import { idParamsSchema } from "../../../shared/schemas/common.schema";
 import { acceptPaymentInputSchema, checkoutInputSchema, listPaymentsQuerySchema, refundInputSchema } from "../../../shared/schemas/payment.schema";
-import { portalViewer } from "../portal/portal.service";
+import { portalViewer, viewerOf } from "../portal/portal-viewer";
 import { acceptPayment, handleWebhook, listPayments, requestRefund } from "./payments.service";
 import { createCheckout } from "./checkout.service";
 
 export function paymentsRouter(deps: AppDeps) {
   const r = Router();
+  const asViewer = portalViewer(deps);
   // The customer (signed in, or holding the quote link) starts paying the deposit; see portalViewer.
-  r.post("/checkout", allow("public"), async (req, res) => {
-    const viewer = portalViewer(deps, req, res);
+  r.post("/checkout", allow("public"), asViewer, async (req, res) => {
+    const viewer = viewerOf(res);
     res.status(201).json(await createCheckout(deps, viewer, body(req, checkoutInputSchema).quoteId));
   });
   // The provider's webhook: no session, trusted only through its signature over the raw body.

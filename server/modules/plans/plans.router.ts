@@ -44,8 +44,8 @@ export function plansRouter(deps: AppDeps) {
     res.json(listVersions(deps, actorOf(res), params(req, idParamsSchema).id));
   });
   r.get("/:id/versions/:versionId", allow("staff"), (req, res) => {
-    const p = params(req, versionParamsSchema);
-    res.json(getVersion(deps, actorOf(res), p.id, p.versionId));
+    const path = params(req, versionParamsSchema);
+    res.json(getVersion(deps, actorOf(res), path.id, path.versionId));
   });
   return r;
 }

@@ -16,8 +16,8 @@ import {
   listPortalQuotes,
   portalPhoto,
   portalSession,
-  portalViewer,
 } from "./portal.service";
+import { portalViewer, viewerOf } from "./portal-viewer";
 import { sendFile } from "../../http/send-file";
 
 const photoQuerySchema = z.object({ size: z.enum(["thumb", "full"]).optional(), token: z.string().max(200).optional() });
@@ -29,43 +29,44 @@ const photoQuerySchema = z.object({ size: z.enum(["thumb", "full"]).optional(), 
  */
 export function portalRouter(deps: AppDeps) {
   const r = Router();
-  r.get("/session", allow("public"), (req, res) => {
-    res.json(portalSession(portalViewer(deps, req, res)));
+  const asViewer = portalViewer(deps);
+  r.get("/session", allow("public"), asViewer, (req, res) => {
+    res.json(portalSession(viewerOf(res)));
   });
-  r.get("/quotes", allow("public"), (req, res) => {
-    res.json({ items: listPortalQuotes(deps, portalViewer(deps, req, res)) });
+  r.get("/quotes", allow("public"), asViewer, (req, res) => {
+    res.json({ items: listPortalQuotes(deps, viewerOf(res)) });
   });
-  r.get("/quotes/:id", allow("public"), (req, res) => {
-    const viewer = portalViewer(deps, req, res);
+  r.get("/quotes/:id", allow("public"), asViewer, (req, res) => {
+    const viewer = viewerOf(res);
     res.json(getPortalQuote(deps, viewer, params(req, idParamsSchema).id));
   });
-  r.get("/quotes/:id/pdf", allow("public"), async (req, res) => {
-    const viewer = portalViewer(deps, req, res);
+  r.get("/quotes/:id/pdf", allow("public"), asViewer, async (req, res) => {
+    const viewer = viewerOf(res);
     const id = params(req, idParamsSchema).id;
     getPortalQuote(deps, viewer, id);
     const v = offeredVersion(deps.db, id)!;
     const pdf = await renderQuotePdf(pdfDataFor(deps, v));
     sendFile(res, { data: pdf, mime: "application/pdf", name: pdfFileName(v), disposition: "inline", kept: "generated" });
   });
-  r.post("/quotes/:id/approve", allow("public"), (req, res) => {
-    const viewer = portalViewer(deps, req, res);
+  r.post("/quotes/:id/approve", allow("public"), asViewer, (req, res) => {
+    const viewer = viewerOf(res);
     const id = params(req, idParamsSchema).id;
     res.json(decideQuote(deps, viewer, id, "approved", body(req, approveQuoteInputSchema), req.ip ?? null));
   });
-  r.post("/quotes/:id/decline", allow("public"), (req, res) => {
-    const viewer = portalViewer(deps, req, res);
+  r.post("/quotes/:id/decline", allow("public"), asViewer, (req, res) => {
+    const viewer = viewerOf(res);
     const id = params(req, idParamsSchema).id;
     res.json(decideQuote(deps, viewer, id, "declined", body(req, declineQuoteInputSchema), req.ip ?? null));
   });
-  r.get("/jobs", allow("public"), (req, res) => {
-    res.json({ items: listPortalJobs(deps, portalViewer(deps, req, res)) });
+  r.get("/jobs", allow("public"), asViewer, (req, res) => {
+    res.json({ items: listPortalJobs(deps, viewerOf(res)) });
   });
-  r.get("/jobs/:id", allow("public"), (req, res) => {
-    const viewer = portalViewer(deps, req, res);
+  r.get("/jobs/:id", allow("public"), asViewer, (req, res) => {
+    const viewer = viewerOf(res);
     res.json(getPortalJob(deps, viewer, params(req, idParamsSchema).id));
   });
-  r.get("/photos/:id", allow("public"), (req, res) => {
-    const viewer = portalViewer(deps, req, res);
+  r.get("/photos/:id", allow("public"), asViewer, (req, res) => {
+    const viewer = viewerOf(res);
     const photo = portalPhoto(deps, viewer, params(req, idParamsSchema).id, query(req, photoQuerySchema).size === "thumb");
     res.type(photo.mime).setHeader("Cache-Control", "private, max-age=3600");
     res.send(photo.content);

@@ -1,14 +1,13 @@
-import type { Request, Response } from "express";
 import { and, asc, desc, eq, isNotNull } from "drizzle-orm";
 import type { AppDeps } from "../../deps";
 import { customers, jobItems, jobs, payments, quoteVersions, quotes, uploads } from "../../db/schema";
-import { conflict, forbidden, HttpError, notFound, unauthenticated } from "../../http/http-error";
+import { conflict, notFound } from "../../http/http-error";
 import { iso, isoOrNull } from "../../http/dates";
 import { recordAudit } from "../audit/audit.service";
 import { getSettings } from "../settings/settings.service";
 import { displayStatus, localDate, offeredVersion, paidCentsFor, totalsOf } from "../quotes/quotes.service";
 import { readStored } from "../uploads/storage";
-import { verifyQuoteLink } from "./portal-link";
+import type { PortalViewer } from "./portal-viewer";
 import { portalInspection } from "../intake/inspection.service";
 import { awaitsReview } from "../payments/payment-review";
 import { jobPlanRow, loadPlanVersion } from "../plans/plans.service";
@@ -21,39 +20,6 @@ import type {
   PortalSessionDto,
   QuoteStatus,
 } from "../../../shared/schemas/quote.schema";
-
-/**
- * Who is using the customer portal: a signed-in customer (all of their own quotes and jobs), or a visitor with a
- * signed quote link from an e-mail (that one quote and its job, until the link expires). Staff have no portal.
- */
-export type PortalViewer =
-  | { via: "account"; customerId: number; userId: string; name: string; token: null; quoteId: null; jobId: null; expiresAt: null }
-  | { via: "link"; customerId: number; userId: null; name: string; token: string; quoteId: number; jobId: number; expiresAt: number };
-
-const LINK_HEADER = "x-portal-token";
-
-/** Reads the viewer from the quote-link token (header, or `token` query for plain links like images) or the session. */
-export function portalViewer(deps: AppDeps, req: Request, res: Response): PortalViewer {
-  const fromQuery = typeof req.query.token === "string" ? req.query.token : undefined;
-  const token = req.get(LINK_HEADER) ?? fromQuery;
-  if (token) {
-    const claims = verifyQuoteLink(deps.appSecret, token, deps.now());
-    if (!claims) throw new HttpError(401, "unauthenticated", "This link has expired or is not valid. Ask the shop to send the quote again, or sign in to your account.");
-    const row = deps.db
-      .select({ jobId: jobs.id, customerId: jobs.customerId, name: customers.name })
-      .from(quotes)
-      .innerJoin(jobs, eq(quotes.jobId, jobs.id))
-      .innerJoin(customers, eq(jobs.customerId, customers.id))
-      .where(eq(quotes.id, claims.quoteId))
-      .get();
-    if (!row) throw new HttpError(401, "unauthenticated", "This quote is no longer available. Ask the shop for a new one.");
-    return { via: "link", customerId: row.customerId, userId: null, name: row.name, token, quoteId: claims.quoteId, jobId: row.jobId, expiresAt: claims.expiresAt };
-  }
-  const actor = res.locals.actor;
-  if (!actor) throw unauthenticated("Sign in, or open the link from the shop's e-mail");
-  if (actor.role !== "customer") throw forbidden("The customer portal is for customers");
-  return { via: "account", customerId: actor.customerId ?? -1, userId: actor.id, name: actor.name, token: null, quoteId: null, jobId: null, expiresAt: null };
-}
 
 export function portalSession(viewer: PortalViewer): PortalSessionDto {
   return { via: viewer.via, customerName: viewer.name, quoteId: viewer.quoteId, expiresAt: viewer.expiresAt ? iso(viewer.expiresAt) : null };

@@ -48,8 +48,8 @@ export function quotesRouter(deps: AppDeps) {
     res.status(201).json(reviseQuote(deps, ctxOf(req, res), params(req, idParamsSchema).id));
   });
   r.get("/:id/versions/:version", allow("office"), (req, res) => {
-    const p = params(req, quoteVersionParamsSchema);
-    res.json(getQuoteVersion(deps, p.id, p.version));
+    const path = params(req, quoteVersionParamsSchema);
+    res.json(getQuoteVersion(deps, path.id, path.version));
   });
   r.post("/:id/fill-materials", allow("office"), (req, res) => {
     res.json(fillMaterialsFromPlan(deps, ctxOf(req, res), params(req, idParamsSchema).id));
