@@ -27,8 +27,11 @@ describe("two people editing one plan", () => {
     const estimator = await newPage(browser);
     await signIn(owner.page, baseUrl, "owner");
     await signIn(estimator.page, baseUrl, "estimator");
-    const templates = (await (await owner.page.request.get(`${baseUrl}/api/plans`)).json()) as { id: number; name: string; isTemplate: boolean }[];
-    const plan = templates.find((p) => p.isTemplate)!;
+    const templates = (await (await owner.page.request.get(`${baseUrl}/api/plans?kind=template`)).json()) as { id: number; name: string }[];
+    // A copy of its own to rename: the demo templates are shared with the other browser tests, which pick them by name.
+    const copied = await estimator.page.request.post(`${baseUrl}/api/plans/${templates[0]!.id}/copy-as-template`, { data: { name: `E2E conflict ${Date.now()}` } });
+    expect(copied.status(), await copied.text()).toBe(201);
+    const plan = (await copied.json()) as { id: number };
 
     // The owner opens the editor and types a new name; meanwhile the estimator saves a change of their own.
     await owner.page.goto(`${baseUrl}/plans/${plan.id}/edit`);
