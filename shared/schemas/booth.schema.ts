@@ -201,6 +201,8 @@ export type BoothDto = {
   };
   /** Whether this user may log coats here (painters on their jobs and the owner; estimators read only). */
   canLog: boolean;
+  /** Only the owner may spray a layer held by a change waiting for the customer (with a reason). */
+  canOverrideChange: boolean;
   /** The shop's guns in use, to say which one sprayed a coat. */
   guns: { id: number; name: string }[];
   items: { id: number; name: string; substrate: Substrate; needsAdhesionPromoter: boolean; prepStatus: PrepStatus; prepRecordId: number | null }[];

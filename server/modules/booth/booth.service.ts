@@ -243,6 +243,7 @@ export function getBooth(deps: AppDeps, actor: Actor, jobId: number): BoothDto {
       colourWaitsForCustomer: colourWaits(deps, job, layers),
     },
     canLog: canLogCoats(actor, job),
+    canOverrideChange: actor.role === "owner",
     guns: activeGunsQuery(deps.db).all({}),
     items,
     prepReady,

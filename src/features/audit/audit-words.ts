@@ -135,6 +135,8 @@ const ENTITY_WORDS: Record<string, string> = {
   payment: "Payment",
   job_colour: "Colour of job",
   booth: "Booth",
+  change_order: "Change order",
+  job: "Job",
 };
 
 /**

@@ -1,3 +1,4 @@
+import { CHANGE_WAITING } from "@shared/domain/change-orders";
 import { switchTemperatureText } from "@shared/domain/temperature";
 import { useEffect, useState, type ChangeEvent, type FormEvent } from "react";
 import { Link } from "react-router";
@@ -148,6 +149,9 @@ function LogCoatForm({ card, now, clockOffset, prepPath }: { card: BoothDto; now
   // Too early (flash, dry, induction), too late (recoat window) or no 2K batch: the painter waits, or says why not.
   const breaches = breachesAt(card, now);
   const [overridingTiming, setOverridingTiming] = useState(false);
+  // A change order the customer has not approved holds this layer: only the owner goes ahead, with a reason.
+  const changeHeld = card.layers.find((l) => l.id === next.layerId)?.changeWaiting ?? false;
+  const [overridingChange, setOverridingChange] = useState(false);
   const [noting, setNoting] = useState(false);
   const last = card.lastConditions;
   const units = useShopUnits();
@@ -161,6 +165,7 @@ function LogCoatForm({ card, now, clockOffset, prepPath }: { card: BoothDto; now
       note: "",
       prepOverrideReason: "",
       timingOverrideReason: "",
+      changeOverrideReason: "",
       ...setup.fields,
     },
   );
@@ -202,6 +207,7 @@ function LogCoatForm({ card, now, clockOffset, prepPath }: { card: BoothDto; now
         ...rest,
         prepOverrideReason: needsOverride ? rest.prepOverrideReason : undefined,
         timingOverrideReason: overridingTiming ? rest.timingOverrideReason : undefined,
+        changeOverrideReason: overridingChange ? rest.changeOverrideReason : undefined,
       });
       lastTapAt = Date.now();
       set("note", "");
@@ -209,12 +215,13 @@ function LogCoatForm({ card, now, clockOffset, prepPath }: { card: BoothDto; now
     } catch (error) {
       if (isApiError(error) && error.fields.prepOverrideReason) setOverriding(true);
       if (isApiError(error) && error.fields.timingOverrideReason) setOverridingTiming(true);
+      if (isApiError(error) && error.fields.changeOverrideReason && card.canOverrideChange) setOverridingChange(true);
       setProblem(form.showServerErrors(error));
     } finally {
       setSubmitting(false);
     }
   };
-  const field = <K extends "boothTemp" | "humidityPct" | "note" | "prepOverrideReason" | "timingOverrideReason">(name: K) => ({
+  const field = <K extends "boothTemp" | "humidityPct" | "note" | "prepOverrideReason" | "timingOverrideReason" | "changeOverrideReason">(name: K) => ({
     name,
     value: values[name],
     onChange: (e: ChangeEvent<HTMLInputElement | HTMLTextAreaElement>) => set(name, e.target.value),
@@ -224,6 +231,19 @@ function LogCoatForm({ card, now, clockOffset, prepPath }: { card: BoothDto; now
   return (
     <form ref={form.formRef} onSubmit={submit} noValidate className="@container flex flex-col gap-4" aria-label="Log a coat">
       {problem ? <Alert tone="error">{problem}</Alert> : null}
+      {changeHeld ? (
+        <Alert tone="warning" title={CHANGE_WAITING}>
+          <p>{next.layerName} waits until the customer approves the change. {card.canOverrideChange ? "As the owner you can go ahead with a reason; it is kept on the record." : "Ask the owner or the office."}</p>
+          {card.canOverrideChange && !overridingChange ? (
+            <Button variant="secondary" size="lg" className="mt-3" icon={<TriangleAlert aria-hidden className="size-5" />} onClick={() => setOverridingChange(true)}>
+              Go ahead anyway…
+            </Button>
+          ) : null}
+        </Alert>
+      ) : null}
+      {overridingChange ? (
+        <TextareaField label="Reason for spraying before the customer approves the change" required rows={2} className="text-lg" error={errors.changeOverrideReason} {...field("changeOverrideReason")} />
+      ) : null}
       {needsOverride ? (
         <Alert tone="warning" title="Prep is not signed off">
           <p>

@@ -8,9 +8,9 @@ import { SETUP_FIELD_NAMES, type SetupFields } from "../components/spray-setup-f
 type LogInput = z.input<typeof createCoatLogInputSchema>;
 export type LogValues = z.output<typeof createCoatLogInputSchema>;
 /** What the painter can change on the form; job, layer and coat come from the card. */
-export type LogFields = { boothTemp: string; tempUnit: "C" | "F"; humidityPct: string; note: string; prepOverrideReason: string; timingOverrideReason: string } & SetupFields;
+export type LogFields = { boothTemp: string; tempUnit: "C" | "F"; humidityPct: string; note: string; prepOverrideReason: string; timingOverrideReason: string; changeOverrideReason: string } & SetupFields;
 type FieldName = keyof LogFields | "coatNumber";
-const FIELDS = ["boothTemp", "tempUnit", "humidityPct", "note", "prepOverrideReason", "timingOverrideReason", "coatNumber", ...SETUP_FIELD_NAMES] as const;
+const FIELDS = ["boothTemp", "tempUnit", "humidityPct", "note", "prepOverrideReason", "timingOverrideReason", "changeOverrideReason", "coatNumber", ...SETUP_FIELD_NAMES] as const;
 
 /**
  * State for the booth's log-a-coat form, checked with the same zod schema as the server. Plain React state instead
