@@ -11,7 +11,7 @@ import { findJobFor } from "../jobs/jobs.access";
 import { jobPlanRow, latestVersionRow } from "../plans/plans.service";
 import { getSettings } from "../settings/settings.service";
 import { sendAndLog } from "../messages/messages.service";
-import { quoteLink } from "../quotes/quotes.service";
+import { quoteLink } from "../quotes/quote-sending";
 import { composeChangeOrderMail } from "./change-order-mail";
 import { approvedQuoteOf, changeDue, totalsOfChange, changeOrdersOf, layerFaces, onTimeline, pairsOf, workingVersionId, type ChangeOrderRow, type Db } from "./change-order-rows";
 import { colourChangedIn, isOpenChange } from "../../../shared/domain/change-orders";

@@ -11,7 +11,7 @@ import { sendAndLog } from "../messages/messages.service";
 import { composeColourMail } from "../messages/compose";
 import { findJobFor } from "../jobs/jobs.access";
 import { jobColour, labOf, panelLabel } from "../panels/panels.service";
-import { quoteLink } from "../quotes/quotes.service";
+import { quoteLink } from "../quotes/quote-sending";
 import { photoUrl } from "../portal/portal.service";
 import type { PortalViewer } from "../portal/portal-viewer";
 import { customerApprovedColour, signOffsOf, toSignOffDto } from "./sign-off-rows";

@@ -10,7 +10,8 @@ import { iso } from "../../http/dates";
 import { findJobFor } from "../jobs/jobs.access";
 import { photosOf } from "../uploads/uploads.service";
 import { getSettings } from "../settings/settings.service";
-import { createQuote, latestVersion, updateQuote } from "../quotes/quotes.service";
+import { createQuote, updateQuote } from "../quotes/quotes.service";
+import { latestVersion } from "../quotes/quote-versions";
 import { computeQuoteTotals, type QuoteLine } from "../../../shared/quote/index";
 import {
   EXISTING_FINISH_LABELS,

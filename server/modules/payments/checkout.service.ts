@@ -7,7 +7,7 @@ import { conflict } from "../../http/http-error";
 import { getPortalQuote } from "../portal/portal.service";
 import type { PortalViewer } from "../portal/portal-viewer";
 import { portalLinkPath } from "../portal/portal-link";
-import { offeredVersion } from "../quotes/quotes.service";
+import { offeredVersion } from "../quotes/quote-versions";
 import type { CheckoutDto } from "../../../shared/schemas/payment.schema";
 import { createKeyedQueue } from "./one-at-a-time";
 import { providerStatus, requirePayments, upstream } from "./provider-calls";

@@ -11,7 +11,7 @@ import { recordAudit } from "../audit/audit.service";
 import { getSettings } from "../settings/settings.service";
 import { sendAndLog } from "../messages/messages.service";
 import { composeReceiptMail } from "../messages/compose";
-import { paidCentsFor, totalsOf } from "../quotes/quotes.service";
+import { paidCentsFor, totalsOf } from "../quotes/quote-versions";
 import { formatCents } from "../../../shared/quote/index";
 import type { PaymentDto, PaymentStatus } from "../../../shared/schemas/payment.schema";
 import { markCheckout } from "./checkout.service";

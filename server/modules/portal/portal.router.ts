@@ -6,8 +6,8 @@ import { body, params, query } from "../../http/validate";
 import { idParamsSchema } from "../../../shared/schemas/common.schema";
 import { approveQuoteInputSchema, declineQuoteInputSchema } from "../../../shared/schemas/quote.schema";
 import { renderQuotePdf } from "../quotes/quote-pdf";
-import { pdfDataFor, pdfFileName } from "../quotes/quotes.service";
-import { offeredVersion } from "../quotes/quotes.service";
+import { pdfDataFor, pdfFileName } from "../quotes/quote-sending";
+import { offeredVersion } from "../quotes/quote-versions";
 import {
   decideQuote,
   getPortalJob,

@@ -19,11 +19,10 @@ import {
   getQuote,
   getQuoteVersion,
   listQuotes,
-  quotePdf,
   reviseQuote,
-  sendQuote,
   updateQuote,
 } from "./quotes.service";
+import { quotePdf, sendQuote } from "./quote-sending";
 import { sendFile } from "../../http/send-file";
 
 /** Quotes are the office's (owner, estimator): painters never see prices, customers use the portal. */
