@@ -1,4 +1,4 @@
-import { aliasedTable, asc, desc, eq, sql } from "drizzle-orm";
+import { aliasedTable, asc, desc, eq,  placeholder } from "drizzle-orm";
 import type { AppDeps } from "../../deps";
 import { coatLogs, materials, mixSheetLines, mixSheets, users } from "../../db/schema";
 import { iso, isoOrNull } from "../../http/dates";
@@ -13,7 +13,6 @@ import type { BoothMixSheetDto, CoatLogDto } from "../../../shared/schemas/booth
 /** The booth card's records of a job: its coat-log entries and its batches, as the card shows them. */
 
 type CoatRow = typeof coatLogs.$inferSelect;
-const p = sql.placeholder;
 
 const painterOf = aliasedTable(users, "coat_painter");
 
@@ -22,7 +21,7 @@ const coatRowsQuery = preparedQuery((db) =>
     .select({ c: coatLogs, painterName: painterOf.name })
     .from(coatLogs)
     .leftJoin(painterOf, eq(coatLogs.painterId, painterOf.id))
-    .where(eq(coatLogs.jobId, p("jobId")))
+    .where(eq(coatLogs.jobId, placeholder("jobId")))
     .orderBy(asc(coatLogs.id))
     .prepare(),
 );
@@ -65,7 +64,7 @@ const sheetsQuery = preparedQuery((db) =>
     .select({ s: mixSheets, mixedByName: mixer.name })
     .from(mixSheets)
     .leftJoin(mixer, eq(mixSheets.mixedBy, mixer.id))
-    .where(eq(mixSheets.jobId, p("jobId")))
+    .where(eq(mixSheets.jobId, placeholder("jobId")))
     .orderBy(desc(mixSheets.createdAt), desc(mixSheets.id))
     .prepare(),
 );
@@ -84,7 +83,7 @@ const sheetLinesQuery = preparedQuery((db) =>
     .from(mixSheetLines)
     .innerJoin(mixSheets, eq(mixSheetLines.mixSheetId, mixSheets.id))
     .innerJoin(materials, eq(mixSheetLines.materialId, materials.id))
-    .where(eq(mixSheets.jobId, p("jobId")))
+    .where(eq(mixSheets.jobId, placeholder("jobId")))
     .orderBy(asc(mixSheetLines.position))
     .prepare(),
 );

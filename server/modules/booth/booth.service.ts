@@ -1,4 +1,4 @@
-import { and, asc, desc, eq, isNotNull, sql } from "drizzle-orm";
+import { and, asc, desc, eq, isNotNull,  placeholder } from "drizzle-orm";
 import type { z } from "zod";
 import type { AppDeps } from "../../deps";
 import type { Actor } from "../../auth/session";
@@ -50,16 +50,15 @@ export function canLogCoats(actor: Actor, job: Pick<JobRow, "assignedPainterId">
   return actor.role === "owner" || (actor.role === "painter" && job.assignedPainterId === actor.id);
 }
 
-const p = sql.placeholder;
 
 /*
  * The booth card's queries are prepared once (see preparedQuery): the card is read on every tap and every 30 s by
  * each tablet, and building the SQL anew each time cost more than running it.
  */
 const latestVersionQuery = preparedQuery((db) =>
-  db.select({ id: planVersions.id }).from(planVersions).where(eq(planVersions.planId, p("planId"))).orderBy(desc(planVersions.version)).limit(1).prepare(),
+  db.select({ id: planVersions.id }).from(planVersions).where(eq(planVersions.planId, placeholder("planId"))).orderBy(desc(planVersions.version)).limit(1).prepare(),
 );
-const planNameQuery = preparedQuery((db) => db.select({ id: plans.id, name: plans.name }).from(plans).where(eq(plans.id, p("planId"))).prepare());
+const planNameQuery = preparedQuery((db) => db.select({ id: plans.id, name: plans.name }).from(plans).where(eq(plans.id, placeholder("planId"))).prepare());
 
 /** The plan version the booth works from: the one change orders settled on, else the one already sprayed, else the latest. */
 function boothVersion(deps: AppDeps, job: JobRow): { planId: number; planName: string; version: LoadedPlanVersion } | null {
@@ -83,7 +82,7 @@ const headQuery = preparedQuery((db) =>
     .from(jobs)
     .innerJoin(customers, eq(jobs.customerId, customers.id))
     .leftJoin(users, eq(jobs.assignedPainterId, users.id))
-    .where(eq(jobs.id, p("jobId")))
+    .where(eq(jobs.id, placeholder("jobId")))
     .prepare(),
 );
 const itemsQuery = preparedQuery((db) =>
@@ -91,17 +90,17 @@ const itemsQuery = preparedQuery((db) =>
     .select({ i: jobItems, prepId: prepRecords.id, signedOffAt: prepRecords.signedOffAt })
     .from(jobItems)
     .leftJoin(prepRecords, eq(prepRecords.itemId, jobItems.id))
-    .where(eq(jobItems.jobId, p("jobId")))
+    .where(eq(jobItems.jobId, placeholder("jobId")))
     .orderBy(asc(jobItems.id))
     .prepare(),
 );
 const activeGunsQuery = preparedQuery((db) => db.select({ id: guns.id, name: guns.name }).from(guns).where(eq(guns.active, true)).orderBy(asc(guns.name)).prepare());
-const panelQuery = preparedQuery((db) => db.select().from(testPanels).where(eq(testPanels.id, p("panelId"))).prepare());
+const panelQuery = preparedQuery((db) => db.select().from(testPanels).where(eq(testPanels.id, placeholder("panelId"))).prepare());
 const panelPhotoQuery = preparedQuery((db) =>
   db
     .select({ id: uploads.id, thumb: uploads.thumbName })
     .from(uploads)
-    .where(and(eq(uploads.ownerType, "panel"), eq(uploads.ownerId, p("panelId")), eq(uploads.kind, "photo")))
+    .where(and(eq(uploads.ownerType, "panel"), eq(uploads.ownerId, placeholder("panelId")), eq(uploads.kind, "photo")))
     .orderBy(asc(uploads.id))
     .limit(1)
     .prepare(),
@@ -270,7 +269,7 @@ const conditionsQuery = preparedQuery((db, scope: "job" | "shop") =>
   db
     .select({ boothTemp: coatLogs.boothTemp, tempUnit: coatLogs.tempUnit, humidityPct: coatLogs.humidityPct })
     .from(coatLogs)
-    .where(and(scope === "job" ? eq(coatLogs.jobId, p("jobId")) : undefined, isNotNull(coatLogs.tempUnit)))
+    .where(and(scope === "job" ? eq(coatLogs.jobId, placeholder("jobId")) : undefined, isNotNull(coatLogs.tempUnit)))
     .orderBy(desc(coatLogs.createdAt), desc(coatLogs.id))
     .limit(1)
     .prepare(),

@@ -1,5 +1,5 @@
 import { updateAtVersion } from "../../db/edit-version";
-import { aliasedTable, and, asc, count, desc, eq, gte, inArray, like, lt, lte, or, sql, type SQL } from "drizzle-orm";
+import { aliasedTable, and, asc, count, desc, eq, gte, inArray, like, lt, lte, or, sql, type SQL, placeholder } from "drizzle-orm";
 import type { z } from "zod";
 import type { AppDeps } from "../../deps";
 import { nextSlots } from "../schedule/schedule.service";
@@ -105,18 +105,17 @@ function dateOnly(ms: number, addDays = 0) {
 /** What a list request filters and sorts by: each combination is one prepared query; the values come per request. */
 type ListShape = { scope: ScopeKind; stages: number; customer: boolean; painter: boolean; due?: "overdue" | "week"; text: boolean; number: boolean; sort: string };
 
-const p = sql.placeholder;
 
 function listFilters(s: ListShape): SQL | undefined {
   const filters: (SQL | undefined)[] = [preparedJobScope(s.scope)];
-  if (s.stages) filters.push(inArray(jobs.stage, Array.from({ length: s.stages }, (_, i) => p(`stage${i}`))));
-  if (s.customer) filters.push(eq(jobs.customerId, p("customerId")));
-  if (s.painter) filters.push(eq(jobs.assignedPainterId, p("painterId")));
+  if (s.stages) filters.push(inArray(jobs.stage, Array.from({ length: s.stages }, (_, i) => placeholder(`stage${i}`))));
+  if (s.customer) filters.push(eq(jobs.customerId, placeholder("customerId")));
+  if (s.painter) filters.push(eq(jobs.assignedPainterId, placeholder("painterId")));
   if (s.due) {
     filters.push(inArray(jobs.stage, [...DUE_STAGES]));
-    filters.push(s.due === "overdue" ? lt(jobs.dueDate, p("today")) : and(gte(jobs.dueDate, p("today")), lte(jobs.dueDate, p("weekEnd"))));
+    filters.push(s.due === "overdue" ? lt(jobs.dueDate, placeholder("today")) : and(gte(jobs.dueDate, placeholder("today")), lte(jobs.dueDate, placeholder("weekEnd"))));
   }
-  if (s.text) filters.push(or(like(jobs.title, p("text")), like(customers.name, p("text")), s.number ? eq(jobs.id, p("number")) : undefined));
+  if (s.text) filters.push(or(like(jobs.title, placeholder("text")), like(customers.name, placeholder("text")), s.number ? eq(jobs.id, placeholder("number")) : undefined));
   return and(...filters);
 }
 
@@ -133,8 +132,8 @@ const listPage = preparedQuery((db, s: ListShape) => {
   const page = (s.text || field === "customer" ? ids.innerJoin(customers, eq(jobs.customerId, customers.id)) : ids)
     .where(listFilters(s))
     .orderBy(...order)
-    .limit(p("limit"))
-    .offset(p("offset"))
+    .limit(placeholder("limit"))
+    .offset(placeholder("offset"))
     .as("page");
   return db
     .select(jobColumns)
@@ -224,14 +223,14 @@ const stageEventsOf = preparedQuery((db) =>
     })
     .from(jobStageEvents)
     .leftJoin(users, eq(jobStageEvents.userId, users.id))
-    .where(eq(jobStageEvents.jobId, p("jobId")))
+    .where(eq(jobStageEvents.jobId, placeholder("jobId")))
     .orderBy(desc(jobStageEvents.at), desc(jobStageEvents.id))
     .prepare(),
 );
 
 const jobRowFor = preparedQuery((db, kind: ScopeKind) =>
   selectJobs(db)
-    .where(and(eq(jobs.id, p("id")), preparedJobScope(kind)))
+    .where(and(eq(jobs.id, placeholder("id")), preparedJobScope(kind)))
     .prepare(),
 );
 
@@ -255,8 +254,8 @@ function checkRefs(deps: AppDeps, input: { customerId?: number; assignedPainterI
     if (!c) throw badRequest("That customer does not exist", { customerId: "No such customer" });
   }
   if (input.assignedPainterId) {
-    const p = deps.db.select({ role: users.role, active: users.active }).from(users).where(eq(users.id, input.assignedPainterId)).get();
-    if (!p || p.role !== "painter" || !p.active)
+    const painter = deps.db.select({ role: users.role, active: users.active }).from(users).where(eq(users.id, input.assignedPainterId)).get();
+    if (!painter || painter.role !== "painter" || !painter.active)
       throw badRequest("Assign the job to an active painter", { assignedPainterId: "Not an active painter" });
   }
 }

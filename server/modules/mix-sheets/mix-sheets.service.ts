@@ -7,7 +7,8 @@ import { badRequest, conflict, notFound } from "../../http/http-error";
 import { iso, isoOrNull } from "../../http/dates";
 import type { RequestContext } from "../../http/context";
 import { findJobFor, jobScope } from "../jobs/jobs.access";
-import { jobPlanRow, loadPlanVersion, freezePlanVersion, type DbOrTx } from "../plans/plans.service";
+import { jobPlanRow, loadPlanVersion, freezePlanVersion } from "../plans/plans.service";
+import type { Tx } from "../../db/client";
 import { workingVersionId } from "../change-orders/change-order-rows";
 import { seesCost, todayOf } from "../materials/materials.service";
 import {
@@ -108,7 +109,7 @@ function neededInPurchaseUnit(ml: number, m: MaterialRow, density: number | null
 }
 
 /** The layer's mix as written (parts, percent of), to measure rounding against. */
-function layerComponentsOf(db: DbOrTx, layerId: number) {
+function layerComponentsOf(db: Tx, layerId: number) {
   return db
     .select({ label: layerComponents.label, parts: layerComponents.parts, percent: layerComponents.percent, percentOf: layerComponents.percentOf })
     .from(layerComponents)
@@ -117,7 +118,7 @@ function layerComponentsOf(db: DbOrTx, layerId: number) {
     .all();
 }
 
-function lotsByMaterial(db: DbOrTx, materialIds: number[]): Map<number, LotRow[]> {
+function lotsByMaterial(db: Tx, materialIds: number[]): Map<number, LotRow[]> {
   const out = new Map<number, LotRow[]>();
   if (!materialIds.length) return out;
   for (const l of db.select().from(materialLots).where(inArray(materialLots.materialId, [...new Set(materialIds)])).all()) {

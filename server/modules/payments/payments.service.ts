@@ -282,9 +282,9 @@ export function listPayments(deps: AppDeps, q: { jobId?: number; quoteId?: numbe
 }
 
 function findPayment(deps: AppDeps, id: number) {
-  const p = deps.db.select().from(payments).where(eq(payments.id, id)).get();
-  if (!p) throw notFound("Payment");
-  return p;
+  const payment = deps.db.select().from(payments).where(eq(payments.id, id)).get();
+  if (!payment) throw notFound("Payment");
+  return payment;
 }
 
 /**

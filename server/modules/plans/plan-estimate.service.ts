@@ -8,7 +8,8 @@ import { centsPerMl } from "../../../shared/domain/material-units";
 import type { Caution } from "../../../shared/domain/safety";
 import type { LayerKind } from "../../../shared/domain/layers";
 import type { PlanEstimateDto } from "../../../shared/schemas/plan.schema";
-import { jobPlanRow, loadPlanVersion, type DbOrTx, type LoadedLayer } from "./plans.service";
+import { jobPlanRow, loadPlanVersion, type LoadedLayer } from "./plans.service";
+import type { Tx } from "../../db/client";
 import { seesCost } from "../materials/materials.service";
 import { getSettings } from "../settings/settings.service";
 import { vocAgainstLimit } from "../../../shared/domain/voc-limits";
@@ -172,7 +173,7 @@ function estimateBase(layer: LoadedLayer, areaM2: number): BaseResult {
 }
 
 /** Total area of the job's items in m². */
-export function jobAreaM2(db: DbOrTx, jobId: number): number {
+export function jobAreaM2(db: Tx, jobId: number): number {
   return db
     .select({ area: jobItems.surfaceArea, unit: jobItems.areaUnit })
     .from(jobItems)
@@ -181,7 +182,7 @@ export function jobAreaM2(db: DbOrTx, jobId: number): number {
     .reduce((sum, i) => sum + (i.unit === "ft2" ? i.area * M2_PER_FT2 : i.area), 0);
 }
 
-export function estimateJobPlan(deps: { db: DbOrTx }, jobId: number): JobPlanEstimate | null {
+export function estimateJobPlan(deps: { db: Tx }, jobId: number): JobPlanEstimate | null {
   const plan = jobPlanRow(deps.db, jobId);
   if (!plan) return null;
   const latest = deps.db.select({ id: planVersions.id }).from(planVersions).where(eq(planVersions.planId, plan.id)).orderBy(desc(planVersions.version)).limit(1).get();

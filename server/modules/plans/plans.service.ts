@@ -1,7 +1,7 @@
-import { and, asc, count, desc, eq, inArray, isNotNull, like, max, sql, type SQL } from "drizzle-orm";
+import { and, asc, count, desc, eq, inArray, isNotNull, like, max,  type SQL, placeholder } from "drizzle-orm";
 import { preparedQuery } from "../../db/prepared";
 import type { AppDeps } from "../../deps";
-import type { Db } from "../../db/client";
+import type { Tx } from "../../db/client";
 import type { Actor } from "../../auth/session";
 import { jobs, layerComponents, materials, mixSheets, planLayers, planVersions, plans, users } from "../../db/schema";
 import { badRequest, conflict, notFound } from "../../http/http-error";
@@ -53,8 +53,6 @@ import type {
  * Locked versions never change.
  */
 
-/** A database handle or a transaction: what the helpers below need. */
-export type DbOrTx = Pick<Db, "select" | "insert" | "update" | "delete">;
 
 export type LoadedComponent = LayerComponentDto & { costCents: number };
 export type LoadedLayer = Omit<PlanLayerDto, "components"> & { components: LoadedComponent[] };
@@ -72,25 +70,24 @@ export type LoadedPlanVersion = {
 
 type PlanRow = typeof plans.$inferSelect;
 
-const p = sql.placeholder;
-const versionQuery = preparedQuery((db: DbOrTx) =>
-  db.select({ v: planVersions, by: users.name }).from(planVersions).leftJoin(users, eq(planVersions.createdBy, users.id)).where(eq(planVersions.id, p("versionId"))).prepare(),
+const versionQuery = preparedQuery((db: Tx) =>
+  db.select({ v: planVersions, by: users.name }).from(planVersions).leftJoin(users, eq(planVersions.createdBy, users.id)).where(eq(planVersions.id, placeholder("versionId"))).prepare(),
 );
-const layersQuery = preparedQuery((db: DbOrTx) =>
-  db.select().from(planLayers).where(eq(planLayers.versionId, p("versionId"))).orderBy(asc(planLayers.position), asc(planLayers.id)).prepare(),
+const layersQuery = preparedQuery((db: Tx) =>
+  db.select().from(planLayers).where(eq(planLayers.versionId, placeholder("versionId"))).orderBy(asc(planLayers.position), asc(planLayers.id)).prepare(),
 );
-const componentsQuery = preparedQuery((db: DbOrTx) =>
+const componentsQuery = preparedQuery((db: Tx) =>
   db
     .select({ c: layerComponents, m: materials })
     .from(layerComponents)
     .innerJoin(planLayers, eq(layerComponents.layerId, planLayers.id))
     .innerJoin(materials, eq(layerComponents.materialId, materials.id))
-    .where(eq(planLayers.versionId, p("versionId")))
+    .where(eq(planLayers.versionId, placeholder("versionId")))
     .orderBy(asc(layerComponents.position), asc(layerComponents.id))
     .prepare(),
 );
 
-export function loadPlanVersion(deps: { db: DbOrTx }, versionId: number): LoadedPlanVersion {
+export function loadPlanVersion(deps: { db: Tx }, versionId: number): LoadedPlanVersion {
   const v = versionQuery(deps.db).get({ versionId });
   if (!v) throw notFound("Plan version");
   const layers = layersQuery(deps.db).all({ versionId });
@@ -176,18 +173,18 @@ export function toVersionDto(v: LoadedPlanVersion, actor: Actor, locked: boolean
   };
 }
 
-function versionLocked(db: DbOrTx, versionId: number, frozenAt: number | null): boolean {
+function versionLocked(db: Tx, versionId: number, frozenAt: number | null): boolean {
   if (frozenAt != null) return true;
   return (db.select({ n: count() }).from(mixSheets).where(eq(mixSheets.planVersionId, versionId)).get()?.n ?? 0) > 0;
 }
 
-export function latestVersionRow(db: DbOrTx, planId: number) {
+export function latestVersionRow(db: Tx, planId: number) {
   const row = db.select().from(planVersions).where(eq(planVersions.planId, planId)).orderBy(desc(planVersions.version)).limit(1).get();
   if (!row) throw notFound("Plan version");
   return row;
 }
 
-function findPlanRow(db: DbOrTx, id: number): PlanRow {
+function findPlanRow(db: Tx, id: number): PlanRow {
   const plan = db.select().from(plans).where(eq(plans.id, id)).get();
   if (!plan) throw notFound("Plan");
   return plan;
@@ -235,9 +232,9 @@ export function getPlan(deps: AppDeps, actor: Actor, id: number): PlanDto {
 }
 
 /** The plan row of a job (one plan per job), or undefined. */
-const jobPlanQuery = preparedQuery((db: DbOrTx) => db.select().from(plans).where(eq(plans.jobId, p("jobId"))).orderBy(desc(plans.id)).limit(1).prepare());
+const jobPlanQuery = preparedQuery((db: Tx) => db.select().from(plans).where(eq(plans.jobId, placeholder("jobId"))).orderBy(desc(plans.id)).limit(1).prepare());
 
-export function jobPlanRow(db: DbOrTx, jobId: number): PlanRow | undefined {
+export function jobPlanRow(db: Tx, jobId: number): PlanRow | undefined {
   return jobPlanQuery(db).get({ jobId });
 }
 
@@ -348,7 +345,7 @@ export function getVersion(deps: AppDeps, actor: Actor, planId: number, versionI
  * Checks a plan document against the catalogue and the mix engine. Problems are reported with the field path
  * of the layer's component (`layers.2.components.1.percentOf`), so the editor shows them beside the field.
  */
-export function validateDocument(deps: { db: DbOrTx }, doc: PlanDocument) {
+export function validateDocument(deps: { db: Tx }, doc: PlanDocument) {
   const ids = doc.layers.flatMap((l) => l.components.map((c) => c.materialId));
   const known = new Set(ids.length ? deps.db.select({ id: materials.id }).from(materials).where(inArray(materials.id, [...new Set(ids)])).all().map((m) => m.id) : []);
   const fields: Record<string, string> = {};
@@ -369,7 +366,7 @@ export function validateDocument(deps: { db: DbOrTx }, doc: PlanDocument) {
 }
 
 /** The materials' data-sheet timing figures, by material id (one query for the whole document). */
-function materialTimings(tx: DbOrTx, layers: PlanDocument["layers"]): Map<number, MaterialTiming> {
+function materialTimings(tx: Tx, layers: PlanDocument["layers"]): Map<number, MaterialTiming> {
   const ids = [...new Set(layers.flatMap((l) => l.components.map((c) => c.materialId)))];
   if (!ids.length) return new Map();
   const rows = tx
@@ -380,7 +377,7 @@ function materialTimings(tx: DbOrTx, layers: PlanDocument["layers"]): Map<number
   return new Map(rows.map((r) => [r.id, r]));
 }
 
-function insertLayers(tx: DbOrTx, versionId: number, layers: PlanDocument["layers"]) {
+function insertLayers(tx: Tx, versionId: number, layers: PlanDocument["layers"]) {
   const timings = materialTimings(tx, layers);
   layers.forEach((l, i) => {
     // A timing figure left empty comes from the data sheets now, so the saved version keeps it whatever the catalogue says later.
@@ -453,7 +450,7 @@ export function documentOf(name: string, description: string | null, v: LoadedPl
   };
 }
 
-export function insertPlan(tx: DbOrTx, ctx: RequestContext, doc: PlanDocument, opts: { jobId: number | null; isTemplate: boolean; copiedFromPlanId: number | null; now: number }) {
+export function insertPlan(tx: Tx, ctx: RequestContext, doc: PlanDocument, opts: { jobId: number | null; isTemplate: boolean; copiedFromPlanId: number | null; now: number }) {
   const plan = tx
     .insert(plans)
     .values({
@@ -600,7 +597,7 @@ export function deletePlan(deps: AppDeps, ctx: RequestContext, planId: number) {
  * Marks a plan version as used at the booth and points the job at it. Call inside the transaction that records
  * the use. Returns true when this call froze the version (an audit entry of kind "plan" is then written).
  */
-export function freezePlanVersion(tx: DbOrTx, versionId: number, jobId: number, now: number, ctx: RequestContext | null = null): boolean {
+export function freezePlanVersion(tx: Tx, versionId: number, jobId: number, now: number, ctx: RequestContext | null = null): boolean {
   const v = tx.select({ frozenAt: planVersions.frozenAt, planId: planVersions.planId, version: planVersions.version }).from(planVersions).where(eq(planVersions.id, versionId)).get();
   if (!v) throw notFound("Plan version");
   tx.update(jobs).set({ sprayedPlanVersionId: versionId }).where(eq(jobs.id, jobId)).run();

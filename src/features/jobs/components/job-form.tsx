@@ -12,13 +12,13 @@ import { SelectField } from "@/components/ui/form/select-field";
 import type { QueryKey } from "@tanstack/react-query";
 import { TextField } from "@/components/ui/form/text-field";
 import { TextareaField } from "@/components/ui/form/textarea-field";
+import { emptyToNull } from "@/lib/form-values";
 
 type JobFormInput = z.input<typeof createJobInputSchema>;
 export type JobFormValues = z.output<typeof createJobInputSchema>;
 type Option<Id> = { id: Id; name: string };
 
 const FIELDS = ["customerId", "title", "dueDate", "assignedPainterId", "notes"] as const;
-const emptyToNull = (v: unknown) => (v === "" || v === undefined ? null : v);
 
 /** Create or edit a job's basics. The shared schema checks it here and again on the server. */
 export function JobForm<K extends QueryKey>({

@@ -25,6 +25,7 @@ import { TextareaField } from "@/components/ui/form/textarea-field";
 import { Panel } from "@/components/ui/panel";
 import { cn } from "@/utils/cn";
 import { QuoteTotalsList } from "./quote-totals";
+import { emptyToNull } from "@/lib/form-values";
 
 type FormIn = z.input<typeof updateQuoteInputSchema>;
 type FormOut = z.output<typeof updateQuoteInputSchema>;
@@ -89,7 +90,6 @@ function newLine(kind: QuoteLineKind, defaults: { rateCents: number; markupPerce
   }
 }
 
-const emptyToNull = (v: unknown) => (v === "" || v === undefined ? null : v);
 
 /**
  * The draft editor: lines by kind, tax and deposit, validity and the words the customer reads, with the totals
