@@ -30,9 +30,15 @@ const apiInFlight = new WeakMap<Page, Set<unknown>>();
 /**
  * A fresh page that fails the test on any console error or uncaught exception. It runs with reduced motion (as a
  * user who asked for it would), so the app's colour transitions take no time; pass `motion: "full"` to see them.
+ * `serviceWorkers: "block"` keeps the offline app's service worker out, for a test that slows the network with
+ * page.route (requests the service worker answers from its cache never reach page.route).
  */
-export async function newPage(browser: Browser, viewport = { width: 1280, height: 800 }, { motion = "reduce" }: { motion?: "reduce" | "full" } = {}) {
-  const context = await browser.newContext({ viewport, reducedMotion: motion === "reduce" ? "reduce" : "no-preference" });
+export async function newPage(
+  browser: Browser,
+  viewport = { width: 1280, height: 800 },
+  { motion = "reduce", serviceWorkers = "allow" }: { motion?: "reduce" | "full"; serviceWorkers?: "allow" | "block" } = {},
+) {
+  const context = await browser.newContext({ viewport, reducedMotion: motion === "reduce" ? "reduce" : "no-preference", serviceWorkers });
   const page = await context.newPage();
   const errors: string[] = [];
   page.on("console", (m) => {

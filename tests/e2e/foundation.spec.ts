@@ -116,7 +116,8 @@ describe("jobs", () => {
   });
 
   it("while the next screen loads, a bar shows at the top and the current screen stays", async () => {
-    const { page, errors, close } = await newPage(browser, { width: 1280, height: 900 });
+    // Without the service worker: it would answer the scripts from its cache, past the slow network below.
+    const { page, errors, close } = await newPage(browser, { width: 1280, height: 900 }, { serviceWorkers: "block" });
     await signIn(page, baseUrl, "owner");
     await page.goto(`${baseUrl}/board`);
     await expect.poll(() => page.getByRole("heading", { level: 1 }).innerText()).toBe("Board");
